@@ -1,0 +1,28 @@
+/**
+ * Competitive inhibition: v = Vmax*S / (Km*(1 + I/Ki) + S)
+ * (Segel 1975, ch. 3; Cornish-Bowden 2012, sec. 6.2). The inhibitor binds free enzyme only.
+ */
+import type { MechanismModel } from './types.js';
+import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+
+export const competitive: MechanismModel = {
+  mechanism: 'competitive',
+  label: 'competitive',
+  equation: 'v = Vmax·S / (Km·(1 + I/Ki) + S)',
+  params: ['Vmax', 'Km', 'Ki'],
+  rate(p, s, i) {
+    return (p[0] * s) / (p[1] * (1 + i / p[2]) + s);
+  },
+  gradLog(p, s, i, out, o) {
+    const free = p[1] * (1 + i / p[2]);
+    const d = free + s;
+    const v = (p[0] * s) / d;
+    out[o] = v;
+    out[o + 1] = (-v * free) / d;
+    out[o + 2] = (v * p[1] * i) / (p[2] * d);
+  },
+  starts(data) {
+    const r = roughScales(data);
+    return inhibitionConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
+  },
+};

@@ -1,0 +1,33 @@
+/**
+ * Mixed inhibition: v = Vmax*S / (Km*(1 + I/Ki) + S*(1 + I/Kiu)), alpha = Kiu/Ki
+ * (Segel 1975, ch. 3; Cornish-Bowden 2012, sec. 6.5). Contains competitive (Kiu -> infinity),
+ * uncompetitive (Ki -> infinity) and noncompetitive (Ki = Kiu) as limits.
+ */
+import type { MechanismModel } from './types.js';
+import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+
+export const mixed: MechanismModel = {
+  mechanism: 'mixed',
+  label: 'mixed',
+  equation: 'v = Vmax·S / (Km·(1 + I/Ki) + S·(1 + I/Kiu))',
+  params: ['Vmax', 'Km', 'Ki', 'Kiu'],
+  rate(p, s, i) {
+    return (p[0] * s) / (p[1] * (1 + i / p[2]) + s * (1 + i / p[3]));
+  },
+  gradLog(p, s, i, out, o) {
+    const free = p[1] * (1 + i / p[2]);
+    const d = free + s * (1 + i / p[3]);
+    const v = (p[0] * s) / d;
+    out[o] = v;
+    out[o + 1] = (-v * free) / d;
+    out[o + 2] = (v * p[1] * i) / (p[2] * d);
+    out[o + 3] = (v * s * i) / (p[3] * d);
+  },
+  starts(data) {
+    const r = roughScales(data);
+    const guesses = inhibitionConstantGuesses(r);
+    const out: number[][] = [];
+    for (const ki of guesses) for (const kiu of guesses) out.push([r.vmax, r.km, ki, kiu]);
+    return out;
+  },
+};

@@ -1,0 +1,27 @@
+/**
+ * Pure noncompetitive inhibition: v = Vmax*S / ((Km + S)*(1 + I/Ki))
+ * (Segel 1975, ch. 3; Cornish-Bowden 2012, sec. 6.4). Mixed inhibition with Ki = Kiu (alpha = 1).
+ */
+import type { MechanismModel } from './types.js';
+import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+
+export const noncompetitive: MechanismModel = {
+  mechanism: 'noncompetitive',
+  label: 'noncompetitive',
+  equation: 'v = Vmax·S / ((Km + S)·(1 + I/Ki))',
+  params: ['Vmax', 'Km', 'Ki'],
+  rate(p, s, i) {
+    return (p[0] * s) / ((p[1] + s) * (1 + i / p[2]));
+  },
+  gradLog(p, s, i, out, o) {
+    const ratio = i / p[2];
+    const v = (p[0] * s) / ((p[1] + s) * (1 + ratio));
+    out[o] = v;
+    out[o + 1] = (-v * p[1]) / (p[1] + s);
+    out[o + 2] = (v * ratio) / (1 + ratio);
+  },
+  starts(data) {
+    const r = roughScales(data);
+    return inhibitionConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
+  },
+};

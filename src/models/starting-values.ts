@@ -1,0 +1,58 @@
+/**
+ * Data-driven starting values shared by the mechanism models. These are rough, cheap estimates
+ * from the raw grid (no transformed-data regression is used for results; these only seed the
+ * nonlinear fit). Common practice, no single published source.
+ */
+import type { KineticData } from './types.js';
+
+export interface RoughScales {
+  /** a little above the largest rate seen without inhibitor (or overall) */
+  vmax: number;
+  /** substrate concentration at which the uninhibited rate is nearest half of vmax */
+  km: number;
+  /** distinct non-zero inhibitor levels, ascending */
+  inhibitorLevels: number[];
+  /** geometric middle of the non-zero inhibitor levels (1 when there are none) */
+  inhibitorMiddle: number;
+}
+
+/** Rough Vmax, Km and inhibitor scale from the raw data. */
+export function roughScales(data: KineticData): RoughScales {
+  const n = data.v.length;
+  let vmaxFree = 0;
+  let vmaxAll = 0;
+  for (let k = 0; k < n; k++) {
+    if (data.v[k] > vmaxAll) vmaxAll = data.v[k];
+    if (data.i[k] === 0 && data.v[k] > vmaxFree) vmaxFree = data.v[k];
+  }
+  const vmax = 1.2 * (vmaxFree > 0 ? vmaxFree : vmaxAll > 0 ? vmaxAll : 1);
+  let km = NaN;
+  let best = Infinity;
+  const useFree = vmaxFree > 0;
+  for (let k = 0; k < n; k++) {
+    if (useFree && data.i[k] !== 0) continue;
+    const gap = Math.abs(data.v[k] - vmax / 2);
+    if (gap < best && data.s[k] > 0) {
+      best = gap;
+      km = data.s[k];
+    }
+  }
+  if (!(km > 0)) km = median(Array.from(data.s).filter((s) => s > 0)) || 1;
+  const levels = Array.from(new Set(Array.from(data.i).filter((x) => x > 0))).sort((a, b) => a - b);
+  const inhibitorMiddle =
+    levels.length > 0 ? Math.exp(levels.reduce((acc, x) => acc + Math.log(x), 0) / levels.length) : 1;
+  return { vmax, km, inhibitorLevels: levels, inhibitorMiddle };
+}
+
+function median(xs: number[]): number {
+  if (xs.length === 0) return NaN;
+  const sorted = [...xs].sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid] : 0.5 * (sorted[mid - 1] + sorted[mid]);
+}
+
+/** Inhibition-constant guesses spanning the tested inhibitor range (a small log grid). */
+export function inhibitionConstantGuesses(scales: RoughScales): number[] {
+  const mid = scales.inhibitorMiddle;
+  return [mid * 0.2, mid, mid * 5];
+}
