@@ -1,0 +1,36 @@
+/** The numeric arrays a fit works on, built once from a RateTable. */
+import type { RateTable } from '../input/types.js';
+
+export interface FitData {
+  /** substrate concentration per point */
+  s: Float64Array;
+  /** inhibitor concentration per point */
+  i: Float64Array;
+  /** observed rate per point */
+  v: Float64Array;
+  /** per-point SD from the file, when present for every point */
+  sd?: Float64Array;
+}
+
+export function fitDataFromTable(table: RateTable): FitData {
+  const n = table.points.length;
+  const s = new Float64Array(n);
+  const i = new Float64Array(n);
+  const v = new Float64Array(n);
+  let sd: Float64Array | undefined = new Float64Array(n);
+  table.points.forEach((p, k) => {
+    s[k] = p.substrate;
+    i[k] = p.inhibitor;
+    v[k] = p.rate;
+    if (sd && p.sd !== undefined && p.sd > 0) sd[k] = p.sd;
+    else sd = undefined;
+  });
+  return sd ? { s, i, v, sd } : { s, i, v };
+}
+
+/** A FitData from plain arrays (library convenience). */
+export function fitDataFromArrays(s: ArrayLike<number>, i: ArrayLike<number>, v: ArrayLike<number>, sd?: ArrayLike<number>): FitData {
+  const data: FitData = { s: Float64Array.from(s), i: Float64Array.from(i), v: Float64Array.from(v) };
+  if (sd) data.sd = Float64Array.from(sd);
+  return data;
+}

@@ -1,0 +1,242 @@
+/**
+ * Fitting one mechanism to all inhibitor series at once (global fit): weighted nonlinear least
+ * squares on the untransformed rates, parameters on the log scale, Levenberg-Marquardt steps
+ * (src/fit/levenberg-marquardt.ts), several starts, and iteratively reweighted least squares when
+ * the error model's weights depend on the fitted rates (src/fit/error-models.ts).
+ */
+import type { MechanismModel, Mechanism } from '../models/types.js';
+import type { LeastSquaresProblem, LeastSquaresResult } from './least-squares-problem.js';
+import { levenbergMarquardt } from './levenberg-marquardt.js';
+import { computeWeights, gaussianLogLikelihood, weightsDependOnFit, type ErrorModel } from './error-models.js';
+import type { FitData } from './fit-data.js';
+
+export interface MechanismFit {
+  mechanism: Mechanism;
+  model: MechanismModel;
+  errorModel: ErrorModel;
+  /** natural-scale parameters, in model.params order */
+  params: Float64Array;
+  /** ln(params) */
+  theta: Float64Array;
+  /** fitted rate per point */
+  fitted: Float64Array;
+  /** observed minus fitted rate */
+  residuals: Float64Array;
+  /** the weights at the solution */
+  weights: Float64Array;
+  /** sqrt(w) * (observed - fitted) */
+  weightedResiduals: Float64Array;
+  /** sqrt(w) * d fitted / d theta, row-major n x p (the weighted model Jacobian) */
+  jacobian: Float64Array;
+  /** weighted sum of squared residuals */
+  sse: number;
+  n: number;
+  /** number of fitted rate parameters (sigma not counted) */
+  p: number;
+  /** residual degrees of freedom n - p */
+  df: number;
+  /** Gaussian log-likelihood with sigma^2 at its MLE (see error-models.ts) */
+  logLik: number;
+  converged: boolean;
+  /** plain-words reason the fit ended */
+  message: string;
+  /** how many starting points were tried, and how many of them reached the best SSE (rel. 1e-6) */
+  startsTried: number;
+  startsReachingBest: number;
+  /** number of reweighting passes (0 for fixed weights) */
+  reweightPasses: number;
+}
+
+export interface FitOptions {
+  /** extra natural-scale starting vectors (e.g. warm starts from nested models) */
+  extraStarts?: number[][];
+  /** maximum reweighting passes for fit-dependent weights; default 60 */
+  maxReweightPasses?: number;
+}
+
+/** Largest |ln p - ln scale| allowed; beyond it a step is treated as outside the domain. */
+const LOG_SPAN = 35;
+
+/**
+ * A least-squares problem in theta = ln(p) with fixed weights. Residual k is
+ * sqrt(w_k) * (v_k - f(S_k, I_k; exp(theta))).
+ */
+export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Float64Array, logScale: Float64Array): LeastSquaresProblem {
+  const n = data.v.length;
+  const m = model.params.length;
+  const p = new Float64Array(m);
+  const grad = new Float64Array(m);
+  const toNatural = (x: Float64Array): boolean => {
+    for (let j = 0; j < m; j++) {
+      if (!(Math.abs(x[j] - logScale[j]) <= LOG_SPAN)) return false;
+      p[j] = Math.exp(x[j]);
+    }
+    return true;
+  };
+  return {
+    n,
+    m,
+    residuals(x, r) {
+      if (!toNatural(x)) return false;
+      for (let k = 0; k < n; k++) {
+        const f = model.rate(p, data.s[k], data.i[k]);
+        r[k] = sqrtW[k] * (data.v[k] - f);
+        if (!Number.isFinite(r[k])) return false;
+      }
+      return true;
+    },
+    jacobian(x, J) {
+      toNatural(x);
+      for (let k = 0; k < n; k++) {
+        model.gradLog(p, data.s[k], data.i[k], grad, 0);
+        const row = k * m;
+        for (let j = 0; j < m; j++) J[row + j] = -sqrtW[k] * grad[j];
+      }
+    },
+  };
+}
+
+/** ln of a typical magnitude for each parameter, from the data (centre of the allowed domain). */
+export function parameterLogScales(model: MechanismModel, data: FitData): Float64Array {
+  let vmax = 0;
+  let smax = 0;
+  let imax = 0;
+  for (let k = 0; k < data.v.length; k++) {
+    vmax = Math.max(vmax, Math.abs(data.v[k]));
+    smax = Math.max(smax, data.s[k]);
+    imax = Math.max(imax, data.i[k]);
+  }
+  const scale: Record<string, number> = { Vmax: vmax || 1, Km: smax || 1, Ki: imax || 1, Kiu: imax || 1 };
+  return Float64Array.from(model.params.map((name) => Math.log(scale[name])));
+}
+
+function runStarts(problem: LeastSquaresProblem, starts: Float64Array[]): { best: LeastSquaresResult; reaching: number } {
+  const results = starts.map((x0) => levenbergMarquardt(problem, x0));
+  let best = results[0];
+  for (const r of results) if (isBetter(r, best)) best = r;
+  const reaching = results.filter((r) => Math.abs(r.sse - best.sse) <= 1e-6 * Math.max(best.sse, 1e-300)).length;
+  return { best, reaching };
+}
+
+function isBetter(a: LeastSquaresResult, b: LeastSquaresResult): boolean {
+  if (!Number.isFinite(b.sse)) return Number.isFinite(a.sse);
+  return a.sse < b.sse;
+}
+
+/** Observed rates floored at 1% of the largest, as a weight basis before any fit exists. */
+function observedBasis(v: Float64Array): Float64Array {
+  let vmax = 0;
+  for (const x of v) vmax = Math.max(vmax, Math.abs(x));
+  const floor = 0.01 * (vmax || 1);
+  return v.map((x) => Math.max(x, floor));
+}
+
+/** Fits one mechanism globally to all points. */
+export function fitMechanism(model: MechanismModel, data: FitData, errorModel: ErrorModel, options: FitOptions = {}): MechanismFit {
+  const n = data.v.length;
+  const m = model.params.length;
+  const logScale = parameterLogScales(model, data);
+  const weights = new Float64Array(n);
+  const sqrtW = new Float64Array(n);
+  const setWeights = (basis: ArrayLike<number>) => {
+    computeWeights(errorModel, basis, data.sd, weights);
+    for (let k = 0; k < n; k++) sqrtW[k] = Math.sqrt(weights[k]);
+  };
+  setWeights(observedBasis(data.v));
+
+  const naturalStarts = [...model.starts(data), ...(options.extraStarts ?? [])];
+  const starts = naturalStarts
+    .filter((s) => s.length === m && s.every((x) => x > 0 && Number.isFinite(x)))
+    .map((s) => Float64Array.from(s, (x, j) => clampLog(Math.log(x), logScale[j])));
+
+  const problem = weightedProblem(model, data, sqrtW, logScale);
+  const { best: first, reaching } = runStarts(problem, starts);
+  let result = first;
+  let passes = 0;
+
+  if (weightsDependOnFit(errorModel)) {
+    const maxPasses = options.maxReweightPasses ?? 60;
+    const fitted = new Float64Array(n);
+    const previous = new Float64Array(n);
+    while (passes < maxPasses) {
+      predict(model, result.x, data, fitted);
+      previous.set(weights);
+      setWeights(fitted);
+      passes++;
+      result = levenbergMarquardt(problem, result.x);
+      let change = 0;
+      for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(weights[k] - previous[k]) / previous[k]);
+      if (change < 1e-10) break;
+    }
+    // final weights are those of the final fitted values
+    predict(model, result.x, data, fitted);
+    setWeights(fitted);
+    result = levenbergMarquardt(problem, result.x);
+  }
+  return assembleFit(model, data, errorModel, result, weights, sqrtW, starts.length, reaching, passes);
+}
+
+function clampLog(x: number, centre: number): number {
+  return Math.min(centre + LOG_SPAN - 1, Math.max(centre - LOG_SPAN + 1, x));
+}
+
+function predict(model: MechanismModel, theta: Float64Array, data: FitData, out: Float64Array): void {
+  const p = theta.map(Math.exp);
+  for (let k = 0; k < out.length; k++) out[k] = model.rate(p, data.s[k], data.i[k]);
+}
+
+function assembleFit(
+  model: MechanismModel,
+  data: FitData,
+  errorModel: ErrorModel,
+  result: LeastSquaresResult,
+  weights: Float64Array,
+  sqrtW: Float64Array,
+  startsTried: number,
+  startsReachingBest: number,
+  reweightPasses: number,
+): MechanismFit {
+  const n = data.v.length;
+  const m = model.params.length;
+  const theta = Float64Array.from(result.x);
+  const params = theta.map(Math.exp);
+  const fitted = new Float64Array(n);
+  predict(model, theta, data, fitted);
+  const residuals = new Float64Array(n);
+  const weightedResiduals = new Float64Array(n);
+  let sse = 0;
+  for (let k = 0; k < n; k++) {
+    residuals[k] = data.v[k] - fitted[k];
+    weightedResiduals[k] = sqrtW[k] * residuals[k];
+    sse += weightedResiduals[k] * weightedResiduals[k];
+  }
+  const jacobian = new Float64Array(n * m);
+  const grad = new Float64Array(m);
+  for (let k = 0; k < n; k++) {
+    model.gradLog(params, data.s[k], data.i[k], grad, 0);
+    for (let j = 0; j < m; j++) jacobian[k * m + j] = sqrtW[k] * grad[j];
+  }
+  const converged = result.converged && Number.isFinite(sse);
+  return {
+    mechanism: model.mechanism,
+    model,
+    errorModel,
+    params,
+    theta,
+    fitted,
+    residuals,
+    weights: Float64Array.from(weights),
+    weightedResiduals,
+    jacobian,
+    sse,
+    n,
+    p: m,
+    df: n - m,
+    logLik: gaussianLogLikelihood(sse, weights),
+    converged,
+    message: result.message,
+    startsTried,
+    startsReachingBest,
+    reweightPasses,
+  };
+}
