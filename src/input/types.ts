@@ -33,7 +33,12 @@ export interface Exclusion {
 export interface InputWarning {
   code: string;
   message: string;
+  /** source lines the warning is about, when it is about particular rows */
+  lines?: number[];
 }
+
+/** How each reading choice was made: found in the text, or set by an option. */
+export type ChoiceOrigin = 'detected' | 'option';
 
 export interface RateTable {
   /** file name (or '<memory>') */
@@ -56,6 +61,12 @@ export interface RateTable {
   };
   /** true when the table has an `sd` column with values */
   hasSd: boolean;
+  /** whether layout, separator and decimal mark were detected or set by an option */
+  detection: {
+    layout: ChoiceOrigin;
+    separator: ChoiceOrigin;
+    decimalMark: ChoiceOrigin;
+  };
 }
 
 /**

@@ -1,0 +1,86 @@
+/**
+ * What a layout reader hands back: points and exclusions grouped by compound, the units named
+ * in the header, and where the key columns sit (for messages about a whole table).
+ */
+import { InputError, type ConcentrationUnit, type Exclusion, type RatePoint } from './types.js';
+import { locate, quoteText, type Place } from './messages.js';
+import { readNumberCell } from './numbers.js';
+
+export interface CompoundRows {
+  compound?: string;
+  points: RatePoint[];
+  excluded: Exclusion[];
+  /** data rows (long) or data cells (matrix) read for this compound */
+  rowsRead: number;
+}
+
+export interface LayoutResult {
+  groups: CompoundRows[];
+  headerUnits: { substrate: ConcentrationUnit | null; inhibitor: ConcentrationUnit | null; rate: string | null };
+  /** header cells of the substrate, inhibitor and rate columns (matrix: the corner cell) */
+  anchors: { substrate: Place; inhibitor: Place; rate: Place };
+  hasSdColumn: boolean;
+}
+
+export interface LayoutContext {
+  source: string;
+  decimalMark: '.' | ',';
+}
+
+/** A concentration cell: a number >= 0, or the reason it cannot be used. */
+export type ConcentrationCell = { ok: true; value: number } | { ok: false; reason: string };
+
+/**
+ * Reads a substrate or inhibitor cell. A negative value is an error (a concentration cannot be
+ * below zero, so the file is wrong rather than the point unusual); blank, text and infinite
+ * values come back as reasons for an exclusion.
+ */
+export function readConcentrationCell(
+  cell: string,
+  what: 'substrate' | 'inhibitor',
+  place: Place,
+  context: LayoutContext,
+): ConcentrationCell {
+  const read = readNumberCell(cell, context.decimalMark);
+  switch (read.kind) {
+    case 'blank':
+      return { ok: false, reason: `${what} is blank` };
+    case 'infinite':
+      return { ok: false, reason: `${what} is infinite (${quoteText(cell.trim())})` };
+    case 'text':
+      return { ok: false, reason: `${what} ${quoteText(read.text)} is not a number${decimalHint(read.text, context)}` };
+    case 'number':
+      if (read.value < 0) {
+        throw new InputError(
+          `${locate(context.source, place)}negative ${what} concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
+          context.source, place.line, place.column,
+        );
+      }
+      return { ok: true, value: read.value };
+  }
+}
+
+/** A rate (or sd) cell: any finite number, or the reason it cannot be used. */
+export function readRateCell(cell: string, what: string, context: LayoutContext): ConcentrationCell {
+  const read = readNumberCell(cell, context.decimalMark);
+  switch (read.kind) {
+    case 'blank':
+      return { ok: false, reason: `${what} is blank` };
+    case 'infinite':
+      return { ok: false, reason: `${what} is infinite (${quoteText(cell.trim())})` };
+    case 'text':
+      return { ok: false, reason: `${what} ${quoteText(read.text)} is not a number${decimalHint(read.text, context)}` };
+    case 'number':
+      return { ok: true, value: read.value };
+  }
+}
+
+/** Reason text for a row or cell at [S] = 0. */
+export const ZERO_SUBSTRATE_REASON =
+  '[S] = 0: a rate without substrate is a blank (background), not a point on the curve';
+
+function decimalHint(text: string, context: LayoutContext): string {
+  if (context.decimalMark === ',' && /^[+-]?\d*\.\d+$/.test(text)) return ' (this file is read with decimal commas)';
+  if (context.decimalMark === '.' && /^[+-]?\d*,\d+$/.test(text)) return ' (this file is read with decimal points)';
+  return '';
+}

@@ -1,0 +1,201 @@
+/**
+ * The long layout: a header line, then one row per measured rate.
+ *
+ * Recognised columns (name case-insensitive, unit in brackets or parentheses allowed):
+ * substrate, inhibitor, rate (required); sd, replicate, well, exclude, compound (optional).
+ * Any other named column is kept as an annotation. Lines that hold nothing but separators and
+ * spaces are not data rows and are not counted.
+ */
+import { InputError, type Exclusion, type RatePoint } from './types.js';
+import { locate, quoteText, type Place } from './messages.js';
+import { isBlankRow, type TextRow } from './tokenize.js';
+import { splitHeaderName } from './header.js';
+import { EXCLUDE_YES_WORDS, readExcludeFlag } from './exclude-flag.js';
+import { parseConcentrationUnit } from './units.js';
+import { readNumberCell } from './numbers.js';
+import {
+  readConcentrationCell,
+  readRateCell,
+  ZERO_SUBSTRATE_REASON,
+  type CompoundRows,
+  type LayoutContext,
+  type LayoutResult,
+} from './layout-result.js';
+
+const KNOWN_COLUMNS = ['substrate', 'inhibitor', 'rate', 'sd', 'replicate', 'well', 'exclude', 'compound'] as const;
+type KnownColumn = (typeof KNOWN_COLUMNS)[number];
+const REQUIRED_COLUMNS: KnownColumn[] = ['substrate', 'inhibitor', 'rate'];
+
+interface ColumnPlan {
+  known: Partial<Record<KnownColumn, number>>;
+  /** annotation columns: index and header text */
+  annotations: { index: number; label: string }[];
+  units: LayoutResult['headerUnits'];
+  width: number;
+}
+
+function planColumns(header: TextRow, dataRows: TextRow[], context: LayoutContext): ColumnPlan {
+  const { source } = context;
+  const seen = new Map<string, number>();
+  const plan: ColumnPlan = {
+    known: {},
+    annotations: [],
+    units: { substrate: null, inhibitor: null, rate: null },
+    width: header.cells.length,
+  };
+  header.cells.forEach((cell, index) => {
+    const column = index + 1;
+    const place: Place = { line: header.line, column };
+    const { name, key, unit } = splitHeaderName(cell);
+    if (name === '') {
+      const used = dataRows.find((row) => (row.cells[index] ?? '').trim() !== '');
+      if (used) {
+        throw new InputError(
+          `${locate(source, place)}column ${column} has data (line ${used.line}) but no name in the header; name it or delete it`,
+          source, header.line, column,
+        );
+      }
+      return; // an empty, unnamed column (e.g. a trailing separator) is ignored
+    }
+    const earlier = seen.get(key);
+    if (earlier !== undefined) {
+      throw new InputError(
+        `${locate(source, place)}duplicate column name ${quoteText(name)} (also column ${earlier}); rename one`,
+        source, header.line, column,
+      );
+    }
+    seen.set(key, column);
+    if ((KNOWN_COLUMNS as readonly string[]).includes(key)) {
+      const known = key as KnownColumn;
+      plan.known[known] = index;
+      if (unit !== null && (known === 'substrate' || known === 'inhibitor')) {
+        plan.units[known] = parseConcentrationUnit(unit, { source, ...place });
+      }
+      if (known === 'rate') plan.units.rate = unit;
+    } else {
+      plan.annotations.push({ index, label: cell.trim() });
+    }
+  });
+  for (const required of REQUIRED_COLUMNS) {
+    if (plan.known[required] !== undefined) continue;
+    const names = header.cells.map((c) => c.trim()).filter((c) => c !== '');
+    const listed = names.length === 0 ? 'no names' : names.slice(0, 8).map(quoteText).join(', ') + (names.length > 8 ? ', ...' : '');
+    const looksLikeData = readNumberCell(header.cells[0] ?? '', context.decimalMark).kind === 'number';
+    const hint = looksLikeData
+      ? 'the first line looks like data; add a header line naming substrate, inhibitor and rate'
+      : `name a column ${quoteText(required)}`;
+    throw new InputError(
+      `${locate(source, { line: header.line })}missing required column ${quoteText(required)} (the header has ${listed}); ${hint}`,
+      source, header.line,
+    );
+  }
+  return plan;
+}
+
+/** Reads rows of the long layout; `rows` start at the header line. */
+export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutResult {
+  const { source } = context;
+  const firstIndex = rows.findIndex((row) => !isBlankRow(row));
+  if (firstIndex < 0) {
+    throw new InputError(`${locate(source, { line: 1 })}the file is empty; it needs a header line and data rows`, source, 1);
+  }
+  const header = rows[firstIndex];
+  const dataRows = rows.slice(firstIndex + 1).filter((row) => !isBlankRow(row));
+  const plan = planColumns(header, dataRows, context);
+  if (dataRows.length === 0) {
+    throw new InputError(
+      `${locate(source, { line: header.line })}no data rows below the header; add one row per measured rate`,
+      source, header.line,
+    );
+  }
+  const col = plan.known as Required<Pick<ColumnPlan['known'], 'substrate' | 'inhibitor' | 'rate'>> & ColumnPlan['known'];
+
+  // Compound names: either every row names one, or none does.
+  const compoundIndex = col.compound;
+  const compoundOf = (row: TextRow): string => (compoundIndex === undefined ? '' : (row.cells[compoundIndex] ?? '').trim());
+  const named = compoundIndex !== undefined && dataRows.some((row) => compoundOf(row) !== '');
+  const groups = new Map<string, CompoundRows>();
+
+  for (const row of dataRows) {
+    const compound = named ? compoundOf(row) : '';
+    if (named && compound === '') {
+      const place = { line: row.line, column: compoundIndex! + 1 };
+      throw new InputError(
+        `${locate(source, place)}compound is blank here but other rows name a compound; fill it in`,
+        source, place.line, place.column,
+      );
+    }
+    let group = groups.get(compound);
+    if (!group) {
+      group = { compound: named ? compound : undefined, points: [], excluded: [], rowsRead: 0 };
+      groups.set(compound, group);
+    }
+    group.rowsRead++;
+    const outcome = readLongRow(row, plan, context);
+    if ('reason' in outcome) group.excluded.push(outcome);
+    else group.points.push(named ? { ...outcome, compound } : outcome);
+  }
+
+  const headerPlace = (index: number): Place => ({ line: header.line, column: index + 1 });
+  return {
+    groups: [...groups.values()],
+    headerUnits: plan.units,
+    anchors: { substrate: headerPlace(col.substrate), inhibitor: headerPlace(col.inhibitor), rate: headerPlace(col.rate) },
+    hasSdColumn: col.sd !== undefined,
+  };
+}
+
+/** One data row: a point, or the exclusion that keeps it out (the first problem found). */
+function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext): RatePoint | Exclusion {
+  const { source } = context;
+  const col = plan.known;
+  const cell = (index: number | undefined): string => (index === undefined ? '' : (row.cells[index] ?? ''));
+  const exclusion = (index: number, reason: string): Exclusion => ({ line: row.line, column: index + 1, reason });
+
+  if (col.exclude !== undefined) {
+    const flag = readExcludeFlag(cell(col.exclude));
+    if (flag === null) {
+      const place = { line: row.line, column: col.exclude + 1 };
+      throw new InputError(
+        `${locate(source, place)}exclude value ${quoteText(cell(col.exclude).trim())} not understood; write yes to leave the row out (${EXCLUDE_YES_WORDS}) or leave it blank`,
+        source, place.line, place.column,
+      );
+    }
+    if (flag) return exclusion(col.exclude, `flagged in the exclude column (${quoteText(cell(col.exclude).trim())})`);
+  }
+
+  const substrate = readConcentrationCell(cell(col.substrate), 'substrate', { line: row.line, column: col.substrate! + 1 }, context);
+  const inhibitor = readConcentrationCell(cell(col.inhibitor), 'inhibitor', { line: row.line, column: col.inhibitor! + 1 }, context);
+  const rate = readRateCell(cell(col.rate), 'rate', context);
+
+  const extra = row.cells.findIndex((c, index) => index >= plan.width && c.trim() !== '');
+  if (extra >= 0) {
+    return exclusion(
+      extra,
+      `row has ${row.cells.length} cells but the header has ${plan.width} columns (an unquoted separator inside a value?)`,
+    );
+  }
+  if (!substrate.ok) return exclusion(col.substrate!, substrate.reason);
+  if (!inhibitor.ok) return exclusion(col.inhibitor!, inhibitor.reason);
+  if (!rate.ok) return exclusion(col.rate!, rate.reason);
+  if (substrate.value === 0) return exclusion(col.substrate!, ZERO_SUBSTRATE_REASON);
+
+  const point: RatePoint = { line: row.line, substrate: substrate.value, inhibitor: inhibitor.value, rate: rate.value };
+  if (col.sd !== undefined && cell(col.sd).trim() !== '') {
+    const sd = readRateCell(cell(col.sd), 'sd', context);
+    if (!sd.ok) return exclusion(col.sd, sd.reason);
+    if (sd.value <= 0) return exclusion(col.sd, `sd ${quoteText(cell(col.sd).trim())} is not above zero; a standard deviation must be positive`);
+    point.sd = sd.value;
+  }
+  const replicate = cell(col.replicate).trim();
+  if (replicate !== '') point.replicate = replicate;
+  const well = cell(col.well).trim();
+  if (well !== '') point.well = well;
+  for (const { index, label } of plan.annotations) {
+    const value = cell(index).trim();
+    if (value === '') continue;
+    point.annotations ??= {};
+    point.annotations[label] = value;
+  }
+  return point;
+}

@@ -1,0 +1,117 @@
+/**
+ * Checks on a whole table once its rows are read: errors that stop a mechanism analysis, and
+ * warnings about the design that let it go on.
+ */
+import { InputError, type InputWarning, type RateTable } from './types.js';
+import { formatConcentration, listLines, locate, quoteText, type Place } from './messages.js';
+
+/**
+ * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
+ * needed to have a residual degree of freedom, so 5 usable points are the floor for any table.
+ */
+export const MINIMUM_USABLE_POINTS = 5;
+
+function compoundPrefix(table: RateTable): string {
+  return table.compound === undefined ? '' : `compound ${quoteText(table.compound)}: `;
+}
+
+/** Distinct values, ascending. */
+function levels(values: number[]): number[] {
+  return [...new Set(values)].sort((a, b) => a - b);
+}
+
+/**
+ * Throws InputError when the usable points cannot support the analysis: fewer than 5 points; and,
+ * when `requireMechanismDesign`, fewer than two inhibitor levels or no inhibitor-free control.
+ */
+export function checkUsableDesign(
+  table: RateTable,
+  anchors: { inhibitor: Place; rate: Place },
+  requireMechanismDesign: boolean,
+): void {
+  const { source } = table;
+  const n = table.points.length;
+  if (n < MINIMUM_USABLE_POINTS) {
+    throw new InputError(
+      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows`,
+      source, anchors.rate.line, anchors.rate.column,
+    );
+  }
+  if (!requireMechanismDesign) return;
+  const inhibitorLevels = levels(table.points.map((p) => p.inhibitor));
+  const unit = table.units.inhibitor;
+  if (inhibitorLevels.length < 2) {
+    const only = formatConcentration(inhibitorLevels[0], unit);
+    const what = inhibitorLevels[0] === 0
+      ? `only the inhibitor-free control ([I] = 0) among the usable points; a mechanism analysis needs at least one non-zero [I] as well`
+      : `only one inhibitor level ([I] = ${only}) and no inhibitor-free control among the usable points; a mechanism analysis needs [I] = 0 and at least one non-zero [I]`;
+    throw new InputError(
+      `${locate(source, anchors.inhibitor)}${compoundPrefix(table)}${what}; add them (or turn off the mechanism-design check)`,
+      source, anchors.inhibitor.line, anchors.inhibitor.column,
+    );
+  }
+  if (inhibitorLevels[0] !== 0) {
+    throw new InputError(
+      `${locate(source, anchors.inhibitor)}${compoundPrefix(table)}no inhibitor-free control ([I] = 0) among the usable points; a mechanism analysis compares rates with and without inhibitor; add [I] = 0 rows (or turn off the mechanism-design check)`,
+      source, anchors.inhibitor.line, anchors.inhibitor.column,
+    );
+  }
+}
+
+/** More than this many decades between the smallest and largest non-zero level is suspicious. */
+export const WIDEST_PLAUSIBLE_DECADES = 8;
+/** Common practice (no single source): at least 5 [S] levels spanning the Km. */
+export const FEWEST_SUBSTRATE_LEVELS = 5;
+/** Common practice (no single source): at least 3 non-zero [I] levels besides the control. */
+export const FEWEST_INHIBITOR_LEVELS = 3;
+
+/** Warnings about the data that need no fitted constants (see designWarnings for those). */
+export function dataWarnings(table: RateTable): InputWarning[] {
+  const warnings: InputWarning[] = [];
+  const points = table.points;
+  if (points.length === 0) return warnings;
+
+  const notPositive = points.filter((p) => p.rate <= 0).map((p) => p.line);
+  if (notPositive.length > 0) {
+    warnings.push({
+      code: 'rate-not-positive',
+      message: `${notPositive.length} ${notPositive.length === 1 ? 'rate is' : 'rates are'} zero or negative (${listLines(notPositive)}); they stay in the fit, but check the background subtraction`,
+      lines: notPositive,
+    });
+  }
+
+  const perPair = new Map<string, number>();
+  for (const p of points) perPair.set(`${p.substrate}|${p.inhibitor}`, (perPair.get(`${p.substrate}|${p.inhibitor}`) ?? 0) + 1);
+  if ([...perPair.values()].every((count) => count === 1)) {
+    warnings.push({
+      code: 'single-replicate',
+      message: 'every ([S], [I]) pair has a single rate; replicates let the error model and the lack of fit be checked, so measure at least in duplicate',
+    });
+  }
+
+  const substrateLevels = levels(points.map((p) => p.substrate));
+  const inhibitorLevels = levels(points.map((p) => p.inhibitor)).filter((v) => v > 0);
+  for (const [axis, values] of [['substrate', substrateLevels], ['inhibitor', inhibitorLevels]] as const) {
+    if (values.length < 2) continue;
+    const decades = Math.log10(values[values.length - 1] / values[0]);
+    if (decades > WIDEST_PLAUSIBLE_DECADES) {
+      warnings.push({
+        code: 'wide-concentration-span',
+        message: `${axis} concentrations span ${decades.toFixed(1)} decades (more than ${WIDEST_PLAUSIBLE_DECADES}); check for mixed units in the ${axis} column`,
+      });
+    }
+  }
+  if (substrateLevels.length < FEWEST_SUBSTRATE_LEVELS) {
+    warnings.push({
+      code: 'few-substrate-levels',
+      message: `only ${substrateLevels.length} substrate ${substrateLevels.length === 1 ? 'level' : 'levels'}; common practice is at least ${FEWEST_SUBSTRATE_LEVELS}, from about 0.2 x Km to 5 x Km or more, else Km and the mechanism are poorly determined`,
+    });
+  }
+  if (inhibitorLevels.length < FEWEST_INHIBITOR_LEVELS) {
+    warnings.push({
+      code: 'few-inhibitor-levels',
+      message: `only ${inhibitorLevels.length} non-zero inhibitor ${inhibitorLevels.length === 1 ? 'level' : 'levels'}; common practice is at least ${FEWEST_INHIBITOR_LEVELS} (e.g. 0.5, 1, 2, 4 x Ki) besides the control, else the mechanisms are hard to tell apart`,
+    });
+  }
+  return warnings;
+}
