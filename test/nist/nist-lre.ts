@@ -19,6 +19,11 @@ export interface NistRun {
   minSdLre: number;
 }
 
+/** (J'J)^-1 (row-major m x m) from the pivoted QR of a row-major n x m Jacobian. */
+export function unscaledCovarianceOf(jacobian: Float64Array, n: number, m: number): Float64Array {
+  return unscaledCovariance(jacobian, n, m).matrix;
+}
+
 export function runNist(fixture: NistFixture, start: 1 | 2): NistRun {
   const problem = nistProblem(fixture);
   const result = levenbergMarquardt(problem, fixture.starts[start - 1]);
