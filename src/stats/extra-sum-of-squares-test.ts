@@ -1,8 +1,8 @@
 /**
  * Extra-sum-of-squares F test of a reduced model nested in a full one (Draper, N. R. and
- * Smith, H. (1998) Applied Regression Analysis, 3rd ed., Wiley, the extra-sum-of-squares
- * principle (chapter on extra sums of squares); for nonlinear models an approximate test, Bates, D. M. and Watts, D. G. (1988)
- * Nonlinear Regression Analysis and Its Applications, Wiley, ch. 3):
+ * Smith, H. (1998) Applied Regression Analysis, 3rd ed., Wiley, chapter on the extra sum of
+ * squares principle; for nonlinear models the test is approximate: Bates, D. M. and Watts, D. G.
+ * (1988) Nonlinear Regression Analysis and Its Applications, Wiley, ch. 3):
  *   F = ((SSE_r - SSE_f) / (df_r - df_f)) / (SSE_f / df_f),   p = P(F(df_r - df_f, df_f) > F)
  * where df are residual degrees of freedom (n minus the number of fitted parameters).
  * If SSE_r < SSE_f the reduced fit beat the full one, which cannot happen at the true optima of
