@@ -1,0 +1,102 @@
+/** Result types of one analysis (one compound, one rate table). */
+import type { Mechanism } from '../models/types.js';
+import type { MechanismFit } from '../fit/fit-mechanism.js';
+import type { ErrorModel } from '../fit/error-models.js';
+import type { FitData } from '../fit/fit-data.js';
+import type { Exclusion, InputWarning, RateTable } from '../input/types.js';
+import type { ParameterEstimate } from '../evidence/wald-estimates.js';
+import type { NestedComparison } from '../evidence/nested-comparisons.js';
+import type { Verdict } from '../evidence/verdict.js';
+
+/** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
+export interface ProfileCurve {
+  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
+  /** natural-scale values of the parameter along the profile */
+  values: number[];
+  /** signed square root of the scaled SSE increase (profile t statistic tau) at each value */
+  tau: number[];
+  /** |tau| at the interval ends (the t quantile used) */
+  cutoff: number;
+}
+
+/** A joint confidence region for (Ki, Kiu) of the mixed model: the likelihood contour. */
+export interface JointRegion {
+  level: number;
+  /** closed outline, natural scale */
+  ki: number[];
+  kiu: number[];
+  /** true when the contour leaves the searched box (the region is open on some side) */
+  open: boolean;
+}
+
+/** A Michaelis-Menten fit of one inhibitor series alone: a diagnostic, not a result. */
+export interface SeriesFit {
+  inhibitor: number;
+  n: number;
+  converged: boolean;
+  Vmax: number;
+  Km: number;
+  seVmax: number | null;
+  seKm: number | null;
+}
+
+export interface ModelResult {
+  mechanism: Mechanism;
+  label: string;
+  equation: string;
+  converged: boolean;
+  message: string;
+  n: number;
+  /** fitted rate parameters (sigma excluded) */
+  p: number;
+  /** parameters counted by the criteria (p + 1 for sigma) */
+  k: number;
+  df: number;
+  sse: number;
+  logLik: number;
+  aicc: number;
+  bic: number;
+  deltaAicc: number;
+  /** Akaike weight from AICc */
+  weight: number;
+  /** Schwarz weight from BIC */
+  bicWeight: number;
+  estimates: ParameterEstimate[];
+  /** profile-likelihood curves, when computed */
+  profiles?: ProfileCurve[];
+  /** joint (Ki, Kiu) region, mixed model only, when computed */
+  jointRegion?: JointRegion;
+  /** residual variance s^2 = SSE_w / df */
+  residualVariance: number;
+  fit: MechanismFit;
+}
+
+export interface InputSummary {
+  source: string;
+  compound?: string;
+  rowsRead: number;
+  rowsUsed: number;
+  excluded: Exclusion[];
+  layout: RateTable['layout'];
+  separator: RateTable['separator'];
+  decimalMark: RateTable['decimalMark'];
+  units: RateTable['units'];
+  warnings: InputWarning[];
+}
+
+export interface AnalysisResult {
+  input: InputSummary;
+  errorModel: ErrorModel;
+  /** confidence level of the intervals */
+  level: number;
+  /** sorted by AICc, best first */
+  models: ModelResult[];
+  nested: NestedComparison[];
+  verdict: Verdict;
+  /** per-series Michaelis-Menten fits (diagnostic input of the slope and intercept replots) */
+  seriesFits?: SeriesFit[];
+  /** the points that entered the fit */
+  data: FitData;
+  /** the table the analysis was run on */
+  table: RateTable;
+}

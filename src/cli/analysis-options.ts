@@ -1,0 +1,53 @@
+/**
+ * The options shared by `analyze`, `demo` and `batch`: how to read the table and how to analyse it.
+ * Declared once here so every command offers the same spelling and help text.
+ */
+import type { Command } from 'commander';
+import type { ParseOptions } from '../input/options.js';
+import type { AnalysisOptions } from '../analysis/analyze-table.js';
+import { errorModelOption, numberOption, unitOption } from './parse-option-values.js';
+import { UsageError } from './exit-codes.js';
+
+export interface SharedCliOptions {
+  error?: string;
+  level?: string;
+  layout?: string;
+  substrateUnit?: string;
+  inhibitorUnit?: string;
+  rateUnit?: string;
+  unit?: string;
+}
+
+export function addSharedOptions(cmd: Command): Command {
+  return cmd
+    .option('--error <model>', 'error model: constant | proportional | sqrt | column (the sd column)', 'constant')
+    .option('--level <p>', 'confidence level of the intervals', '0.95')
+    .option('--layout <kind>', 'table layout: long | matrix (default: detected)')
+    .option('--substrate-unit <unit>', 'unit of [S] in the file (M, mM, uM, nM, pM); overrides the header')
+    .option('--inhibitor-unit <unit>', 'unit of [I] in the file; overrides the header')
+    .option('--rate-unit <text>', 'unit of the rates, as text; overrides the header')
+    .option('--unit <unit>', 'report both concentrations in this unit (M, mM, uM, nM, pM)');
+}
+
+export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
+  const parse: ParseOptions = {};
+  if (o.layout !== undefined) {
+    if (o.layout !== 'long' && o.layout !== 'matrix') throw new UsageError(`option --layout: "${o.layout}" is not long or matrix`);
+    parse.layout = o.layout;
+  }
+  if (o.substrateUnit) parse.substrateUnit = unitOption('--substrate-unit', o.substrateUnit);
+  if (o.inhibitorUnit) parse.inhibitorUnit = unitOption('--inhibitor-unit', o.inhibitorUnit);
+  if (o.rateUnit) parse.rateUnit = o.rateUnit;
+  if (o.unit) {
+    const u = unitOption('--unit', o.unit);
+    parse.outputUnits = { substrate: u, inhibitor: u };
+  }
+  return parse;
+}
+
+export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
+  return {
+    errorModel: errorModelOption(o.error ?? 'constant'),
+    level: numberOption('--level', o.level ?? '0.95', (x) => x > 0 && x < 1, 'a number between 0 and 1'),
+  };
+}

@@ -1,0 +1,64 @@
+/** `mechanist analyze FILE`: one compound's table, fitted, ranked and summarised. */
+import { Command } from 'commander';
+import { resolve } from 'node:path';
+import { readRateFile } from '../../input/index.js';
+import { analyzeTable } from '../../analysis/analyze-table.js';
+import type { AnalysisResult } from '../../analysis/types.js';
+import type { RateTable } from '../../input/types.js';
+import { analysisJson } from '../../report/results-json.js';
+import { textSummary } from '../../report/text-summary.js';
+import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
+import { UsageError } from '../exit-codes.js';
+import type { CliIo } from '../io.js';
+import { writeResultFiles } from '../write-results.js';
+
+interface AnalyzeCliOptions extends SharedCliOptions {
+  json?: boolean;
+  out?: string;
+  compound?: string;
+}
+
+/** Picks the table(s) to analyse: the only one, the named compound, or all with --compound all. */
+export function chooseTables(tables: RateTable[], compound: string | undefined, file: string): RateTable[] {
+  if (tables.length === 1 && compound === undefined) return tables;
+  const names = tables.map((t) => t.compound ?? '(unnamed)');
+  if (compound === undefined)
+    throw new UsageError(`${file} holds ${tables.length} compounds (${names.join(', ')}): choose one with --compound NAME, or use --compound all`);
+  if (compound === 'all') return tables;
+  const found = tables.filter((t) => t.compound === compound);
+  if (found.length === 0) throw new UsageError(`${file} has no compound "${compound}"; it holds ${names.join(', ')}`);
+  return found;
+}
+
+export function outputFolderFor(out: string, table: RateTable, many: boolean): string {
+  return many && table.compound !== undefined ? resolve(out, safeName(table.compound)) : resolve(out);
+}
+
+export function safeName(name: string): string {
+  return name.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^\.+/, '_') || '_';
+}
+
+export function analyzeCommand(io: CliIo): Command {
+  const cmd = new Command('analyze')
+    .description('fit the five mechanisms to one rate table and rank them')
+    .argument('<file>', 'CSV or TSV rate table')
+    .option('--json', 'print one JSON document instead of the text summary')
+    .option('--out <dir>', 'write results.json, parameters.csv and summary.txt into this folder')
+    .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)');
+  addSharedOptions(cmd);
+  cmd.action(async (file: string, o: AnalyzeCliOptions) => {
+    const parse = parseOptionsFrom(o);
+    const analysis = analysisOptionsFrom(o);
+    const path = resolve(io.cwd, file);
+    const tables = chooseTables(await readRateFile(path, parse), o.compound, file);
+    const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
+    if (o.out) for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1));
+    if (o.json) {
+      const docs = results.map(analysisJson);
+      io.out(JSON.stringify(docs.length === 1 ? docs[0] : docs, null, 2) + '\n');
+    } else {
+      io.out(results.map(textSummary).join('\n'));
+    }
+  });
+  return cmd;
+}

@@ -1,0 +1,29 @@
+/**
+ * `mechanist demo`: analyses the shipped demo table (an invented scenario: compound KT-0417
+ * against the fictional amidase HLX-1; see data/demo/README.md) and writes the results under
+ * reports/demo/.
+ */
+import { Command } from 'commander';
+import { resolve } from 'node:path';
+import { readRateFile } from '../../input/index.js';
+import { analyzeTable } from '../../analysis/analyze-table.js';
+import { textSummary } from '../../report/text-summary.js';
+import type { CliIo } from '../io.js';
+import { demoDataPath } from '../package-paths.js';
+import { writeResultFiles } from '../write-results.js';
+
+export const DEMO_SOURCE_NAME = 'data/demo/hlx-amidase-kt0417.csv';
+
+export function demoCommand(io: CliIo): Command {
+  return new Command('demo')
+    .description('analyse the shipped demo dataset and write the results to reports/demo/')
+    .option('--out <dir>', 'output folder', 'reports/demo')
+    .action(async (o: { out: string }) => {
+      const [table] = await readRateFile(demoDataPath(), {});
+      const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
+      const dir = resolve(io.cwd, o.out);
+      writeResultFiles(result, dir);
+      io.out(textSummary(result));
+      io.out(`\nResults written to ${o.out}/\n`);
+    });
+}

@@ -1,0 +1,81 @@
+/**
+ * The command line: a thin layer over the library. Every failure ends in one plain line on stderr
+ * and a documented exit code (src/cli/exit-codes.ts); no stack trace reaches the user.
+ */
+import { Command, CommanderError } from 'commander';
+import { InputError } from '../input/types.js';
+import { AnalysisError } from '../analysis/analyze-table.js';
+import { TOOL_VERSION } from '../version.js';
+import { EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_OK, UsageError } from './exit-codes.js';
+import type { CliIo } from './io.js';
+import { analyzeCommand } from './commands/analyze.js';
+import { simulateCommand } from './commands/simulate.js';
+import { demoCommand } from './commands/demo.js';
+
+/** Exit code chosen by a command that finished without throwing (batch uses it). */
+export interface CommandOutcome {
+  exitCode: number;
+}
+
+function buildProgram(io: CliIo, outcome: CommandOutcome): Command {
+  const program = new Command('mechanist')
+    .description('Global fits of reversible enzyme-inhibition mechanisms, ranked, with honest intervals.')
+    .version(TOOL_VERSION)
+    .addHelpText('after', `\n${EXIT_CODE_HELP}\n\nResearch use only: results support, and do not replace, expert judgement.`)
+    .showHelpAfterError(false)
+    .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+  for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io)]) {
+    cmd.configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+    cmd.exitOverride();
+    program.addCommand(cmd);
+  }
+  void outcome;
+  program.exitOverride();
+  return program;
+}
+
+/** Runs the CLI with the given arguments (without "node" and the script); resolves to the exit code. */
+export async function runCli(argv: string[], io: CliIo): Promise<number> {
+  const outcome: CommandOutcome = { exitCode: EXIT_OK };
+  const program = buildProgram(io, outcome);
+  try {
+    if (argv.length === 0) {
+      program.outputHelp();
+      return EXIT_BAD_INPUT;
+    }
+    await program.parseAsync(argv, { from: 'user' });
+    return outcome.exitCode;
+  } catch (e) {
+    return reportFailure(e, io);
+  }
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*\n\s*/g, ' ').trim();
+}
+
+export function reportFailure(e: unknown, io: CliIo): number {
+  if (e instanceof CommanderError) {
+    // help and version end in a CommanderError with exit code 0; commander already printed usage errors
+    if (e.exitCode === 0 || e.code === 'commander.helpDisplayed' || e.code === 'commander.version') return EXIT_OK;
+    return EXIT_BAD_INPUT;
+  }
+  if (e instanceof InputError || e instanceof UsageError) {
+    io.err(`mechanist: ${oneLine(e.message)}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  if (e instanceof AnalysisError) {
+    io.err(`mechanist: analysis not completed: ${oneLine(e.message)}\n`);
+    return EXIT_ANALYSIS_FAILED;
+  }
+  const code = (e as NodeJS.ErrnoException)?.code;
+  if (code === 'ENOENT' || code === 'EACCES' || code === 'EISDIR') {
+    const path = (e as NodeJS.ErrnoException).path ?? '';
+    const what = code === 'ENOENT' ? 'no such file or folder' : code === 'EACCES' ? 'permission denied' : 'is a folder, not a file';
+    io.err(`mechanist: ${path}: ${what}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  const message = e instanceof Error ? e.message : String(e);
+  io.err(`mechanist: analysis not completed: ${oneLine(message)} (an unexpected internal error; please report it with the input file)\n`);
+  return EXIT_ANALYSIS_FAILED;
+}

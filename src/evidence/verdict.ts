@@ -1,0 +1,251 @@
+/**
+ * The verdict: an honest summary of which mechanism the data support, and how firmly.
+ *
+ * Rule (documented in DEVELOPERS.md, "The verdict rule"):
+ *  1. Inhibition detected? If "no inhibition" ranks first by AICc, or no inhibited model improves
+ *     on it by the nested test at p < 0.05, the outcome is `no-inhibition`.
+ *  2. Parsimony within the nesting: mixed is preferred over the best three-parameter model only if
+ *     it has the lower AICc and the nested test rejects that model at p < 0.05. Otherwise the best
+ *     three-parameter model stands.
+ *  3. Rivals: a three-parameter model other than the winner whose AICc is within 4 of the winner's
+ *     keeps substantial support (Burnham & Anderson 2002, sec. 2.6: a difference of 4-7 means
+ *     considerably less support, 0-2 substantial support for both). Any rival makes the outcome
+ *     `undecided`, with the rivals named and the experiment that would separate them.
+ *  4. A mixed winner is described by its alpha interval: entirely above 1, "mixed, leaning
+ *     competitive"; entirely below 1, "mixed, leaning uncompetitive"; containing 1 cannot happen
+ *     consistently with a rejected noncompetitive model, and is then reported as undecided.
+ *  5. Anything that undermines the fit itself (no convergence, systematic residuals, design
+ *     shortfalls that bear on the distinction, a clearly better error model) is passed in as a
+ *     `Caveat`; a caveat marked `blocking` turns a decisive outcome into `undecided`.
+ * `decisive` is true only for the outcomes `decisive` and `mixed-lean`.
+ */
+import type { Mechanism } from '../models/types.js';
+import type { NestedComparison } from './nested-comparisons.js';
+
+export type VerdictOutcome = 'decisive' | 'mixed-lean' | 'undecided' | 'no-inhibition';
+
+export interface RankedModelEvidence {
+  mechanism: Mechanism;
+  aicc: number;
+  weight: number;
+  converged: boolean;
+}
+
+export interface Caveat {
+  code: string;
+  message: string;
+  /** true when the caveat forbids a decisive call */
+  blocking: boolean;
+  /** experiment or action that would remove it */
+  suggestion?: string;
+}
+
+export interface VerdictInput {
+  models: readonly RankedModelEvidence[];
+  nested: readonly NestedComparison[];
+  /** interval for alpha of the mixed model (profile if available, else Wald); null if undefined */
+  alphaInterval: [number | null, number | null] | null;
+  caveats?: readonly Caveat[];
+  /** significance level of the nested tests; default 0.05 (common practice) */
+  testLevel?: number;
+  /** AICc difference below which a rival keeps substantial support; default 4 */
+  rivalDelta?: number;
+}
+
+export interface Verdict {
+  outcome: VerdictOutcome;
+  /** the best-supported mechanism (null only when nothing converged) */
+  mechanism: Mechanism | null;
+  /** for mixed-lean: which pure mechanism it leans to */
+  lean?: 'competitive' | 'uncompetitive';
+  decisive: boolean;
+  /** mechanisms that remain plausible (the winner first) */
+  candidates: Mechanism[];
+  /** one plain sentence */
+  headline: string;
+  reasons: string[];
+  /** experiments or checks that would settle what is open */
+  suggestions: string[];
+}
+
+const THREE_PARAM: Mechanism[] = ['competitive', 'uncompetitive', 'noncompetitive'];
+
+const SEPARATING_EXPERIMENT: Record<string, string> = {
+  'competitive|noncompetitive':
+    'add substrate concentrations well above Km (up to 10 x Km): only there does a competitive inhibitor lose its effect',
+  'competitive|uncompetitive':
+    'cover substrate from about 0.2 x Km to 10 x Km: competitive inhibition fades at high [S], uncompetitive grows',
+  'noncompetitive|uncompetitive':
+    'add substrate concentrations below Km (down to about 0.2 x Km): only a noncompetitive inhibitor acts there too',
+  'competitive|mixed': 'add substrate concentrations above 5 x Km to measure the effect on the enzyme-substrate complex',
+  'mixed|uncompetitive': 'add substrate concentrations below Km to measure the effect on free enzyme',
+  'mixed|noncompetitive': 'replicate the grid and extend [I] to several times Ki to pin down alpha',
+};
+
+function pairKey(a: Mechanism, b: Mechanism): string {
+  return [a, b].sort().join('|');
+}
+
+function fmtP(p: number): string {
+  if (!Number.isFinite(p)) return 'not available';
+  return p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`;
+}
+
+function fmtD(d: number): string {
+  return d.toFixed(1);
+}
+
+export function decideVerdict(input: VerdictInput): Verdict {
+  const level = input.testLevel ?? 0.05;
+  const rivalDelta = input.rivalDelta ?? 4;
+  const caveats = input.caveats ?? [];
+  const by = new Map(input.models.map((m) => [m.mechanism, m]));
+  const test = (a: Mechanism, b: Mechanism) => input.nested.find((c) => c.simpler === a && c.fuller === b);
+  const reasons: string[] = [];
+  const suggestions: string[] = [];
+  const usable = input.models.filter((m) => m.converged && Number.isFinite(m.aicc));
+  if (usable.length === 0) {
+    return {
+      outcome: 'undecided',
+      mechanism: null,
+      decisive: false,
+      candidates: [],
+      headline: 'No model could be fitted to these data.',
+      reasons: ['none of the five fits converged'],
+      suggestions: ['check the rates and concentrations for unit or transcription errors'],
+    };
+  }
+  const bestOverall = [...usable].sort((a, b) => a.aicc - b.aicc)[0];
+
+  // 1. Is inhibition detected at all?
+  const none = by.get('none');
+  const inhibitionTests = input.nested.filter((c) => c.simpler === 'none');
+  const strongest = inhibitionTests.reduce<NestedComparison | undefined>((acc, c) => (!acc || c.p < acc.p ? c : acc), undefined);
+  if (bestOverall.mechanism === 'none' || (strongest && !(strongest.p < level))) {
+    reasons.push(
+      bestOverall.mechanism === 'none'
+        ? 'the model without inhibition has the lowest AICc'
+        : `no inhibited model improves significantly on the model without inhibition (best: ${strongest!.fuller}, ${fmtP(strongest!.p)})`,
+    );
+    suggestions.push('test higher inhibitor concentrations (several times the expected Ki or the IC50)');
+    addCaveats(caveats, reasons, suggestions, false);
+    return {
+      outcome: 'no-inhibition',
+      mechanism: 'none',
+      decisive: false,
+      candidates: ['none'],
+      headline: 'No inhibition detected in the tested inhibitor range.',
+      reasons,
+      suggestions,
+    };
+  }
+
+  // 2. Best three-parameter model, then mixed only if it earns its extra constant.
+  const three = usable.filter((m) => THREE_PARAM.includes(m.mechanism)).sort((a, b) => a.aicc - b.aicc);
+  const mixedFit = usable.find((m) => m.mechanism === 'mixed');
+  let winner: RankedModelEvidence;
+  if (three.length === 0) {
+    winner = mixedFit ?? bestOverall;
+  } else {
+    const best3 = three[0];
+    const vsMixed = test(best3.mechanism, 'mixed');
+    if (mixedFit && vsMixed && mixedFit.aicc < best3.aicc && vsMixed.p < level) {
+      winner = mixedFit;
+      reasons.push(
+        `mixed improves on the best three-parameter model, ${best3.mechanism} (${fmtP(vsMixed.p)}, AICc lower by ${fmtD(best3.aicc - mixedFit.aicc)})`,
+      );
+    } else {
+      winner = best3;
+      if (mixedFit && vsMixed)
+        reasons.push(`the extra constant of mixed is not supported against ${best3.mechanism} (${fmtP(vsMixed.p)})`);
+    }
+  }
+
+  // 3. Rivals among the three-parameter models (non-nested alternatives).
+  const rivals =
+    winner.mechanism === 'mixed'
+      ? []
+      : three.filter((m) => m.mechanism !== winner.mechanism && m.aicc - winner.aicc < rivalDelta);
+  for (const m of three) {
+    if (m.mechanism === winner.mechanism) continue;
+    reasons.push(`${m.mechanism}: AICc ${fmtD(m.aicc - winner.aicc)} above ${winner.mechanism}${m.aicc - winner.aicc < rivalDelta ? ' (still substantially supported)' : ''}`);
+  }
+
+  let outcome: VerdictOutcome = 'decisive';
+  let lean: 'competitive' | 'uncompetitive' | undefined;
+  const candidates: Mechanism[] = [winner.mechanism, ...rivals.map((r) => r.mechanism)];
+  if (rivals.length > 0) {
+    outcome = 'undecided';
+    for (const r of rivals) {
+      const hint = SEPARATING_EXPERIMENT[pairKey(winner.mechanism, r.mechanism)];
+      if (hint && !suggestions.includes(hint)) suggestions.push(hint);
+    }
+  }
+
+  // 4. Mixed: read the lean off alpha.
+  if (winner.mechanism === 'mixed') {
+    const [lo, hi] = input.alphaInterval ?? [null, null];
+    if (lo !== null && lo > 1) {
+      outcome = 'mixed-lean';
+      lean = 'competitive';
+      reasons.push(`the interval for alpha lies above 1 (from ${lo.toPrecision(3)}): the inhibitor prefers free enzyme`);
+    } else if (hi !== null && hi < 1) {
+      outcome = 'mixed-lean';
+      lean = 'uncompetitive';
+      reasons.push(`the interval for alpha lies below 1 (up to ${hi.toPrecision(3)}): the inhibitor prefers the enzyme-substrate complex`);
+    } else {
+      outcome = 'undecided';
+      candidates.push('noncompetitive');
+      reasons.push('the interval for alpha includes 1, so pure noncompetitive inhibition is not excluded');
+      suggestions.push(SEPARATING_EXPERIMENT['mixed|noncompetitive']);
+    }
+  }
+
+  if (!winner.converged) {
+    outcome = 'undecided';
+    reasons.push(`the ${winner.mechanism} fit did not converge`);
+  }
+  const detection = test('none', winner.mechanism);
+  if (none && detection) reasons.unshift(`inhibition is detected: ${winner.mechanism} improves on no inhibition (${fmtP(detection.p)})`);
+  const blocked = addCaveats(caveats, reasons, suggestions, true);
+  if (blocked && (outcome === 'decisive' || outcome === 'mixed-lean')) outcome = 'undecided';
+
+  const decisive = outcome === 'decisive' || outcome === 'mixed-lean';
+  return {
+    outcome,
+    mechanism: winner.mechanism,
+    ...(lean ? { lean } : {}),
+    decisive,
+    candidates: [...new Set(candidates)],
+    headline: headline(outcome, winner.mechanism, lean, candidates),
+    reasons,
+    suggestions,
+  };
+}
+
+function addCaveats(caveats: readonly Caveat[], reasons: string[], suggestions: string[], canBlock: boolean): boolean {
+  let blocked = false;
+  for (const c of caveats) {
+    reasons.push(c.message);
+    if (c.suggestion && !suggestions.includes(c.suggestion)) suggestions.push(c.suggestion);
+    if (c.blocking && canBlock) blocked = true;
+  }
+  return blocked;
+}
+
+function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | undefined, candidates: Mechanism[]): string {
+  switch (outcome) {
+    case 'decisive':
+      return `The data support ${winner} inhibition.`;
+    case 'mixed-lean':
+      return `The data support mixed inhibition, leaning ${lean}.`;
+    case 'no-inhibition':
+      return 'No inhibition detected in the tested inhibitor range.';
+    case 'undecided': {
+      const list = [...new Set(candidates)];
+      return list.length > 1
+        ? `Not decided between ${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}; ${winner} ranks first.`
+        : `${winner} ranks first, but the call is not firm (see reasons).`;
+    }
+  }
+}

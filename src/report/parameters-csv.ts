@@ -1,0 +1,24 @@
+/** parameters.csv: one row per model and parameter, for spreadsheets. */
+import type { AnalysisResult } from '../analysis/types.js';
+
+function cell(x: number | string | null | undefined): string {
+  if (x === null || x === undefined) return '';
+  if (typeof x === 'number') return Number.isFinite(x) ? String(x) : '';
+  return /[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x;
+}
+
+export function parametersCsv(result: AnalysisResult): string {
+  const pct = Math.round(result.level * 100);
+  const header = ['mechanism', 'rank', 'aicc_weight', 'parameter', 'value', 'se', `wald${pct}_low`, `wald${pct}_high`, 'detected', 'note'];
+  const rows = [header.join(',')];
+  result.models.forEach((m, rank) => {
+    for (const e of m.estimates) {
+      rows.push(
+        [m.mechanism, rank + 1, m.weight, e.name, e.value, e.se, e.wald?.[0], e.wald?.[1], e.detected ? 'yes' : 'no', e.note ?? '']
+          .map(cell)
+          .join(','),
+      );
+    }
+  });
+  return rows.join('\n') + '\n';
+}

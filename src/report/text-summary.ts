@@ -1,0 +1,73 @@
+/** The plain-text summary printed by `mechanist analyze` (without --json). */
+import type { AnalysisResult, ModelResult } from '../analysis/types.js';
+import { interval, sig } from './format-number.js';
+
+function pad(s: string, w: number): string {
+  return s.length >= w ? s : s + ' '.repeat(w - s.length);
+}
+function padLeft(s: string, w: number): string {
+  return s.length >= w ? s : ' '.repeat(w - s.length) + s;
+}
+
+function unitOf(name: string, result: AnalysisResult): string {
+  const u = result.input.units;
+  if (name === 'Km') return u.substrate ?? '';
+  if (name === 'Ki' || name === 'Kiu') return u.inhibitor ?? '';
+  if (name === 'Vmax') return u.rate ?? '';
+  return '';
+}
+
+export function modelTable(models: readonly ModelResult[]): string[] {
+  const head = `  ${pad('rank', 5)}${pad('mechanism', 16)}${padLeft('AICc', 11)}${padLeft('ΔAICc', 9)}${padLeft('weight', 9)}${padLeft('SSE', 12)}  converged`;
+  const rows = models.map(
+    (m, r) =>
+      `  ${pad(String(r + 1), 5)}${pad(m.mechanism, 16)}${padLeft(sig(m.aicc, 6), 11)}${padLeft(m.deltaAicc.toFixed(2), 9)}${padLeft(m.weight.toFixed(3), 9)}${padLeft(sig(m.sse, 5), 12)}  ${m.converged ? 'yes' : 'NO: ' + m.message}`,
+  );
+  return [head, ...rows];
+}
+
+export function parameterLines(model: ModelResult, result: AnalysisResult): string[] {
+  const pct = `${Math.round(result.level * 100)}%`;
+  return model.estimates.map((e) => {
+    const unit = unitOf(e.name, result);
+    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${e.note ?? 'not determined'}`;
+    const wald = e.wald ? `Wald ${pct} ${interval(e.wald[0], e.wald[1])}` : 'no interval';
+    return `  ${pad(e.name, 6)}${padLeft(sig(e.value), 10)} ${pad(unit, 6)} SE ${pad(sig(e.se, 3), 9)} ${wald}`;
+  });
+}
+
+export function textSummary(result: AnalysisResult): string {
+  const inp = result.input;
+  const v = result.verdict;
+  const best = result.models.find((m) => m.mechanism === v.mechanism) ?? result.models[0];
+  const lines: string[] = [];
+  lines.push(
+    `${inp.source}${inp.compound !== undefined ? ` [compound ${inp.compound}]` : ''}: ${inp.rowsUsed} of ${inp.rowsRead} rows used, error model ${result.errorModel}`,
+  );
+  lines.push('');
+  lines.push(`Verdict: ${v.headline} (${v.decisive ? 'decisive' : 'not decisive'})`);
+  for (const r of v.reasons) lines.push(`  - ${r}`);
+  if (v.suggestions.length) {
+    lines.push('  To settle it:');
+    for (const s of v.suggestions) lines.push(`  * ${s}`);
+  }
+  lines.push('');
+  lines.push('Models, ranked by AICc:');
+  lines.push(...modelTable(result.models));
+  lines.push('');
+  lines.push(`Parameters of ${best.mechanism} (global fit):`);
+  lines.push(...parameterLines(best, result));
+  if (inp.excluded.length) {
+    lines.push('');
+    lines.push(`Excluded rows (${inp.excluded.length}):`);
+    for (const x of inp.excluded) lines.push(`  line ${x.line}: ${x.reason}`);
+  }
+  if (inp.warnings.length) {
+    lines.push('');
+    lines.push('Warnings:');
+    for (const w of inp.warnings) lines.push(`  ! ${w.message}`);
+  }
+  lines.push('');
+  lines.push('Research use only: check the model assumptions (initial rates, reversible binding, [E] well below Ki).');
+  return lines.join('\n') + '\n';
+}
