@@ -81,9 +81,13 @@ function planColumns(header: TextRow, dataRows: TextRow[], context: LayoutContex
     const names = header.cells.map((c) => c.trim()).filter((c) => c !== '');
     const listed = names.length === 0 ? 'no names' : names.slice(0, 8).map(quoteText).join(', ') + (names.length > 8 ? ', ...' : '');
     const looksLikeData = readNumberCell(header.cells[0] ?? '', context.decimalMark).kind === 'number';
+    const first = (header.cells[0] ?? '').toLowerCase();
+    const triedMatrix = first.includes('substrate') && first.includes('inhibitor');
     const hint = looksLikeData
       ? 'the first line looks like data; add a header line naming substrate, inhibitor and rate'
-      : `name a column ${quoteText(required)}`;
+      : triedMatrix
+        ? 'for the matrix layout, write the corner cell with a backslash: "substrate (uM) \\ inhibitor (nM)"'
+        : `name a column ${quoteText(required)}`;
     throw new InputError(
       `${locate(source, { line: header.line })}missing required column ${quoteText(required)} (the header has ${listed}); ${hint}`,
       source, header.line,

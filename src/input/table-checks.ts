@@ -43,10 +43,10 @@ export function checkUsableDesign(
   if (inhibitorLevels.length < 2) {
     const only = formatConcentration(inhibitorLevels[0], unit);
     const what = inhibitorLevels[0] === 0
-      ? `only the inhibitor-free control ([I] = 0) among the usable points; a mechanism analysis needs at least one non-zero [I] as well`
-      : `only one inhibitor level ([I] = ${only}) and no inhibitor-free control among the usable points; a mechanism analysis needs [I] = 0 and at least one non-zero [I]`;
+      ? 'only the inhibitor-free control ([I] = 0) among the usable points; a mechanism analysis needs at least one non-zero [I] too; add rates measured with inhibitor'
+      : `only one inhibitor level ([I] = ${only}) and no inhibitor-free control among the usable points; a mechanism analysis needs [I] = 0 and at least one non-zero [I]; add the missing levels`;
     throw new InputError(
-      `${locate(source, anchors.inhibitor)}${compoundPrefix(table)}${what}; add them (or turn off the mechanism-design check)`,
+      `${locate(source, anchors.inhibitor)}${compoundPrefix(table)}${what} (or turn off the mechanism-design check)`,
       source, anchors.inhibitor.line, anchors.inhibitor.column,
     );
   }
