@@ -17,7 +17,8 @@
 import type { Mechanism } from '../models/types.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { weightsDependOnFit } from '../fit/error-models.js';
-import { chisqSurvival, fSurvival } from '../stats/distributions.js';
+import { extraSumOfSquaresTest } from '../stats/extra-sum-of-squares-test.js';
+import { likelihoodRatioTest } from '../stats/likelihood-ratio-test.js';
 
 export interface NestedComparison {
   simpler: Mechanism;
@@ -47,24 +48,24 @@ const PAIRS: Array<[Mechanism, Mechanism]> = [
 
 export function compareNested(simpler: MechanismFit, fuller: MechanismFit): NestedComparison {
   const extra = fuller.p - simpler.p;
-  const dfDen = fuller.df;
-  const gain = Math.max(0, simpler.sse - fuller.sse);
-  const f = dfDen > 0 && fuller.sse > 0 ? gain / extra / (fuller.sse / dfDen) : NaN;
-  const fP = Number.isFinite(f) ? fSurvival(f, extra, dfDen) : NaN;
-  const lr = Math.max(0, 2 * (fuller.logLik - simpler.logLik));
-  const lrP = chisqSurvival(lr, extra);
+  const usable = fuller.df > 0 && fuller.sse > 0 && Number.isFinite(simpler.sse);
+  const f = usable
+    ? extraSumOfSquaresTest({ sseReduced: simpler.sse, dfReduced: simpler.df, sseFull: fuller.sse, dfFull: fuller.df })
+    : null;
+  const lr = likelihoodRatioTest({ logLikReduced: simpler.logLik, logLikFull: fuller.logLik, dfDifference: extra });
   const primary = weightsDependOnFit(fuller.errorModel) ? 'LR' : 'F';
+  const fP = f ? f.p : NaN;
   return {
     simpler: simpler.mechanism,
     fuller: fuller.mechanism,
     extraParams: extra,
-    f,
-    fDf: [extra, dfDen],
+    f: f ? Math.max(0, f.F) : NaN,
+    fDf: [extra, fuller.df],
     fP,
-    lr,
-    lrP,
+    lr: Math.max(0, lr.statistic),
+    lrP: lr.p,
     primary,
-    p: primary === 'F' ? fP : lrP,
+    p: primary === 'F' ? fP : lr.p,
   };
 }
 

@@ -1,0 +1,28 @@
+/**
+ * mechanist as a library: read a rate table, analyse it, and render the results.
+ * The command line (src/cli/) is a thin layer over these exports.
+ *
+ *   import { readRateFile, analyze } from 'mechanist';
+ *   const [table] = await readRateFile('rates.csv');
+ *   const result = analyze(table, { errorModel: 'proportional' });
+ *   console.log(result.verdict.headline);
+ */
+export { analyzeTable as analyze, analyzeTable, AnalysisError, type AnalysisOptions } from './analysis/analyze-table.js';
+export type * from './analysis/types.js';
+export * from './input/index.js';
+export { MECHANISMS, modelFor } from './models/index.js';
+export type { Mechanism, MechanismModel, ParamName, KineticData } from './models/types.js';
+export { fitMechanism, type MechanismFit, type FitOptions } from './fit/fit-mechanism.js';
+export { fitAllMechanisms } from './fit/fit-all-mechanisms.js';
+export { fitDataFromArrays, fitDataFromTable, type FitData } from './fit/fit-data.js';
+export { ERROR_MODELS, type ErrorModel } from './fit/error-models.js';
+export { levenbergMarquardt } from './fit/levenberg-marquardt.js';
+export type * from './fit/least-squares-problem.js';
+export type { ParameterEstimate, EstimateName } from './evidence/wald-estimates.js';
+export type { NestedComparison } from './evidence/nested-comparisons.js';
+export type { Verdict, VerdictOutcome } from './evidence/verdict.js';
+export { simulateRates, ratesToCsv, trueRate, type SimulationDesign, type NoiseModel } from './simulate/simulate-rates.js';
+export { seededRandom, type RandomSource } from './simulate/random.js';
+export { analysisJson } from './report/results-json.js';
+export { textSummary } from './report/text-summary.js';
+export { TOOL_NAME, TOOL_VERSION } from './version.js';
