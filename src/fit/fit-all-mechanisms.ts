@@ -9,7 +9,7 @@ import { MECHANISMS } from '../models/index.js';
 import type { Mechanism, MechanismModel } from '../models/types.js';
 import type { ErrorModel } from './error-models.js';
 import type { FitData } from './fit-data.js';
-import { fitMechanism, type MechanismFit } from './fit-mechanism.js';
+import { fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
 
 /** A constant far above the tested inhibitor range, used to start an arm "switched off". */
 function farConstant(data: FitData): number {
@@ -36,10 +36,15 @@ function warmStarts(model: MechanismModel, done: Map<Mechanism, MechanismFit>, d
 }
 
 /** Fits all registered mechanisms; results in registry order (simplest first). */
-export function fitAllMechanisms(data: FitData, errorModel: ErrorModel, models: readonly MechanismModel[] = MECHANISMS): MechanismFit[] {
+export function fitAllMechanisms(
+  data: FitData,
+  errorModel: ErrorModel,
+  models: readonly MechanismModel[] = MECHANISMS,
+  options: Pick<FitOptions, 'weightMultipliers'> = {},
+): MechanismFit[] {
   const done = new Map<Mechanism, MechanismFit>();
   for (const model of models) {
-    const fit = fitMechanism(model, data, errorModel, { extraStarts: warmStarts(model, done, data) });
+    const fit = fitMechanism(model, data, errorModel, { ...options, extraStarts: warmStarts(model, done, data) });
     done.set(model.mechanism, fit);
   }
   return models.map((m) => done.get(m.mechanism)!);

@@ -52,6 +52,11 @@ export interface FitOptions {
   extraStarts?: number[][];
   /** maximum reweighting passes for fit-dependent weights; default 60 */
   maxReweightPasses?: number;
+  /**
+   * fixed multipliers of the error-model weights, one per point (robust refits: bounded-influence
+   * weights in (0, 1]); the log-likelihood then includes their logarithms like any other weight
+   */
+  weightMultipliers?: Float64Array;
 }
 
 /** Largest |ln p - ln scale| allowed; beyond it a step is treated as outside the domain. */
@@ -140,6 +145,8 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
   const sqrtW = new Float64Array(n);
   const setWeights = (basis: ArrayLike<number>) => {
     computeWeights(errorModel, basis, data.sd, weights);
+    const extra = options.weightMultipliers;
+    if (extra) for (let k = 0; k < n; k++) weights[k] *= extra[k];
     for (let k = 0; k < n; k++) sqrtW[k] = Math.sqrt(weights[k]);
   };
   setWeights(observedBasis(data.v));

@@ -1,0 +1,93 @@
+/**
+ * Each inhibitor series fitted alone to the Michaelis-Menten equation: apparent Vmax and Km per
+ * [I]. These are diagnostics (the input of the slope and intercept replots and a consistency
+ * check of the global model), never the reported constants.
+ *
+ * Expected apparent constants under the global model (Segel 1975, ch. 3; Cornish-Bowden 2012, ch. 6):
+ *   Vmax_app = Vmax / (1 + I/Kiu),   Km_app = Km (1 + I/Ki) / (1 + I/Kiu)
+ * with 1/Ki = 0 for uncompetitive and 1/Kiu = 0 for competitive (Ki = Kiu for noncompetitive).
+ */
+import { noInhibition } from '../models/no-inhibition.js';
+import type { MechanismFit } from '../fit/fit-mechanism.js';
+import { fitMechanism } from '../fit/fit-mechanism.js';
+import type { ErrorModel } from '../fit/error-models.js';
+import type { FitData } from '../fit/fit-data.js';
+import type { SeriesFit } from '../analysis/types.js';
+import { waldEstimates } from './wald-estimates.js';
+
+function subset(data: FitData, keep: (k: number) => boolean): FitData {
+  const idx: number[] = [];
+  for (let k = 0; k < data.v.length; k++) if (keep(k)) idx.push(k);
+  const pick = (a: Float64Array) => Float64Array.from(idx, (k) => a[k]);
+  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
+}
+
+/** Michaelis-Menten fit of each [I] series with at least 3 distinct [S] levels. */
+export function seriesFits(data: FitData, errorModel: ErrorModel): SeriesFit[] {
+  const levels = [...new Set(data.i)].sort((a, b) => a - b);
+  const out: SeriesFit[] = [];
+  for (const level of levels) {
+    const series = subset(data, (k) => data.i[k] === level);
+    if (new Set(series.s).size < 3) continue;
+    const fit = fitMechanism(noInhibition, series, errorModel);
+    const est = waldEstimates(fit, 0).estimates;
+    out.push({
+      inhibitor: level,
+      n: fit.n,
+      converged: fit.converged,
+      Vmax: fit.params[0],
+      Km: fit.params[1],
+      seVmax: est[0].se,
+      seKm: est[1].se,
+    });
+  }
+  return out;
+}
+
+/** Apparent (Vmax, Km) at inhibitor level I implied by a global fit. */
+export function apparentConstants(fit: MechanismFit, inhibitor: number): { Vmax: number; Km: number } {
+  const names = fit.model.params;
+  const value = (name: string) => {
+    const j = names.indexOf(name as never);
+    return j >= 0 ? fit.params[j] : Infinity;
+  };
+  const vmax = value('Vmax');
+  const km = value('Km');
+  let ki = value('Ki');
+  let kiu = value('Kiu');
+  if (fit.mechanism === 'noncompetitive') kiu = ki;
+  if (fit.mechanism === 'none') ki = kiu = Infinity;
+  const free = 1 + inhibitor / ki;
+  const bound = 1 + inhibitor / kiu;
+  return { Vmax: vmax / bound, Km: (km * free) / bound };
+}
+
+export interface SeriesDisagreement {
+  inhibitor: number;
+  quantity: 'Vmax' | 'Km';
+  separate: number;
+  global: number;
+  z: number;
+}
+
+/**
+ * Where the per-series estimates differ from the global model's apparent constants by more than
+ * `zLimit` standard errors of the per-series estimate (default 3; common practice).
+ */
+export function seriesDisagreements(fit: MechanismFit, series: readonly SeriesFit[], zLimit = 3): SeriesDisagreement[] {
+  const out: SeriesDisagreement[] = [];
+  for (const sf of series) {
+    if (!sf.converged) continue;
+    const g = apparentConstants(fit, sf.inhibitor);
+    const checks: Array<['Vmax' | 'Km', number, number | null, number]> = [
+      ['Vmax', sf.Vmax, sf.seVmax, g.Vmax],
+      ['Km', sf.Km, sf.seKm, g.Km],
+    ];
+    for (const [quantity, separate, se, global] of checks) {
+      if (se === null || !(se > 0)) continue;
+      const z = (separate - global) / se;
+      if (Math.abs(z) > zLimit) out.push({ inhibitor: sf.inhibitor, quantity, separate, global, z });
+    }
+  }
+  return out;
+}
