@@ -91,7 +91,8 @@ export function householderQrPivoted(
     let ajnorm = euclideanNorm(a, cj + j, rows - j);
     if (ajnorm !== 0) {
       if (a[cj + j] < 0) ajnorm = -ajnorm;
-      for (let i = j; i < rows; i++) a[cj + i] /= ajnorm;
+      const inverse = 1 / ajnorm;
+      for (let i = cj + j; i < cj + rows; i++) a[i] *= inverse;
       a[cj + j] += 1;
       const vjj = a[cj + j];
       // Apply it to the remaining columns and downdate their norms.
