@@ -9,7 +9,11 @@ import { readCornerCell, readTitleRow } from './matrix-layout.js';
  * or is a compound title row followed by one; long otherwise.
  */
 export function detectLayout(rows: TextRow[]): 'long' | 'matrix' {
-  const filled = rows.filter((row) => !isBlankRow(row)).slice(0, 2);
+  const filled: TextRow[] = [];
+  for (const row of rows) {
+    if (!isBlankRow(row)) filled.push(row);
+    if (filled.length === 2) break;
+  }
   const [first, second] = filled;
   if (!first) return 'long';
   if (readCornerCell(first.cells[0] ?? '') !== null) return 'matrix';

@@ -4,7 +4,7 @@
  */
 import { InputError, type ConcentrationUnit, type Exclusion, type RatePoint } from './types.js';
 import { locate, quoteText, type Place } from './messages.js';
-import { readNumberCell } from './numbers.js';
+import { readNumberCell, type CellProblem } from './numbers.js';
 
 export interface CompoundRows {
   compound?: string;
@@ -27,51 +27,42 @@ export interface LayoutContext {
   decimalMark: '.' | ',';
 }
 
-/** A concentration cell: a number >= 0, or the reason it cannot be used. */
-export type ConcentrationCell = { ok: true; value: number } | { ok: false; reason: string };
-
 /**
- * Reads a substrate or inhibitor cell. A negative value is an error (a concentration cannot be
- * below zero, so the file is wrong rather than the point unusual); blank, text and infinite
- * values come back as reasons for an exclusion.
+ * Reads a substrate or inhibitor cell: a number >= 0, or (as a string) the reason it cannot be
+ * used. A negative value is an error (a concentration cannot be below zero, so the file is wrong
+ * rather than the point unusual); blank, text and infinite values are reasons for an exclusion.
  */
 export function readConcentrationCell(
   cell: string,
   what: 'substrate' | 'inhibitor',
   place: Place,
   context: LayoutContext,
-): ConcentrationCell {
+): number | string {
   const read = readNumberCell(cell, context.decimalMark);
-  switch (read.kind) {
-    case 'blank':
-      return { ok: false, reason: `${what} is blank` };
-    case 'infinite':
-      return { ok: false, reason: `${what} is infinite (${quoteText(cell.trim())})` };
-    case 'text':
-      return { ok: false, reason: `${what} ${quoteText(read.text)} is not a number${decimalHint(read.text, context)}` };
-    case 'number':
-      if (read.value < 0) {
-        throw new InputError(
-          `${locate(context.source, place)}negative ${what} concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
-          context.source, place.line, place.column,
-        );
-      }
-      return { ok: true, value: read.value };
+  if (typeof read !== 'number') return problemReason(read, cell, what, context);
+  if (read < 0) {
+    throw new InputError(
+      `${locate(context.source, place)}negative ${what} concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
+      context.source, place.line, place.column,
+    );
   }
+  return read;
 }
 
-/** A rate (or sd) cell: any finite number, or the reason it cannot be used. */
-export function readRateCell(cell: string, what: string, context: LayoutContext): ConcentrationCell {
+/** A rate (or sd) cell: any finite number, or (as a string) the reason it cannot be used. */
+export function readRateCell(cell: string, what: string, context: LayoutContext): number | string {
   const read = readNumberCell(cell, context.decimalMark);
-  switch (read.kind) {
+  return typeof read === 'number' ? read : problemReason(read, cell, what, context);
+}
+
+function problemReason(problem: CellProblem, cell: string, what: string, context: LayoutContext): string {
+  switch (problem.kind) {
     case 'blank':
-      return { ok: false, reason: `${what} is blank` };
+      return `${what} is blank`;
     case 'infinite':
-      return { ok: false, reason: `${what} is infinite (${quoteText(cell.trim())})` };
+      return `${what} is infinite (${quoteText(cell.trim())})`;
     case 'text':
-      return { ok: false, reason: `${what} ${quoteText(read.text)} is not a number${decimalHint(read.text, context)}` };
-    case 'number':
-      return { ok: true, value: read.value };
+      return `${what} ${quoteText(problem.text)} is not a number${decimalHint(problem.text, context)}`;
   }
 }
 

@@ -80,7 +80,7 @@ function planColumns(header: TextRow, dataRows: TextRow[], context: LayoutContex
     if (plan.known[required] !== undefined) continue;
     const names = header.cells.map((c) => c.trim()).filter((c) => c !== '');
     const listed = names.length === 0 ? 'no names' : names.slice(0, 8).map(quoteText).join(', ') + (names.length > 8 ? ', ...' : '');
-    const looksLikeData = readNumberCell(header.cells[0] ?? '', context.decimalMark).kind === 'number';
+    const looksLikeData = typeof readNumberCell(header.cells[0] ?? '', context.decimalMark) === 'number';
     const first = (header.cells[0] ?? '').toLowerCase();
     const triedMatrix = first.includes('substrate') && first.includes('inhibitor');
     const hint = looksLikeData
@@ -135,9 +135,9 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
       groups.set(compound, group);
     }
     group.rowsRead++;
-    const outcome = readLongRow(row, plan, context);
+    const outcome = readLongRow(row, plan, context, named ? compound : undefined);
     if ('reason' in outcome) group.excluded.push(outcome);
-    else group.points.push(named ? { ...outcome, compound } : outcome);
+    else group.points.push(outcome);
   }
 
   const headerPlace = (index: number): Place => ({ line: header.line, column: index + 1 });
@@ -150,7 +150,7 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
 }
 
 /** One data row: a point, or the exclusion that keeps it out (the first problem found). */
-function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext): RatePoint | Exclusion {
+function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, compound: string | undefined): RatePoint | Exclusion {
   const { source } = context;
   const col = plan.known;
   const cell = (index: number | undefined): string => (index === undefined ? '' : (row.cells[index] ?? ''));
@@ -179,18 +179,19 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext): Ra
       `row has ${row.cells.length} cells but the header has ${plan.width} columns (an unquoted separator inside a value?)`,
     );
   }
-  if (!substrate.ok) return exclusion(col.substrate!, substrate.reason);
-  if (!inhibitor.ok) return exclusion(col.inhibitor!, inhibitor.reason);
-  if (!rate.ok) return exclusion(col.rate!, rate.reason);
-  if (substrate.value === 0) return exclusion(col.substrate!, ZERO_SUBSTRATE_REASON);
+  if (typeof substrate === 'string') return exclusion(col.substrate!, substrate);
+  if (typeof inhibitor === 'string') return exclusion(col.inhibitor!, inhibitor);
+  if (typeof rate === 'string') return exclusion(col.rate!, rate);
+  if (substrate === 0) return exclusion(col.substrate!, ZERO_SUBSTRATE_REASON);
 
-  const point: RatePoint = { line: row.line, substrate: substrate.value, inhibitor: inhibitor.value, rate: rate.value };
+  const point: RatePoint = { line: row.line, substrate, inhibitor, rate };
   if (col.sd !== undefined && cell(col.sd).trim() !== '') {
     const sd = readRateCell(cell(col.sd), 'sd', context);
-    if (!sd.ok) return exclusion(col.sd, sd.reason);
-    if (sd.value <= 0) return exclusion(col.sd, `sd ${quoteText(cell(col.sd).trim())} is not above zero; a standard deviation must be positive`);
-    point.sd = sd.value;
+    if (typeof sd === 'string') return exclusion(col.sd, sd);
+    if (sd <= 0) return exclusion(col.sd, `sd ${quoteText(cell(col.sd).trim())} is not above zero; a standard deviation must be positive`);
+    point.sd = sd;
   }
+  if (compound !== undefined) point.compound = compound;
   const replicate = cell(col.replicate).trim();
   if (replicate !== '') point.replicate = replicate;
   const well = cell(col.well).trim();

@@ -138,7 +138,7 @@ function inhibitorColumns(block: Block, context: LayoutContext): (number | null)
     const cell = block.header.cells[index] ?? '';
     const place: Place = { line: block.header.line, column: index + 1 };
     const read = readNumberCell(cell, context.decimalMark);
-    if (read.kind === 'blank') {
+    if (typeof read !== 'number' && read.kind === 'blank') {
       const used = block.data.find((row) => (row.cells[index] ?? '').trim() !== '');
       if (used) {
         const at = { line: used.line, column: index + 1 };
@@ -150,19 +150,19 @@ function inhibitorColumns(block: Block, context: LayoutContext): (number | null)
       values.push(null);
       continue;
     }
-    if (read.kind !== 'number') {
+    if (typeof read !== 'number') {
       throw new InputError(
         `${locate(source, place)}inhibitor value ${quoteText(cell.trim())} in the block header is not a finite number; the header row holds the [I] of each column after the corner cell`,
         source, place.line, place.column,
       );
     }
-    if (read.value < 0) {
+    if (read < 0) {
       throw new InputError(
         `${locate(source, place)}negative inhibitor concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
         source, place.line, place.column,
       );
     }
-    values.push(read.value);
+    values.push(read);
   }
   // trailing unused columns are not part of the block
   while (values.length > 0 && values[values.length - 1] === null) values.pop();
@@ -219,23 +219,23 @@ export function readMatrixLayout(rows: TextRow[], context: LayoutContext): Layou
         if (inhibitor === null) return; // an unnamed column with no data anywhere
         const column = offset + 2;
         group!.rowsRead++;
-        if (!substrate.ok) {
-          group!.excluded.push({ line: row.line, column, reason: `${substrate.reason} (column 1)` });
+        if (typeof substrate === 'string') {
+          group!.excluded.push({ line: row.line, column, reason: `${substrate} (column 1)` });
           return;
         }
-        const pairKey = `${substrate.value}|${inhibitor}`;
+        const pairKey = `${substrate}|${inhibitor}`;
         const replicate = (counts.get(pairKey) ?? 0) + 1;
         counts.set(pairKey, replicate);
-        if (substrate.value === 0) {
+        if (substrate === 0) {
           group!.excluded.push({ line: row.line, column, reason: ZERO_SUBSTRATE_REASON });
           return;
         }
         const rate = readRateCell(row.cells[offset + 1] ?? '', 'rate', context);
-        if (!rate.ok) {
-          group!.excluded.push({ line: row.line, column, reason: rate.reason });
+        if (typeof rate === 'string') {
+          group!.excluded.push({ line: row.line, column, reason: rate });
           return;
         }
-        const point = { line: row.line, substrate: substrate.value, inhibitor, rate: rate.value, replicate: String(replicate) };
+        const point = { line: row.line, substrate, inhibitor, rate, replicate: String(replicate) };
         group!.points.push(block.title === undefined ? point : { ...point, compound: block.title });
       });
     }

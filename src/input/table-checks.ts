@@ -58,6 +58,21 @@ export function checkUsableDesign(
   }
 }
 
+/** True when some ([S], [I]) pair holds more than one rate. */
+function hasRepeatedPair(points: RateTable['points']): boolean {
+  const seen = new Map<number, Set<number>>();
+  for (const p of points) {
+    let inhibitors = seen.get(p.substrate);
+    if (!inhibitors) {
+      inhibitors = new Set();
+      seen.set(p.substrate, inhibitors);
+    }
+    if (inhibitors.has(p.inhibitor)) return true;
+    inhibitors.add(p.inhibitor);
+  }
+  return false;
+}
+
 /** More than this many decades between the smallest and largest non-zero level is suspicious. */
 export const WIDEST_PLAUSIBLE_DECADES = 8;
 /** Common practice (no single source): at least 5 [S] levels spanning the Km. */
@@ -80,9 +95,7 @@ export function dataWarnings(table: RateTable): InputWarning[] {
     });
   }
 
-  const perPair = new Map<string, number>();
-  for (const p of points) perPair.set(`${p.substrate}|${p.inhibitor}`, (perPair.get(`${p.substrate}|${p.inhibitor}`) ?? 0) + 1);
-  if ([...perPair.values()].every((count) => count === 1)) {
+  if (!hasRepeatedPair(points)) {
     warnings.push({
       code: 'single-replicate',
       message: 'every ([S], [I]) pair has a single rate; replicates let the error model and the lack of fit be checked, so measure at least in duplicate',
