@@ -26,3 +26,18 @@ export { seededRandom, type RandomSource } from './simulate/random.js';
 export { analysisJson } from './report/results-json.js';
 export { textSummary } from './report/text-summary.js';
 export { TOOL_NAME, TOOL_VERSION } from './version.js';
+export {
+  runBatch,
+  summarizeAnalysis,
+  failedSummary,
+  summaryCsv,
+  summaryJson,
+  summaryColumns,
+  indexPage,
+  type BatchOptions,
+  type BatchResult,
+  type BatchSettings,
+  type CompoundSummary,
+  type ConstantSummary,
+  type IntervalKind,
+} from './batch/index.js';

@@ -11,6 +11,7 @@ import type { CliIo } from './io.js';
 import { analyzeCommand } from './commands/analyze.js';
 import { simulateCommand } from './commands/simulate.js';
 import { demoCommand } from './commands/demo.js';
+import { batchCommand } from './commands/batch.js';
 
 /** Exit code chosen by a command that finished without throwing (batch uses it). */
 export interface CommandOutcome {
@@ -24,12 +25,11 @@ function buildProgram(io: CliIo, outcome: CommandOutcome): Command {
     .addHelpText('after', `\n${EXIT_CODE_HELP}\n\nResearch use only: results support, and do not replace, expert judgement.`)
     .showHelpAfterError(false)
     .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
-  for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io)]) {
+  for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io), batchCommand(io, outcome)]) {
     cmd.configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
     cmd.exitOverride();
     program.addCommand(cmd);
   }
-  void outcome;
   program.exitOverride();
   return program;
 }

@@ -1,0 +1,78 @@
+/**
+ * One compound of a batch: the same analysis as `mechanist analyze` (analyzeTable with the run's
+ * options), its report folder when asked for (writeResultFiles), and its summary row. Runs in a
+ * worker thread or in the calling thread; never throws for a bad compound, the row says why.
+ */
+import { join, relative, sep } from 'node:path';
+import { analyzeTable, AnalysisError, type AnalysisOptions } from '../analysis/analyze-table.js';
+import { modelFor } from '../models/index.js';
+import type { Mechanism } from '../models/types.js';
+import { writeResultFiles } from '../cli/write-results.js';
+import { failedSummary, summarizeAnalysis } from './summarize.js';
+import type { CompoundJob, CompoundSummary } from './types.js';
+
+/** Sub-folder of the output folder that holds one report folder per compound. */
+export const COMPOUNDS_FOLDER = 'compounds';
+
+/** Report files linked from the summary, in order of preference. */
+const REPORT_ENTRY_FILES = ['report.html', 'summary.txt', 'results.json'];
+
+/** Analysis options as plain data that can be posted to a worker thread (models by name). */
+export type PortableAnalysisOptions = Omit<AnalysisOptions, 'models'> & { mechanisms?: Mechanism[] };
+
+export interface CompoundSettings {
+  analysis: PortableAnalysisOptions;
+  /** output folder of the run when per-compound reports are wanted, else null */
+  reportRoot: string | null;
+}
+
+export function toPortableOptions(options: AnalysisOptions): PortableAnalysisOptions {
+  const { models, ...rest } = options;
+  return models ? { ...rest, mechanisms: models.map((m) => m.mechanism) } : rest;
+}
+
+export function fromPortableOptions(options: PortableAnalysisOptions): AnalysisOptions {
+  const { mechanisms, ...rest } = options;
+  return mechanisms ? { ...rest, models: mechanisms.map(modelFor) } : rest;
+}
+
+function oneLine(text: string): string {
+  return text.replace(/\s*\n\s*/g, ' ').trim();
+}
+
+function failureText(error: unknown): string {
+  if (error instanceof AnalysisError) return `analysis not completed: ${oneLine(error.message)}`;
+  const message = error instanceof Error ? error.message : String(error);
+  return `analysis not completed: ${oneLine(message)} (an unexpected internal error; please report it with the input file)`;
+}
+
+function reportLink(written: string[], root: string): string | null {
+  for (const name of REPORT_ENTRY_FILES) {
+    const path = written.find((p) => p.endsWith(`${sep}${name}`) || p.endsWith(`/${name}`));
+    if (path) return relative(root, path).split(sep).join('/');
+  }
+  return null;
+}
+
+/** Analyses one compound and returns its summary row (a failed row when anything goes wrong). */
+export function analyzeCompound(job: CompoundJob, settings: CompoundSettings): CompoundSummary {
+  const identity = { position: job.position, compound: job.compound, nameInFile: job.nameInFile, source: job.source };
+  if (job.table === null) return failedSummary(identity, job.readError ?? 'the file could not be read');
+  let result;
+  try {
+    result = analyzeTable(job.table, fromPortableOptions(settings.analysis));
+  } catch (error) {
+    return failedSummary(identity, failureText(error), job.table);
+  }
+  let report: string | null = null;
+  if (settings.reportRoot !== null) {
+    try {
+      const written = writeResultFiles(result, join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder));
+      report = reportLink(written, settings.reportRoot);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      return failedSummary(identity, `the report could not be written: ${oneLine(message)}`, job.table);
+    }
+  }
+  return summarizeAnalysis(result, identity, report);
+}

@@ -1,0 +1,108 @@
+/**
+ * A batch run: many input files (or folders, or multi-compound files) in, one analysis per
+ * compound, one summary out (summary.csv, summary.json, index.html at the top of the output
+ * folder), and per-compound report folders under compounds/ when asked for. The compounds run in
+ * parallel on worker threads; the rows come back in input order, so the outputs do not depend on
+ * the number of workers. Every file is written under a temporary name and then renamed
+ * (writeFileAtomic), so an interrupted run leaves no half-written file.
+ */
+import { availableParallelism } from 'node:os';
+import { join, resolve } from 'node:path';
+import type { AnalysisOptions } from '../analysis/analyze-table.js';
+import type { ParseOptions } from '../input/options.js';
+import { InputError } from '../input/types.js';
+import type { Json } from '../report/results-json.js';
+import { writeFileAtomic } from '../report/write-atomic.js';
+import { collectInputFiles } from './collect-inputs.js';
+import { planCompounds } from './plan-compounds.js';
+import { toPortableOptions } from './analyze-compound.js';
+import { runCompoundJobs } from './worker-pool.js';
+import { summaryCounts, summaryCsv, summaryJson, type BatchSettings } from './summary-files.js';
+import { indexPage } from './index-page.js';
+import type { CompoundSummary } from './types.js';
+
+/** Names of the files written at the top of the output folder. */
+export const SUMMARY_CSV = 'summary.csv';
+export const SUMMARY_JSON = 'summary.json';
+export const INDEX_PAGE = 'index.html';
+
+export interface BatchOptions {
+  /** output folder; nothing is written when it is not given */
+  out?: string;
+  /** write each compound's report folder under <out>/compounds/ (needs `out`) */
+  reports?: boolean;
+  /** worker threads; default os.availableParallelism(); 1 runs in the calling thread */
+  jobs?: number;
+  /** how to read the tables (as for readRateFile) */
+  parse?: ParseOptions;
+  /** how to analyse each compound (as for analyzeTable) */
+  analysis?: AnalysisOptions;
+  /** folder relative input and output paths are taken from; default process.cwd() */
+  cwd?: string;
+  /** called after each compound, in completion order */
+  onCompound?: (row: CompoundSummary, done: number, total: number) => void;
+  /** called once the compounds are known, before any is analysed */
+  onPlan?: (total: number) => void;
+}
+
+export interface BatchResult {
+  /** one row per compound, in input order */
+  rows: CompoundSummary[];
+  counts: { compounds: number; analysed: number; failed: number };
+  /** notes about the inputs (repeated files, folders without table files) */
+  notes: string[];
+  /** absolute paths of summary.csv, summary.json and index.html (empty without `out`) */
+  written: string[];
+  /** worker threads used (0 when every compound ran in the calling thread) */
+  threadsUsed: number;
+  settings: BatchSettings;
+}
+
+function batchSettings(options: BatchOptions): BatchSettings {
+  const analysis = JSON.parse(JSON.stringify(toPortableOptions(options.analysis ?? {}))) as { [key: string]: Json };
+  return {
+    errorModel: options.analysis?.errorModel ?? 'constant',
+    level: options.analysis?.level ?? 0.95,
+    reports: Boolean(options.reports),
+    analysis,
+  };
+}
+
+/**
+ * Runs the batch. Throws InputError when the inputs hold no file at all or `reports` is asked for
+ * without `out`; a file that cannot be read, or a compound that cannot be analysed, becomes a row
+ * with `status: 'failed'` and the reason in `error`, and the others go on.
+ */
+export async function runBatch(inputs: readonly string[], options: BatchOptions = {}): Promise<BatchResult> {
+  const cwd = options.cwd ?? process.cwd();
+  if (options.reports && !options.out) throw new InputError('per-compound reports need an output folder', '');
+  const { files, notes } = collectInputFiles(inputs, cwd);
+  if (files.length === 0) {
+    const what = inputs.length === 0 ? 'no inputs given' : `no rate-table files found in ${inputs.join(', ')}`;
+    throw new InputError(`${what}; give files (.csv, .tsv, .txt) or folders holding them`, inputs[0] ?? '');
+  }
+  const jobs = await planCompounds(files, options.parse ?? {});
+  options.onPlan?.(jobs.length);
+  const out = options.out ? resolve(cwd, options.out) : null;
+  const settings = batchSettings(options);
+  let done = 0;
+  const { rows, threadsUsed } = await runCompoundJobs(jobs, {
+    threads: options.jobs ?? availableParallelism(),
+    settings: { analysis: toPortableOptions(options.analysis ?? {}), reportRoot: options.reports ? out : null },
+    onRow: (row) => options.onCompound?.(row, ++done, jobs.length),
+  });
+  const written: string[] = [];
+  if (out !== null) {
+    const files: Array<[string, string]> = [
+      [SUMMARY_CSV, summaryCsv(rows, settings.level)],
+      [SUMMARY_JSON, summaryJson(rows, settings)],
+      [INDEX_PAGE, indexPage(rows, { settings, finishedAt: new Date() })],
+    ];
+    for (const [name, content] of files) {
+      const path = join(out, name);
+      writeFileAtomic(path, content);
+      written.push(path);
+    }
+  }
+  return { rows, counts: summaryCounts(rows), notes, written, threadsUsed, settings };
+}

@@ -1,0 +1,116 @@
+/**
+ * The summary row of one compound, from its analysis (summarizeAnalysis) or from the reason it
+ * could not be analysed (failedSummary).
+ *
+ * Constants are those of the called mechanism (verdict.mechanism): Ki, Kiu and alpha are null
+ * when that mechanism has no such constant (e.g. Kiu of the competitive model). Intervals are the
+ * profile-likelihood ones when the estimate carries them (Bates & Watts 1988, sec. 6.1), else the
+ * Wald ones (src/evidence/wald-estimates.ts).
+ */
+import type { AnalysisResult } from '../analysis/types.js';
+import type { EstimateName, ParameterEstimate } from '../evidence/wald-estimates.js';
+import type { RateTable } from '../input/types.js';
+import type { CompoundSummary, ConstantSummary } from './types.js';
+
+/** Where the row of a compound sits and what it is called (set by the batch plan). */
+export interface RowIdentity {
+  position: number;
+  compound: string;
+  nameInFile: string | null;
+  source: string;
+}
+
+function finiteOrNull(x: number | null | undefined): number | null {
+  return x === null || x === undefined || !Number.isFinite(x) ? null : x;
+}
+
+/** Value and interval of one estimate, profile interval first (see IntervalKind). */
+export function constantSummary(e: ParameterEstimate): ConstantSummary {
+  if (!e.detected) {
+    return { value: null, low: finiteOrNull(e.exceeds), high: null, interval: 'not-detected' };
+  }
+  if (e.profile) {
+    return { value: finiteOrNull(e.value), low: finiteOrNull(e.profile[0]), high: finiteOrNull(e.profile[1]), interval: 'profile' };
+  }
+  if (e.wald) {
+    return { value: finiteOrNull(e.value), low: finiteOrNull(e.wald[0]), high: finiteOrNull(e.wald[1]), interval: 'wald' };
+  }
+  return { value: finiteOrNull(e.value), low: null, high: null, interval: 'unavailable' };
+}
+
+/** Input warnings and fits that did not converge, one plain line each. */
+export function analysisFlags(result: AnalysisResult): string[] {
+  const flags = result.input.warnings.map((w) => w.message);
+  for (const m of result.models) if (!m.converged) flags.push(`the ${m.label} fit did not converge: ${m.message}`);
+  return flags;
+}
+
+/** The row of an analysed compound. `identity` defaults to the analysis' own source and compound. */
+export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<RowIdentity>, report: string | null = null): CompoundSummary {
+  const verdict = result.verdict;
+  const top = result.models[0] ?? null;
+  const second = result.models[1] ?? null;
+  const called = result.models.find((m) => m.mechanism === verdict.mechanism) ?? null;
+  const estimate = (name: EstimateName) => called?.estimates.find((e) => e.name === name);
+  const constant = (name: EstimateName) => {
+    const e = estimate(name);
+    return e ? constantSummary(e) : null;
+  };
+  const nameInFile = identity?.nameInFile !== undefined ? identity.nameInFile : (result.input.compound ?? null);
+  return {
+    position: identity?.position ?? 1,
+    compound: identity?.compound ?? result.input.compound ?? result.input.source,
+    nameInFile,
+    source: identity?.source ?? result.input.source,
+    status: 'analysed',
+    outcome: verdict.outcome,
+    mechanism: verdict.mechanism,
+    lean: verdict.lean ?? null,
+    decisive: verdict.decisive,
+    headline: verdict.headline,
+    topModel: top?.mechanism ?? null,
+    topWeight: finiteOrNull(top?.weight),
+    gapToSecond: top && second ? finiteOrNull(second.aicc - top.aicc) : null,
+    constantsOf: called?.mechanism ?? null,
+    Ki: constant('Ki'),
+    Kiu: constant('Kiu'),
+    alpha: constant('alpha'),
+    Km: finiteOrNull(estimate('Km')?.value),
+    Vmax: finiteOrNull(estimate('Vmax')?.value),
+    rowsUsed: result.input.rowsUsed,
+    rowsExcluded: result.input.excluded.length,
+    flags: analysisFlags(result),
+    error: null,
+    report,
+  };
+}
+
+/**
+ * The row of a compound that could not be analysed, saying why; the row counts are given when
+ * the table was read (the analysis failed, not the reading).
+ */
+export function failedSummary(identity: RowIdentity, error: string, table?: RateTable | null): CompoundSummary {
+  return {
+    ...identity,
+    status: 'failed',
+    outcome: null,
+    mechanism: null,
+    lean: null,
+    decisive: null,
+    headline: null,
+    topModel: null,
+    topWeight: null,
+    gapToSecond: null,
+    constantsOf: null,
+    Ki: null,
+    Kiu: null,
+    alpha: null,
+    Km: null,
+    Vmax: null,
+    rowsUsed: table ? table.points.length : null,
+    rowsExcluded: table ? table.excluded.length : null,
+    flags: table ? table.warnings.map((w) => w.message) : [],
+    error,
+    report: null,
+  };
+}
