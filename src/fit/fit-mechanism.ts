@@ -170,7 +170,7 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
       previous.set(weights);
       setWeights(fitted);
       passes++;
-      result = levenbergMarquardt(problem, result.x);
+      result = refitFrom(problem, result.x, logScale);
       let change = 0;
       for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(weights[k] - previous[k]) / previous[k]);
       if (change < 1e-10) break;
@@ -178,9 +178,36 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
     // final weights are those of the final fitted values
     predict(model, result.x, data, fitted);
     setWeights(fitted);
-    result = levenbergMarquardt(problem, result.x);
+    result = refitFrom(problem, result.x, logScale);
   }
   return assembleFit(model, data, errorModel, result, weights, sqrtW, starts.length, reaching, passes);
+}
+
+/** How close (in ln units) to the edge of the domain a parameter counts as run off. */
+const EDGE_MARGIN = 5;
+/** Where a run-off parameter is put back for a second try: this far (ln units) from the log scale. */
+const PULLED_IN_SPAN = 10;
+
+/**
+ * Refits from x after the weights changed. When an inhibition arm has run off to the edge of the
+ * domain, its Jacobian column is zero to machine precision, the scaled trust region puts no limit
+ * on that coordinate and every trial step leaves the domain, so Levenberg-Marquardt stalls where it
+ * starts. A second start with such parameters pulled back to exp(+-PULLED_IN_SPAN) times their scale
+ * (where the column is small but not zero) lets the other parameters move; the lower SSE is kept.
+ */
+function refitFrom(problem: LeastSquaresProblem, x: Float64Array, logScale: Float64Array): LeastSquaresResult {
+  const result = levenbergMarquardt(problem, x);
+  let pulled: Float64Array | null = null;
+  for (let j = 0; j < x.length; j++) {
+    const offset = x[j] - logScale[j];
+    if (Math.abs(offset) > LOG_SPAN - EDGE_MARGIN) {
+      pulled ??= Float64Array.from(x);
+      pulled[j] = logScale[j] + Math.sign(offset) * PULLED_IN_SPAN;
+    }
+  }
+  if (!pulled) return result;
+  const second = levenbergMarquardt(problem, pulled);
+  return isBetter(second, result) ? second : result;
 }
 
 function clampLog(x: number, centre: number): number {
