@@ -1,27 +1,34 @@
 /**
  * The analysis of one rate table: fit all mechanisms globally, rank them, estimate parameters with
- * intervals, compare nested models and reach a verdict. The CLI, the report and the batch runner
- * are thin layers over this function.
+ * intervals, compare nested models, check residuals, error model and design, and reach a verdict.
+ * The CLI, the report and the batch runner are thin layers over this function.
  */
 import { MECHANISMS } from '../models/index.js';
-import type { MechanismModel } from '../models/types.js';
+import type { Mechanism, MechanismModel } from '../models/types.js';
 import { fitAllMechanisms } from '../fit/fit-all-mechanisms.js';
+import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitDataFromTable, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
-import { waldEstimates } from '../evidence/wald-estimates.js';
-import { nestedComparisons } from '../evidence/nested-comparisons.js';
-import { decideVerdict } from '../evidence/verdict.js';
-import type { AnalysisResult, ModelResult } from './types.js';
+import { waldEstimates, type ParameterEstimate } from '../evidence/wald-estimates.js';
+import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
+import { decideVerdict, type Caveat, type Verdict } from '../evidence/verdict.js';
+import { candidateErrorModels } from '../evidence/error-model-check.js';
+import { robustRefit } from '../evidence/robust-refit.js';
+import { caveatsFor, checkErrorModel, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
+import { noInhibitionReason } from '../evidence/detection-limit.js';
+import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
 
 export interface AnalysisOptions {
-  /** error model; default 'constant' */
-  errorModel?: ErrorModel;
+  /** error model, or 'auto' to choose by likelihood; default 'constant' */
+  errorModel?: ErrorModel | 'auto';
   /** confidence level for intervals; default 0.95 */
   level?: number;
   /** mechanisms to compare; default all five */
   models?: readonly MechanismModel[];
+  /** add a bounded-influence (bisquare) refit and say whether the call depends on a few points */
+  robust?: boolean;
 }
 
 /** Thrown when the analysis cannot be completed (CLI exit code 1). */
@@ -34,24 +41,52 @@ export class AnalysisError extends Error {
 }
 
 export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): AnalysisResult {
-  const errorModel = options.errorModel ?? 'constant';
   const level = options.level ?? 0.95;
   if (!(level > 0 && level < 1)) throw new AnalysisError(`confidence level must lie between 0 and 1 (got ${level})`);
   const data = fitDataFromTable(table);
-  if (errorModel === 'column' && !data.sd)
-    throw new AnalysisError('the column error model needs a positive sd value on every used row; add an sd column or choose another error model');
-  if (errorModel !== 'constant' && errorModel !== 'column' && data.v.some((x) => !(x > 0)))
-    throw new AnalysisError(`the ${errorModel} error model needs positive rates; use --error constant for data with zero or negative rates`);
-  const fits = fitAllMechanisms(data, errorModel, options.models ?? MECHANISMS);
+  const mechanisms = options.models ?? MECHANISMS;
+  const requested = options.errorModel ?? 'constant';
+  checkErrorModelApplies(requested, data);
+
+  const choice = chooseErrorModel(requested, data, mechanisms);
+  const errorModel = choice.errorModel;
+  const fits = choice.fits;
   const models = rankModels(fits, data, level);
   const nested = nestedComparisons(fits);
-  const mixed = models.find((m) => m.mechanism === 'mixed');
-  const alpha = mixed?.estimates.find((e) => e.name === 'alpha');
-  const verdict = decideVerdict({
-    models,
-    nested,
-    alphaInterval: alpha ? alphaBounds(alpha) : null,
-  });
+
+  // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
+  const preliminary = verdictFrom(models, nested, []);
+  const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
+  const diagnostics = runDiagnostics(models, data, errorModel);
+  const caveats: Caveat[] = caveatsFor(winner, diagnostics, data);
+
+  const emCheck = winner.fit.df > 0 ? checkErrorModel(winner.fit, data) : null;
+  if (emCheck?.clearlyWorse) {
+    const alternative = fitAllMechanisms(data, emCheck.best, mechanisms);
+    const altModels = rankModels(alternative, data, level);
+    const altCall = verdictFrom(altModels, nestedComparisons(alternative), []).mechanism;
+    const caveat = errorModelCaveat(emCheck, altCall !== preliminary.mechanism ? altCall : null);
+    if (caveat) caveats.push(caveat);
+  }
+
+  let robust: RobustSummary | undefined;
+  if (options.robust) {
+    robust = robustSummary(data, errorModel, models, level, table, preliminary);
+    if (robust.downWeighted.length > 0)
+      caveats.push({
+        code: 'robust',
+        message: robust.changesVerdict
+          ? `a robust (bisquare) refit down-weights ${robust.downWeighted.length} point(s) and then calls it ${robust.verdict.mechanism}: the call depends on those points`
+          : `a robust (bisquare) refit down-weights ${robust.downWeighted.length} point(s); the call stays ${robust.verdict.mechanism}`,
+        blocking: robust.changesVerdict,
+        ...(robust.changesVerdict ? { suggestion: 'inspect or repeat the down-weighted wells' } : {}),
+      });
+  }
+
+  const verdict = verdictFrom(models, nested, caveats);
+  if (verdict.outcome === 'no-inhibition') verdict.reasons.push(noInhibitionReason(models, data));
+  if (choice.automatic) verdict.reasons.unshift(choice.reason);
+
   return {
     input: {
       source: table.source,
@@ -72,7 +107,55 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     verdict,
     data,
     table,
+    seriesFits: diagnostics.seriesFits,
+    seriesDisagreements: diagnostics.seriesDisagreements,
+    residualChecks: diagnostics.residuals,
+    errorModelCheck: emCheck,
+    errorModelChoice: { automatic: choice.automatic, scores: choice.scores },
+    ...(robust ? { robust } : {}),
   };
+}
+
+function checkErrorModelApplies(requested: ErrorModel | 'auto', data: FitData): void {
+  if (requested === 'column' && !data.sd)
+    throw new AnalysisError('the column error model needs a positive sd value on every used row; add an sd column or choose another error model');
+  if ((requested === 'proportional' || requested === 'sqrt') && data.v.some((x) => !(x > 0)))
+    throw new AnalysisError(`the ${requested} error model needs positive rates; use --error constant for data with zero or negative rates`);
+}
+
+interface ErrorModelChoice {
+  errorModel: ErrorModel;
+  fits: MechanismFit[];
+  automatic: boolean;
+  reason: string;
+  scores: Array<{ errorModel: ErrorModel; bestAicc: number }>;
+}
+
+/**
+ * A given error model is used as is; 'auto' fits every mechanism under each usable error model
+ * and keeps the one whose best mechanism has the lowest AICc (likelihoods are comparable across
+ * error models, src/fit/error-models.ts).
+ */
+function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechanisms: readonly MechanismModel[]): ErrorModelChoice {
+  if (requested !== 'auto') {
+    const fits = fitAllMechanisms(data, requested, mechanisms);
+    return { errorModel: requested, fits, automatic: false, reason: '', scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
+  }
+  const { usable } = candidateErrorModels(data);
+  const tried = usable.map((em) => ({ errorModel: em, fits: fitAllMechanisms(data, em, mechanisms) }));
+  const scores = tried.map((t) => ({ errorModel: t.errorModel, bestAicc: bestAiccOf(t.fits) }));
+  const order = [...scores].sort((a, b) => a.bestAicc - b.bestAicc);
+  const chosen = tried.find((t) => t.errorModel === order[0].errorModel)!;
+  const margin = order.length > 1 ? order[1].bestAicc - order[0].bestAicc : Infinity;
+  const reason =
+    order.length > 1
+      ? `error model chosen automatically: ${order[0].errorModel} (AICc ${margin.toFixed(1)} lower than ${order[1].errorModel})`
+      : `error model chosen automatically: ${order[0].errorModel} (the only one usable on these rates)`;
+  return { errorModel: chosen.errorModel, fits: chosen.fits, automatic: true, reason, scores };
+}
+
+function bestAiccOf(fits: readonly MechanismFit[]): number {
+  return Math.min(...fits.map((f) => aicc(f.logLik, f.p + 1, f.n)));
 }
 
 function maxOf(xs: Float64Array): number {
@@ -82,10 +165,10 @@ function maxOf(xs: Float64Array): number {
 }
 
 /** Criteria, weights and estimates for each fit; sorted by AICc, best first. */
-export function rankModels(fits: ReturnType<typeof fitAllMechanisms>, data: FitData, level: number): ModelResult[] {
+export function rankModels(fits: readonly MechanismFit[], data: FitData, level: number): ModelResult[] {
   const maxI = maxOf(data.i);
   const k = fits.map((f) => f.p + 1);
-  const a = fits.map((f, j) => (f.converged || Number.isFinite(f.sse) ? aicc(f.logLik, k[j], f.n) : Infinity));
+  const a = fits.map((f, j) => (Number.isFinite(f.sse) ? aicc(f.logLik, k[j], f.n) : Infinity));
   const b = fits.map((f, j) => bic(f.logLik, k[j], f.n));
   const w = akaikeWeights(a);
   const wb = akaikeWeights(b);
@@ -117,7 +200,43 @@ export function rankModels(fits: ReturnType<typeof fitAllMechanisms>, data: FitD
   return results.sort((x, y) => x.aicc - y.aicc);
 }
 
-function alphaBounds(alpha: { wald: [number, number] | null; detected: boolean; value: number | null }): [number | null, number | null] | null {
-  if (!alpha.detected || !alpha.wald) return null;
-  return [alpha.wald[0], alpha.wald[1]];
+/** The alpha interval the verdict reads: profile where computed, else Wald. */
+export function alphaInterval(models: readonly ModelResult[]): [number | null, number | null] | null {
+  const mixed = models.find((m) => m.mechanism === 'mixed');
+  const alpha: ParameterEstimate | undefined = mixed?.estimates.find((e) => e.name === 'alpha');
+  if (!alpha || !alpha.detected) return null;
+  if (alpha.profile) return alpha.profile;
+  return alpha.wald ? [alpha.wald[0], alpha.wald[1]] : null;
+}
+
+export function verdictFrom(models: readonly ModelResult[], nested: readonly NestedComparison[], caveats: readonly Caveat[]): Verdict {
+  return decideVerdict({ models, nested, alphaInterval: alphaInterval(models), caveats });
+}
+
+function robustSummary(
+  data: FitData,
+  errorModel: ErrorModel,
+  models: readonly ModelResult[],
+  level: number,
+  table: RateTable,
+  lsVerdict: Verdict,
+): RobustSummary {
+  const mixed = models.find((m) => m.mechanism === 'mixed') ?? models[0];
+  const rr = robustRefit(data, errorModel, mixed.fit);
+  const ranked = rankModels(rr.fits, rr.data, level);
+  const verdict = verdictFrom(ranked, nestedComparisons(rr.fits), []);
+  const sameCall = (a: Verdict, b: Verdict): boolean => a.mechanism === b.mechanism && (a.lean ?? '') === (b.lean ?? '');
+  return {
+    downWeighted: rr.downWeighted.map((d) => ({
+      index: d.index,
+      line: table.points[d.index]?.line ?? -1,
+      substrate: data.s[d.index],
+      inhibitor: data.i[d.index],
+      rate: data.v[d.index],
+      weight: d.weight,
+    })),
+    ranking: ranked.map((m) => ({ mechanism: m.mechanism as Mechanism, aicc: m.aicc, weight: m.weight })),
+    verdict,
+    changesVerdict: !sameCall(verdict, lsVerdict),
+  };
 }

@@ -7,6 +7,9 @@ import type { Exclusion, InputWarning, RateTable } from '../input/types.js';
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { NestedComparison } from '../evidence/nested-comparisons.js';
 import type { Verdict } from '../evidence/verdict.js';
+import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
+import type { SeriesDisagreement } from '../evidence/series-fits.js';
+import type { ErrorModelCheck } from '../evidence/error-model-check.js';
 
 /** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
 export interface ProfileCurve {
@@ -71,6 +74,17 @@ export interface ModelResult {
   fit: MechanismFit;
 }
 
+/** The robust (bisquare) refit beside the least-squares one. */
+export interface RobustSummary {
+  /** points given robustness weight below 0.5, with their source line */
+  downWeighted: Array<{ index: number; line: number; substrate: number; inhibitor: number; rate: number; weight: number }>;
+  /** ranking of the robust fits (best first) */
+  ranking: Array<{ mechanism: Mechanism; aicc: number; weight: number }>;
+  verdict: Verdict;
+  /** true when the robust call differs from the least-squares call */
+  changesVerdict: boolean;
+}
+
 export interface InputSummary {
   source: string;
   compound?: string;
@@ -95,6 +109,16 @@ export interface AnalysisResult {
   verdict: Verdict;
   /** per-series Michaelis-Menten fits (diagnostic input of the slope and intercept replots) */
   seriesFits?: SeriesFit[];
+  /** per-series estimates that disagree with the winning global model */
+  seriesDisagreements?: SeriesDisagreement[];
+  /** residual diagnostics per mechanism */
+  residualChecks?: Partial<Record<Mechanism, ResidualDiagnostics>>;
+  /** the error-model comparison on the winning mechanism */
+  errorModelCheck?: ErrorModelCheck | null;
+  /** how the error model was chosen: given by the user, or automatically (with the scores) */
+  errorModelChoice?: { automatic: boolean; scores: Array<{ errorModel: ErrorModel; bestAicc: number }> };
+  /** the bounded-influence refit, when requested */
+  robust?: RobustSummary;
   /** the points that entered the fit */
   data: FitData;
   /** the table the analysis was run on */

@@ -1,0 +1,27 @@
+/**
+ * For a "no inhibition detected" call: how far did the tested [I] range reach? Under the best
+ * inhibited model, the smallest inhibition constant still compatible with the data is the lower
+ * end of its interval (profile where computed, else Wald; the detection bound when the arm ran
+ * off). Comparing the highest [I] with it tells the reader how strong an inhibitor could have
+ * been missed.
+ */
+import type { ModelResult } from '../analysis/types.js';
+import type { FitData } from '../fit/fit-data.js';
+import { sig } from '../report/format-number.js';
+
+export function noInhibitionReason(models: readonly ModelResult[], data: FitData): string {
+  let imax = 0;
+  for (const x of data.i) imax = Math.max(imax, x);
+  const inhibited = models.find((m) => m.mechanism !== 'none' && m.p === 3);
+  const est = inhibited?.estimates.find((e) => e.name === 'Ki' || e.name === 'Kiu');
+  if (!inhibited || !est) return `highest [I] tested: ${sig(imax, 3)}`;
+  let lower: number | null = null;
+  if (est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
+  else if (est.detected && est.wald) lower = Math.max(est.wald[0], 0);
+  else if (!est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
+  else if (!est.detected && est.exceeds !== undefined)
+    return `highest [I] tested: ${sig(imax, 3)}; under ${inhibited.mechanism} the fitted ${est.name} runs past ${sig(est.exceeds, 3)} (100 x the highest [I])`;
+  if (lower === null || !(lower > 0))
+    return `highest [I] tested: ${sig(imax, 3)}; the data do not bound the inhibition constant from below`;
+  return `highest [I] tested: ${sig(imax, 3)}, ${sig(imax / lower, 2)} x the smallest ${est.name} still compatible with the data under ${inhibited.mechanism} (${sig(lower, 3)})`;
+}
