@@ -41,6 +41,7 @@ export function summaryColumns(level: number): SummaryColumn[] {
     { name: 'mechanism', meaning: 'called mechanism', value: (r) => r.mechanism },
     { name: 'lean', meaning: 'for mixed-lean: the pure mechanism it leans to', value: (r) => r.lean },
     { name: 'decisive', meaning: 'yes when the call is decisive', value: (r) => r.decisive },
+    { name: 'error_model', meaning: 'error model the compound was fitted with', value: (r) => r.errorModel },
     { name: 'top_model', meaning: 'model ranked first by AICc', value: (r) => r.topModel },
     { name: 'top_weight', meaning: 'Akaike weight of that model', value: (r) => r.topWeight },
     { name: 'aicc_gap_to_second', meaning: 'AICc of the second-ranked model minus that of the first', value: (r) => r.gapToSecond },

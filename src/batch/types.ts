@@ -44,6 +44,8 @@ export interface CompoundSummary {
   lean: 'competitive' | 'uncompetitive' | null;
   decisive: boolean | null;
   headline: string | null;
+  /** the error model the compound was fitted with (differs between compounds only with 'auto') */
+  errorModel: string | null;
   /** the model ranked first by AICc, its Akaike weight, and the AICc gap to the second model */
   topModel: Mechanism | null;
   topWeight: number | null;
