@@ -153,7 +153,7 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
 function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, compound: string | undefined): RatePoint | Exclusion {
   const { source } = context;
   const col = plan.known;
-  const cell = (index: number | undefined): string => (index === undefined ? '' : (row.cells[index] ?? ''));
+  const cell = (index: number | undefined): string => cellAt(row, index);
   const exclusion = (index: number, reason: string): Exclusion => ({ line: row.line, column: index + 1, reason });
 
   if (col.exclude !== undefined) {
@@ -172,7 +172,7 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, com
   const inhibitor = readConcentrationCell(cell(col.inhibitor), 'inhibitor', { line: row.line, column: col.inhibitor! + 1 }, context);
   const rate = readRateCell(cell(col.rate), 'rate', context);
 
-  const extra = row.cells.findIndex((c, index) => index >= plan.width && c.trim() !== '');
+  const extra = firstFilledCellFrom(row, plan.width);
   if (extra >= 0) {
     return exclusion(
       extra,
@@ -203,4 +203,14 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, com
     point.annotations[label] = value;
   }
   return point;
+}
+
+function cellAt(row: TextRow, index: number | undefined): string {
+  return index === undefined ? '' : (row.cells[index] ?? '');
+}
+
+/** Index of the first non-blank cell at or after `start`, or -1. */
+function firstFilledCellFrom(row: TextRow, start: number): number {
+  for (let index = start; index < row.cells.length; index++) if (row.cells[index].trim() !== '') return index;
+  return -1;
 }
