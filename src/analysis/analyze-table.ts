@@ -13,6 +13,7 @@ import type { RateTable } from '../input/types.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
 import { waldEstimates, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
+import { addIntervals, type BootstrapRequest } from './stage-intervals.js';
 import { decideVerdict, type Caveat, type Verdict } from '../evidence/verdict.js';
 import { candidateErrorModels } from '../evidence/error-model-check.js';
 import { robustRefit } from '../evidence/robust-refit.js';
@@ -29,6 +30,14 @@ export interface AnalysisOptions {
   models?: readonly MechanismModel[];
   /** add a bounded-influence (bisquare) refit and say whether the call depends on a few points */
   robust?: boolean;
+  /** profile-likelihood intervals, curves and the joint (Ki, Kiu) region; default true */
+  profile?: boolean;
+  /** wild bootstrap: resamples, seed and threads in all (see src/analysis/stage-intervals.ts) */
+  bootstrap?: BootstrapRequest;
+  /** [S] at which to report the IC50 (Cheng-Prusoff) */
+  atSubstrate?: number;
+  /** progress of long stages (the bootstrap): tasks done of total */
+  onProgress?: (done: number, total: number) => void;
 }
 
 /** Thrown when the analysis cannot be completed (CLI exit code 1). */
@@ -52,6 +61,13 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const errorModel = choice.errorModel;
   const fits = choice.fits;
   const models = rankModels(fits, data, level);
+  const bootstrap = addIntervals(models, data, table.units, {
+    level,
+    profile: options.profile,
+    bootstrap: options.bootstrap,
+    atSubstrate: options.atSubstrate,
+    onProgress: options.onProgress,
+  });
   const nested = nestedComparisons(fits);
 
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
@@ -113,6 +129,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     errorModelCheck: emCheck,
     errorModelChoice: { automatic: choice.automatic, scores: choice.scores },
     ...(robust ? { robust } : {}),
+    ...(bootstrap ? { bootstrap } : {}),
   };
 }
 

@@ -7,6 +7,7 @@ import type { Exclusion, InputWarning, RateTable } from '../input/types.js';
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { NestedComparison } from '../evidence/nested-comparisons.js';
 import type { Verdict } from '../evidence/verdict.js';
+import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import type { SeriesDisagreement } from '../evidence/series-fits.js';
 import type { ErrorModelCheck } from '../evidence/error-model-check.js';
@@ -30,6 +31,21 @@ export interface JointRegion {
   kiu: number[];
   /** true when the contour leaves the searched box (the region is open on some side) */
   open: boolean;
+}
+
+/** What a bootstrap run did, and how often each mechanism ranked first by AICc across resamples. */
+export interface BootstrapSummary {
+  resamples: number;
+  seed: number;
+  /** plain-words description of the resampling scheme */
+  scheme: string;
+  weights: 'rademacher' | 'mammen';
+  /** the model whose fitted values and residuals generated the resamples */
+  generatingModel: Mechanism;
+  /** share of resamples in which each mechanism ranked first by AICc */
+  selection: Record<string, number>;
+  /** resamples whose refit failed, per mechanism */
+  failures: Record<string, number>;
 }
 
 /** A Michaelis-Menten fit of one inhibitor series alone: a diagnostic, not a result. */
@@ -69,6 +85,8 @@ export interface ModelResult {
   profiles?: ProfileCurve[];
   /** joint (Ki, Kiu) region, mixed model only, when computed */
   jointRegion?: JointRegion;
+  /** pKi, pKiu, IC50 and apparent constants with intervals (intervals stage) */
+  derived?: DerivedQuantity[];
   /** residual variance s^2 = SSE_w / df */
   residualVariance: number;
   fit: MechanismFit;
@@ -107,6 +125,8 @@ export interface AnalysisResult {
   models: ModelResult[];
   nested: NestedComparison[];
   verdict: Verdict;
+  /** bootstrap summary, when a bootstrap was run */
+  bootstrap?: BootstrapSummary;
   /** per-series Michaelis-Menten fits (diagnostic input of the slope and intercept replots) */
   seriesFits?: SeriesFit[];
   /** per-series estimates that disagree with the winning global model */

@@ -1,0 +1,181 @@
+/**
+ * The intervals stage of an analysis: after the models are fitted and ranked, add
+ * - profile-likelihood intervals to every estimate (estimates[].profile) and the curves (profiles);
+ * - the joint (Ki, Kiu) region of the mixed model;
+ * - derived quantities (pKi, pKiu, IC50 at a chosen [S], apparent Vmax and Km at each [I]) with
+ *   Wald, profile (where natural) and bootstrap intervals;
+ * - with a bootstrap: percentile and BCa intervals, and how often each mechanism ranks first.
+ * The ModelResults are completed in place; the bootstrap summary is returned.
+ */
+import { MECHANISMS } from '../models/index.js';
+import type { FitData } from '../fit/fit-data.js';
+import type { MechanismFit } from '../fit/fit-mechanism.js';
+import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
+import { jointRegionKiKiu } from '../evidence/joint-region.js';
+import { runBootstrap, bootstrapIntervalsOf, type BootstrapRun } from '../evidence/bootstrap.js';
+import type { WildWeights } from '../evidence/bootstrap-tasks.js';
+import {
+  deltaMethodSe,
+  derivedDefinitions,
+  logScaleGradient,
+  type DerivedDefinition,
+  type DerivedQuantity,
+  type DerivedUnits,
+} from '../evidence/derived-quantities.js';
+import { waldEstimates } from '../evidence/wald-estimates.js';
+import { detectionBound } from '../evidence/detection-bound.js';
+import { tQuantile } from '../stats/distributions.js';
+import type { BootstrapSummary, ModelResult } from './types.js';
+
+export interface BootstrapRequest {
+  resamples: number;
+  seed: number;
+  /** threads in all; default 1 */
+  workers?: number;
+  weights?: WildWeights;
+}
+
+export interface IntervalOptions {
+  level: number;
+  /** profile-likelihood intervals and curves; default true */
+  profile?: boolean;
+  bootstrap?: BootstrapRequest;
+  /** [S] at which to give the IC50 */
+  atSubstrate?: number;
+  onProgress?: (done: number, total: number) => void;
+}
+
+function maxOf(xs: Float64Array): number {
+  let m = 0;
+  for (const x of xs) if (x > m) m = x;
+  return m;
+}
+
+function distinctLevels(xs: Float64Array): number[] {
+  return [...new Set(xs)].sort((a, b) => a - b);
+}
+
+/** Completes the ranked models with intervals; returns the bootstrap summary when one was run. */
+export function addIntervals(models: ModelResult[], data: FitData, units: DerivedUnits, options: IntervalOptions): BootstrapSummary | undefined {
+  const level = options.level;
+  const usable = (fit: MechanismFit) => Number.isFinite(fit.sse) && fit.df > 0;
+  const profiles = new Map<ModelResult, ParameterProfile[]>();
+  if (options.profile !== false) {
+    for (const model of models) {
+      if (!usable(model.fit)) continue;
+      const found = profileAllOfFit(model.fit, data, { level });
+      profiles.set(model, found);
+      model.profiles = found.map((p) => p.curve);
+      for (const e of model.estimates) {
+        const p = found.find((x) => x.name === e.name);
+        if (p) e.profile = p.interval;
+      }
+      if (model.mechanism === 'mixed') {
+        const region = jointRegionKiKiu(model.fit, data, { level });
+        if (region) model.jointRegion = region;
+      }
+    }
+  }
+
+  let run: BootstrapRun | undefined;
+  if (options.bootstrap) {
+    const order = (m: ModelResult) => MECHANISMS.findIndex((x) => x.mechanism === m.mechanism);
+    const fits = models.filter((m) => usable(m.fit)).sort((a, b) => order(a) - order(b)).map((m) => m.fit);
+    run = runBootstrap(fits, data, {
+      resamples: options.bootstrap.resamples,
+      seed: options.bootstrap.seed,
+      workers: options.bootstrap.workers,
+      weights: options.bootstrap.weights,
+      onProgress: options.onProgress,
+    });
+    for (const model of models) addBootstrapToEstimates(model, run, level);
+  }
+
+  const levels = distinctLevels(data.i);
+  const maxI = maxOf(data.i);
+  for (const model of models) {
+    if (!usable(model.fit)) continue;
+    const { definitions, skipped } = derivedDefinitions(model.fit.model, levels, units, options.atSubstrate);
+    const derived = definitions.map((d) => derivedQuantity(model, d, profiles.get(model), run, level, maxI));
+    model.derived = [
+      ...derived,
+      ...skipped.map((note): DerivedQuantity => ({ name: note.startsWith('pKiu') ? 'pKiu' : 'pKi', unit: null, value: null, se: null, wald: null, note })),
+    ];
+  }
+
+  if (!run) return undefined;
+  return {
+    resamples: run.resamples,
+    seed: run.seed,
+    scheme: `wild (${run.weights}), leverage-scaled residuals of ${run.generatingModel}`,
+    weights: run.weights,
+    generatingModel: run.generatingModel,
+    selection: run.selection,
+    failures: run.failures,
+  };
+}
+
+function addBootstrapToEstimates(model: ModelResult, run: BootstrapRun, level: number): void {
+  const names = model.fit.model.params;
+  for (const e of model.estimates) {
+    if (!e.detected || e.value === null) continue;
+    const value = e.value;
+    const quantity =
+      e.name === 'alpha'
+        ? (p: Float64Array) => p[names.indexOf('Kiu')] / p[names.indexOf('Ki')]
+        : ((j: number) => (p: Float64Array) => p[j])(names.indexOf(e.name));
+    const b = bootstrapIntervalsOf(run, model.mechanism, quantity, value, level);
+    if (b.percentile) e.bootstrapPercentile = b.percentile;
+    if (b.bca) e.bootstrapBca = b.bca;
+  }
+}
+
+function derivedQuantity(
+  model: ModelResult,
+  d: DerivedDefinition,
+  profiles: ParameterProfile[] | undefined,
+  run: BootstrapRun | undefined,
+  level: number,
+  maxI: number,
+): DerivedQuantity {
+  const fit = model.fit;
+  const base: DerivedQuantity = {
+    name: d.name,
+    ...(d.inhibitor !== undefined ? { inhibitor: d.inhibitor } : {}),
+    ...(d.substrate !== undefined ? { substrate: d.substrate } : {}),
+    unit: d.unit,
+    value: null,
+    se: null,
+    wald: null,
+  };
+  const profile = d.ofParameter ? profiles?.find((p) => p.name === d.ofParameter!.name) : undefined;
+  if (profile && d.ofParameter) {
+    // a decreasing map: the upper end of the constant gives the lower end of pK
+    const [lo, hi] = profile.interval;
+    base.profile = [hi === null ? null : d.ofParameter.map(hi), lo === null ? null : d.ofParameter.map(lo)];
+  }
+  const undetected = d.needs.filter((name) => model.estimates.find((e) => e.name === name)?.detected === false);
+  if (undetected.length) {
+    base.note = `${undetected.join(' and ')} not detected in the tested [I] range, so ${d.name} is not determined`;
+    return base;
+  }
+  const value = d.evaluate(fit.params);
+  if (d.name === 'IC50' && !(value <= detectionBound(maxI))) {
+    base.note = `the IC50 lies beyond ${detectionBound(maxI)} (100 x the highest [I]): not reached in the tested range`;
+    return base;
+  }
+  base.value = value;
+  const cov = waldEstimates(fit, maxI, level).logCovariance;
+  const se = deltaMethodSe(logScaleGradient(d.evaluate, fit.theta), cov, value);
+  const t = tQuantile(1 - (1 - level) / 2, fit.df);
+  if (Number.isFinite(se)) {
+    base.se = se;
+    base.wald = [value - t * se, value + t * se];
+  }
+  if (run) {
+    const b = bootstrapIntervalsOf(run, model.mechanism, (p) => d.evaluate(p), value, level);
+    if (b.percentile) base.bootstrapPercentile = b.percentile;
+    if (b.bca) base.bootstrapBca = b.bca;
+  }
+  return base;
+}

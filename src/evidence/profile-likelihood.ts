@@ -1,0 +1,215 @@
+/**
+ * Profile-likelihood (profile-t) intervals for nonlinear least squares, after Bates, D. M. and
+ * Watts, D. G. (1988) Nonlinear Regression Analysis and Its Applications, Wiley, ch. 6.
+ *
+ * For a quantity c (a parameter on the log scale, or ln alpha), S(c) is the smallest weighted SSE
+ * with c held fixed and the other parameters re-optimised, and the profile t statistic is
+ *   tau(c) = sign(c - c_hat) * sqrt((S(c) - S_hat) / s^2),   s^2 = S_hat / (n - p).
+ * The interval at level 1 - a is {c : |tau(c)| <= t(1 - a/2, n - p)}. It does not depend on the
+ * parametrisation (ln Ki or Ki give the same ends), unlike a Wald interval.
+ *
+ * Search, for each end: step outward from the estimate (first step a quarter of the Wald half-width,
+ * doubled whenever |tau| grows by less than an eighth of the cutoff per step, so a flat profile is
+ * crossed quickly), re-optimising the free parameters by Levenberg-Marquardt from the previous
+ * point (warm start); once |tau| passes the cutoff, the end is the root of |tau| - cutoff, found by
+ * Brent's method in the last step (find-root.ts). An end not reached inside the data's support
+ * (profile-support.ts) is open (null): the search never reports the edge of its box as an end.
+ *
+ * Weights: fixed at their values at the solution. For IRLS fits (proportional and sqrt error
+ * models) this profiles the weighted SSE of the final reweighting pass, the usual treatment of a
+ * weighted fit; the variance function is not re-estimated along the profile.
+ */
+import type { MechanismFit } from '../fit/fit-mechanism.js';
+import { parameterLogScales, weightedProblem } from '../fit/fit-mechanism.js';
+import type { FitData } from '../fit/fit-data.js';
+import { levenbergMarquardt } from '../fit/levenberg-marquardt.js';
+import type { LeastSquaresProblem } from '../fit/least-squares-problem.js';
+import { unscaledCovariance } from '../fit/qr.js';
+import { tQuantile } from '../stats/distributions.js';
+import type { ProfileCurve } from '../analysis/types.js';
+import { findRoot } from './find-root.js';
+import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
+import { profileSupport, type ProfileSupport } from './profile-support.js';
+
+export interface ParameterProfile {
+  name: ProfiledName;
+  /** natural-scale interval at the level; an end is null when it is open */
+  interval: [number | null, number | null];
+  /** the same ends on the log scale */
+  logInterval: [number | null, number | null];
+  /** every profile point computed (both sides), sorted by value */
+  curve: ProfileCurve;
+  /** plain-words notes on open ends or oddities of the search */
+  notes: string[];
+  /** constrained fits run */
+  evaluations: number;
+}
+
+export interface ProfileOptions {
+  /** confidence level; default 0.95 */
+  level?: number;
+  /** absolute tolerance of the ends on the log scale; default 1e-10 */
+  tolerance?: number;
+}
+
+interface ProfilePoint {
+  c: number;
+  sse: number;
+  tau: number;
+  z: Float64Array;
+  theta: Float64Array;
+}
+
+const MAX_STEPS = 80;
+
+/** Shared, per fit: the full problem at the fixed weights and the Wald covariance of theta. */
+interface FitContext {
+  fit: MechanismFit;
+  data: FitData;
+  full: LeastSquaresProblem;
+  s2: number;
+  cutoff: number;
+  covariance: Float64Array;
+  tolerance: number;
+}
+
+function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): FitContext {
+  const level = options.level ?? 0.95;
+  const sqrtW = fit.weights.map(Math.sqrt);
+  const full = weightedProblem(fit.model, data, sqrtW, parameterLogScales(fit.model, data));
+  const s2 = fit.sse / fit.df;
+  const cutoff = tQuantile(1 - (1 - level) / 2, fit.df);
+  const covariance = unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix.map((x) => x * s2);
+  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-10 };
+}
+
+/** Wald SE of the profiled quantity on the log scale (NaN when not identified). */
+function logScaleSe(ctx: FitContext, q: ProfiledQuantity): number {
+  const m = q.m;
+  const c = ctx.covariance;
+  if (q.name === 'alpha') {
+    const ki = ctx.fit.model.params.indexOf('Ki');
+    const kiu = ctx.fit.model.params.indexOf('Kiu');
+    return Math.sqrt(c[kiu * m + kiu] + c[ki * m + ki] - 2 * c[ki * m + kiu]);
+  }
+  const j = ctx.fit.model.params.indexOf(q.name);
+  return Math.sqrt(c[j * m + j]);
+}
+
+/** Profiles one quantity of a fit: both interval ends and the curve. */
+export function profileOfFit(fit: MechanismFit, data: FitData, name: ProfiledName, options: ProfileOptions = {}): ParameterProfile {
+  return profileWithContext(fitContext(fit, data, options), name);
+}
+
+/** Profiles every parameter of a fit, and alpha when the model has both Ki and Kiu. */
+export function profileAllOfFit(fit: MechanismFit, data: FitData, options: ProfileOptions = {}): ParameterProfile[] {
+  if (!(fit.df > 0) || !Number.isFinite(fit.sse)) return [];
+  const ctx = fitContext(fit, data, options);
+  const names: ProfiledName[] = [...fit.model.params];
+  if (fit.model.params.includes('Ki') && fit.model.params.includes('Kiu')) names.push('alpha');
+  return names.map((name) => profileWithContext(ctx, name));
+}
+
+function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfile {
+  const { fit } = ctx;
+  const q = profiledQuantity(fit.model.params, name);
+  const support = profileSupport(ctx.data, name);
+  const fixed = { value: 0 };
+  const problem = profiledProblem(ctx.full, q, fixed);
+  const cHat = quantityAt(q, fit.theta);
+  const notes: string[] = [];
+  let evaluations = 0;
+  let lowerSseSeen = false;
+
+  const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
+    fixed.value = c;
+    const r = levenbergMarquardt(problem, zStart);
+    evaluations++;
+    const increase = r.sse - fit.sse;
+    if (increase < -1e-9 * fit.sse) lowerSseSeen = true;
+    const tau = Math.sign(c - cHat) * Math.sqrt(Math.max(0, increase) / ctx.s2);
+    return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)) };
+  };
+
+  const c0 = Math.min(support.high, Math.max(support.low, cHat));
+  const start = c0 === cHat
+    ? { c: cHat, sse: fit.sse, tau: 0, z: freePart(q, fit.theta), theta: Float64Array.from(fit.theta) }
+    : evaluate(c0, freePart(q, fit.theta));
+  const se = logScaleSe(ctx, q);
+  const firstStep = Number.isFinite(se) && se > 0 ? Math.min(0.5, Math.max(1e-6, (ctx.cutoff * se) / 4)) : 0.1;
+
+  const points: ProfilePoint[] = [start];
+  const lower = walkToEnd(-1);
+  const upper = walkToEnd(+1);
+  if (lowerSseSeen) notes.push(`the ${name} profile reached a lower SSE than the fit: the reported optimum may not be the best one`);
+
+  points.sort((a, b) => a.c - b.c);
+  const curve: ProfileCurve = {
+    parameter: name,
+    values: points.map((p) => Math.exp(p.c)),
+    tau: points.map((p) => p.tau),
+    cutoff: ctx.cutoff,
+  };
+  return {
+    name,
+    interval: [lower === null ? null : Math.exp(lower), upper === null ? null : Math.exp(upper)],
+    logInterval: [lower, upper],
+    curve,
+    notes,
+    evaluations,
+  };
+
+  /** The end on one side (log scale), or null when it is open. */
+  function walkToEnd(direction: -1 | 1): number | null {
+    const limit = direction > 0 ? support.high : support.low;
+    let previous = start;
+    let step = firstStep;
+    for (let k = 0; k < MAX_STEPS; k++) {
+      if (leavesSupport(previous, direction, support)) return openEnd(direction, 'detection');
+      if (direction * (limit - previous.c) <= 0) return openEnd(direction, 'box');
+      let c = previous.c + direction * step;
+      if (direction * (c - limit) > 0) c = limit;
+      const point = evaluate(c, previous.z);
+      points.push(point);
+      if (!Number.isFinite(point.sse)) return openEnd(direction, 'failed');
+      const reach = direction * point.tau;
+      if (reach >= ctx.cutoff) return refineEnd(previous, point, direction);
+      if (reach - direction * previous.tau < ctx.cutoff / 8) step *= 2;
+      previous = point;
+    }
+    return openEnd(direction, 'steps');
+  }
+
+  function refineEnd(inside: ProfilePoint, outside: ProfilePoint, direction: -1 | 1): number {
+    let warm = outside.z;
+    const g = (c: number): number => {
+      const point = evaluate(c, warm);
+      points.push(point);
+      warm = point.z;
+      return direction * point.tau - ctx.cutoff;
+    };
+    const root = findRoot(g, inside.c, outside.c, direction * inside.tau - ctx.cutoff, direction * outside.tau - ctx.cutoff, ctx.tolerance);
+    if (!root.converged) notes.push(`the ${name} interval end was not refined to full precision`);
+    return root.x;
+  }
+
+  function openEnd(direction: -1 | 1, why: 'detection' | 'box' | 'failed' | 'steps'): null {
+    const side = direction > 0 ? 'upper' : 'lower';
+    const reason = {
+      detection: `an inhibition arm stops being detected before |tau| reaches ${ctx.cutoff.toFixed(3)}`,
+      box: `the profile stays below the cutoff up to the edge of what the data cover`,
+      failed: `the constrained fit failed`,
+      steps: `the profile did not reach the cutoff within ${MAX_STEPS} steps`,
+    }[why];
+    notes.push(`${name}: ${side} end open (${reason})`);
+    return null;
+  }
+
+  /** alpha only: the walk ends when the arm it moves towards is no longer detected. */
+  function leavesSupport(point: ProfilePoint, direction: -1 | 1, s: ProfileSupport): boolean {
+    if (name !== 'alpha') return false;
+    const params = fit.model.params;
+    const arm = direction > 0 ? params.indexOf('Kiu') : params.indexOf('Ki');
+    return point.theta[arm] > s.lnDetectionBound;
+  }
+}
