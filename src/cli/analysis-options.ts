@@ -16,11 +16,13 @@ export interface SharedCliOptions {
   inhibitorUnit?: string;
   rateUnit?: string;
   unit?: string;
+  robust?: boolean;
 }
 
 export function addSharedOptions(cmd: Command): Command {
   return cmd
-    .option('--error <model>', 'error model: constant | proportional | sqrt | column (the sd column)', 'constant')
+    .option('--error <model>', 'error model: constant | proportional | sqrt | column (the sd column) | auto', 'constant')
+    .option('--robust', 'add a bounded-influence (bisquare) refit and say whether the call depends on a few points')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--layout <kind>', 'table layout: long | matrix (default: detected)')
     .option('--substrate-unit <unit>', 'unit of [S] in the file (M, mM, uM, nM, pM); overrides the header')
@@ -47,7 +49,8 @@ export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
 
 export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
   return {
-    errorModel: errorModelOption(o.error ?? 'constant'),
+    errorModel: o.error === 'auto' ? 'auto' : errorModelOption(o.error ?? 'constant'),
+    ...(o.robust ? { robust: true } : {}),
     level: numberOption('--level', o.level ?? '0.95', (x) => x > 0 && x < 1, 'a number between 0 and 1'),
   };
 }

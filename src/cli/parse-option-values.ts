@@ -27,7 +27,7 @@ export function numberList(name: string, text: string): number[] {
 
 export function errorModelOption(text: string): ErrorModel {
   if ((ERROR_MODELS as readonly string[]).includes(text)) return text as ErrorModel;
-  throw new UsageError(`option --error: "${text}" is not one of ${ERROR_MODELS.join(', ')}`);
+  throw new UsageError(`option --error: "${text}" is not one of ${ERROR_MODELS.join(', ')}, auto`);
 }
 
 export function unitOption(name: string, text: string): ConcentrationUnit {

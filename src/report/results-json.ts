@@ -5,6 +5,7 @@
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
+import { diagnosticsJson } from './diagnostics-json.js';
 
 export type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
 
@@ -97,5 +98,6 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       reasons: result.verdict.reasons,
       suggestions: result.verdict.suggestions,
     },
+    diagnostics: diagnosticsJson(result),
   };
 }

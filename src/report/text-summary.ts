@@ -1,6 +1,7 @@
 /** The plain-text summary printed by `mechanist analyze` (without --json). */
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
+import { diagnosticLines } from './diagnostic-lines.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -57,6 +58,12 @@ export function textSummary(result: AnalysisResult): string {
   lines.push('');
   lines.push(`Parameters of ${best.mechanism} (global fit):`);
   lines.push(...parameterLines(best, result));
+  const checks = diagnosticLines(result);
+  if (checks.length) {
+    lines.push('');
+    lines.push(`Checks on ${v.mechanism ?? best.mechanism}:`);
+    lines.push(...checks);
+  }
   if (inp.excluded.length) {
     lines.push('');
     lines.push(`Excluded rows (${inp.excluded.length}):`);
