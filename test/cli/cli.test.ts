@@ -49,7 +49,7 @@ describe('mechanist analyze', () => {
     const doc = JSON.parse(r.out);
     expect(doc.input.rowsRead).toBe(doc.input.rowsUsed + doc.input.excluded.length);
     expect(doc.input.excluded[0]).toMatchObject({ line: 19, reason: expect.any(String) });
-    expect(doc.models.map((m: { mechanism: string }) => m.mechanism).sort()).toEqual(['competitive', 'mixed', 'none', 'noncompetitive', 'uncompetitive']);
+    expect(doc.models.map((m: { mechanism: string }) => m.mechanism).sort()).toEqual(['competitive', 'mixed', 'noncompetitive', 'none', 'uncompetitive']);
     for (let k = 1; k < doc.models.length; k++) expect(doc.models[k].aicc).toBeGreaterThanOrEqual(doc.models[k - 1].aicc);
     const names: Record<string, string[]> = {
       none: ['Vmax', 'Km'],
