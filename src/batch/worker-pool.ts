@@ -22,7 +22,7 @@ export interface PoolOptions {
 export interface PoolOutcome {
   /** rows in job order */
   rows: CompoundSummary[];
-  /** worker threads used (0: all jobs ran in the calling thread) */
+  /** worker threads that analysed at least one compound (0: all ran in the calling thread) */
   threadsUsed: number;
 }
 
@@ -36,7 +36,7 @@ export async function runCompoundJobs(jobs: readonly CompoundJob[], options: Poo
   const script = workerScriptPath();
   const threads = Math.min(Math.max(1, Math.floor(options.threads)), jobs.length);
   if (threads <= 1 || script === null) return { rows: runInThread(jobs, options), threadsUsed: 0 };
-  return { rows: await runOnWorkers(jobs, options, script, threads), threadsUsed: threads };
+  return runOnWorkers(jobs, options, script, threads);
 }
 
 function runInThread(jobs: readonly CompoundJob[], options: PoolOptions): CompoundSummary[] {
@@ -47,12 +47,31 @@ function runInThread(jobs: readonly CompoundJob[], options: PoolOptions): Compou
   });
 }
 
+/**
+ * Node options for the workers: the parent's, less those that only make sense for a main script
+ * (--input-type, --eval, --print and their values), which a worker refuses.
+ */
+export function workerExecArgv(argv: readonly string[] = process.execArgv): string[] {
+  const kept: string[] = [];
+  for (let k = 0; k < argv.length; k++) {
+    const arg = argv[k];
+    if (arg === '-e' || arg === '--eval' || arg === '-p' || arg === '--print' || arg === '--input-type') {
+      k += 1;
+      continue;
+    }
+    if (arg.startsWith('--input-type=') || arg.startsWith('--eval=') || arg.startsWith('--print=')) continue;
+    kept.push(arg);
+  }
+  return kept;
+}
+
 function identityOf(job: CompoundJob) {
   return { position: job.position, compound: job.compound, nameInFile: job.nameInFile, source: job.source };
 }
 
-function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script: string, threads: number): Promise<CompoundSummary[]> {
+function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script: string, threads: number): Promise<PoolOutcome> {
   return new Promise((resolveAll) => {
+    let workersThatAnswered = 0;
     const rows: Array<CompoundSummary | undefined> = new Array(jobs.length);
     const workers = new Set<Worker>();
     let next = 0;
@@ -66,14 +85,22 @@ function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script
       if (finished === jobs.length) {
         for (const w of workers) void w.terminate();
         workers.clear();
-        resolveAll(rows as CompoundSummary[]);
+        resolveAll({ rows: rows as CompoundSummary[], threadsUsed: workersThatAnswered });
       }
     };
 
+    const runHere = (index: number) => record(index, analyzeCompound(jobs[index], options.settings));
+    // With no worker left (none could start), the calling thread does the rest.
+    const drainIfAlone = () => {
+      if (workers.size > 0) return;
+      while (next < jobs.length) runHere(next++);
+    };
+
     const start = () => {
-      const worker = new Worker(script, { workerData: options.settings });
+      const worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv() });
       workers.add(worker);
       let current = -1;
+      let answered = false;
       const feed = () => {
         if (next >= jobs.length) {
           current = -1;
@@ -85,18 +112,28 @@ function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script
         worker.postMessage(jobs[current]);
       };
       worker.on('message', (row: CompoundSummary) => {
+        if (!answered) workersThatAnswered += 1;
+        answered = true;
         record(current, row);
         feed();
       });
-      // A worker that dies (e.g. out of memory) fails its compound; a fresh worker takes over.
-      const replace = (why: string) => {
+      const lost = (why: string, outOfMemory = false) => {
         if (!workers.has(worker)) return;
         workers.delete(worker);
+        if (!answered && !outOfMemory) {
+          // The worker could not start (or died on its first compound): that compound, and the
+          // rest if no worker is left, run in the calling thread; no new worker is started.
+          if (current >= 0) runHere(current);
+          drainIfAlone();
+          return;
+        }
+        // A worker that dies later, or runs out of memory, fails its compound; a fresh one takes over.
         if (current >= 0) record(current, failedSummary(identityOf(jobs[current]), `analysis not completed: ${why}`, jobs[current].table));
         if (finished < jobs.length && next < jobs.length) start();
       };
-      worker.on('error', (error) => replace(`the worker thread failed (${error.message})`));
-      worker.on('exit', (code) => replace(`the worker thread stopped with code ${code}`));
+      worker.on('error', (error) =>
+        lost(`the worker thread failed (${error.message})`, (error as NodeJS.ErrnoException).code === 'ERR_WORKER_OUT_OF_MEMORY'));
+      worker.on('exit', (code) => lost(`the worker thread stopped with code ${code}`));
       feed();
     };
 
