@@ -218,7 +218,7 @@ const MESSAGES: Record<LeastSquaresStatus, string> = {
  *
  * `iterations` counts Jacobian evaluations (outer iterations of lmder); `evaluations` counts
  * residual evaluations, the quantity limited by maxEvaluations. The returned Jacobian is evaluated
- * at the returned x.
+ * at the returned x (one extra Jacobian evaluation when the last step moved x; not counted).
  */
 export function levenbergMarquardt(
   problem: LeastSquaresProblem,
