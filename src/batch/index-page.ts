@@ -98,9 +98,9 @@ h1{font-size:1.3rem;margin:0 0 .3rem}
 .controls{display:flex;gap:1rem;flex-wrap:wrap;align-items:center;margin:1rem 0}
 table{border-collapse:collapse;width:100%}
 th,td{border-bottom:1px solid #dde3e7;padding:.3rem .45rem;text-align:left;vertical-align:top}
-th button{font:inherit;font-weight:600;background:none;border:0;padding:0;cursor:pointer;color:inherit}
-th[aria-sort=ascending] button::after{content:" ▲"}
-th[aria-sort=descending] button::after{content:" ▼"}
+th button{font:inherit;font-weight:600;background:none;border:0;padding:0;cursor:pointer;color:inherit;width:100%;text-align:inherit}
+th[aria-sort=ascending] .arrow::after{content:" ▲"}
+th[aria-sort=descending] .arrow::after{content:" ▼"}
 td.num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}
 .ci{color:#5f6b73}
 .tag{padding:0 .35rem;border-radius:.25rem;background:#eef1f3}
@@ -194,7 +194,7 @@ function rowHtml(row: CompoundSummary): string {
 export function indexPage(rows: readonly CompoundSummary[], context: IndexPageContext): string {
   const counts = summaryCounts(rows);
   const s = context.settings;
-  const headings = COLUMNS.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${escapeHtml(c.heading)}</button></th>`).join('');
+  const headings = COLUMNS.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${escapeHtml(c.heading)}<span class="arrow" aria-hidden="true"></span></button></th>`).join('');
   const options = ['<option value="">all outcomes</option>', ...OUTCOME_CHOICES.map((o) => `<option value="${o}">${o}</option>`)].join('');
   return `<!doctype html>
 <html lang="en">
