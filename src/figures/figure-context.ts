@@ -1,0 +1,68 @@
+/**
+ * What every figure of one analysis shares: the model drawn (the verdict's mechanism), the
+ * runner-up, the levels of [I] and [S] as series, their colours, and the axis units.
+ */
+import type { AnalysisResult, ModelResult } from '../analysis/types.js';
+import { axisUnits, type AxisUnits } from './axis-units.js';
+import { seriesColours } from './palette.js';
+import { rateConstants, type RateConstants } from './replot-geometry.js';
+import { sig } from '../report/format-number.js';
+
+export interface SeriesLevels {
+  values: number[];
+  colours: string[];
+  /** level index of every fitted point */
+  indexOf: Int32Array;
+}
+
+export interface FigureContext {
+  result: AnalysisResult;
+  units: AxisUnits;
+  best: ModelResult;
+  bestConstants: RateConstants;
+  runnerUp: ModelResult | null;
+  runnerUpConstants: RateConstants | null;
+  inhibitor: SeriesLevels;
+  substrate: SeriesLevels;
+}
+
+/** Distinct values, ascending. */
+export function distinctLevels(values: ArrayLike<number>): number[] {
+  return [...new Set(Array.from(values))].sort((a, b) => a - b);
+}
+
+function seriesLevels(values: Float64Array): SeriesLevels {
+  const levels = distinctLevels(values);
+  const at = new Map(levels.map((v, k) => [v, k]));
+  return { values: levels, colours: seriesColours(levels.length), indexOf: Int32Array.from(values, (v) => at.get(v) ?? 0) };
+}
+
+/** The model the figures draw: the verdict's mechanism if it was fitted, else the AICc best. */
+export function drawnModel(result: AnalysisResult): ModelResult {
+  return result.models.find((m) => m.mechanism === result.verdict.mechanism) ?? result.models[0];
+}
+
+/** The next model by AICc after the drawn one, when it converged. */
+export function runnerUpModel(result: AnalysisResult, best: ModelResult): ModelResult | null {
+  return result.models.find((m) => m !== best && m.converged && Number.isFinite(m.aicc)) ?? null;
+}
+
+export function figureContext(result: AnalysisResult): FigureContext {
+  const best = drawnModel(result);
+  const runnerUp = runnerUpModel(result, best);
+  return {
+    result,
+    units: axisUnits(result),
+    best,
+    bestConstants: rateConstants(best),
+    runnerUp,
+    runnerUpConstants: runnerUp ? rateConstants(runnerUp) : null,
+    inhibitor: seriesLevels(result.data.i),
+    substrate: seriesLevels(result.data.s),
+  };
+}
+
+/** "60 nM" (or "60" without a unit). */
+export function concentrationText(x: number, unit: string | null): string {
+  return unit ? `${sig(x, 3)} ${unit}` : sig(x, 3);
+}

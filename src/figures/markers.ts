@@ -1,0 +1,52 @@
+/**
+ * Marker shapes: the second way (besides colour) that series are told apart, so the figures
+ * read in grayscale and for colour-blind readers. Shapes cycle after eight series.
+ */
+import * as d3 from 'd3';
+
+export interface MarkerShape {
+  name: string;
+  symbol: d3.SymbolType;
+  /** degrees; the down-pointing triangle is the up-pointing one turned over */
+  rotate: number;
+}
+
+export const MARKER_SHAPES: readonly MarkerShape[] = [
+  { name: 'circle', symbol: d3.symbolCircle, rotate: 0 },
+  { name: 'square', symbol: d3.symbolSquare, rotate: 0 },
+  { name: 'triangle up', symbol: d3.symbolTriangle, rotate: 0 },
+  { name: 'diamond', symbol: d3.symbolDiamond, rotate: 0 },
+  { name: 'triangle down', symbol: d3.symbolTriangle, rotate: 180 },
+  { name: 'cross', symbol: d3.symbolCross, rotate: 0 },
+  { name: 'star', symbol: d3.symbolStar, rotate: 0 },
+  { name: 'wye', symbol: d3.symbolWye, rotate: 0 },
+];
+
+/** Marker area in square user units (1 unit = 1 pt at print size): about 4.5 pt across. */
+export const MARKER_AREA = 17;
+
+const pathCache = new Map<string, string>();
+
+/** The SVG path data of the marker for series k, centred on the origin. */
+export function markerPath(k: number, area = MARKER_AREA): string {
+  const shape = MARKER_SHAPES[k % MARKER_SHAPES.length];
+  const key = `${shape.name}:${area}`;
+  let d = pathCache.get(key);
+  if (d === undefined) {
+    d = d3.symbol(shape.symbol, area)() ?? '';
+    pathCache.set(key, d);
+  }
+  return d;
+}
+
+/** The transform that puts marker k at (x, y). */
+export function markerTransform(k: number, x: number, y: number): string {
+  const shape = MARKER_SHAPES[k % MARKER_SHAPES.length];
+  const at = `translate(${round(x)},${round(y)})`;
+  return shape.rotate ? `${at} rotate(${shape.rotate})` : at;
+}
+
+/** Coordinates rounded to 0.01 pt: keeps the SVG small and the output byte-stable. */
+export function round(x: number): number {
+  return Math.round(x * 100) / 100;
+}

@@ -1,0 +1,75 @@
+/** Line keys and drawing helpers for global-fit model lines (best solid, runner-up dashed). */
+import * as d3 from 'd3';
+import type { Group } from './svg-document.js';
+import type { FigureContext } from './figure-context.js';
+import type { LegendItem } from './legend.js';
+import { INK } from './palette.js';
+import { markerPath, markerTransform, round } from './markers.js';
+import type { NumericScale } from './axes.js';
+
+export const BEST_LINE_WIDTH = 1.1;
+export const RUNNER_UP_LINE_WIDTH = 0.8;
+export const RUNNER_UP_DASH = '3.5 2';
+
+/** Key for the model lines of a figure. */
+export function modelLineKey(ctx: FigureContext, withRunnerUp: boolean): LegendItem[] {
+  const items: LegendItem[] = [{ label: `${ctx.best.mechanism} (global fit)`, colour: INK.text, line: true }];
+  if (withRunnerUp && ctx.runnerUp) items.push({ label: `${ctx.runnerUp.mechanism} (runner-up)`, colour: INK.text, line: true, dash: RUNNER_UP_DASH });
+  return items;
+}
+
+/** A polyline through points given in data coordinates. */
+export function drawPolyline(
+  g: Group,
+  xs: readonly number[],
+  ys: readonly number[],
+  x: NumericScale,
+  y: NumericScale,
+  style: { colour: string; width: number; dash?: string; className?: string },
+): void {
+  const pts: Array<[number, number]> = [];
+  for (let k = 0; k < xs.length; k++) if (Number.isFinite(ys[k]) && Number.isFinite(xs[k])) pts.push([round(x(xs[k])), round(y(ys[k]))]);
+  if (pts.length < 2) return;
+  g.append('path')
+    .attr('class', style.className ?? 'model-line')
+    .attr('d', d3.line()(pts) ?? '')
+    .attr('fill', 'none')
+    .attr('stroke', style.colour)
+    .attr('stroke-width', style.width)
+    .attr('stroke-dasharray', style.dash ?? null)
+    .attr('stroke-linejoin', 'round');
+}
+
+/** Markers for points (data coordinates), series index k per point. */
+export function drawMarkers(
+  g: Group,
+  px: ArrayLike<number>,
+  py: ArrayLike<number>,
+  series: ArrayLike<number>,
+  colours: readonly string[],
+  x: NumericScale,
+  y: NumericScale,
+): void {
+  const layer = g.append('g').attr('class', 'points');
+  for (let k = 0; k < px.length; k++) {
+    if (!Number.isFinite(px[k]) || !Number.isFinite(py[k])) continue;
+    const s = series[k];
+    layer
+      .append('path')
+      .attr('d', markerPath(s))
+      .attr('transform', markerTransform(s, x(px[k]), y(py[k])))
+      .attr('fill', colours[s])
+      .attr('stroke', INK.text)
+      .attr('stroke-width', 0.4);
+  }
+}
+
+/** n + 1 points evenly spaced (or geometrically, for log axes) from a to b. */
+export function grid(a: number, b: number, n: number, geometric = false): number[] {
+  const out: number[] = [];
+  for (let k = 0; k <= n; k++) {
+    const t = k / n;
+    out.push(geometric ? a * Math.pow(b / a, t) : a + (b - a) * t);
+  }
+  return out;
+}

@@ -1,0 +1,140 @@
+/**
+ * Uncertainty figures, drawn when the analysis carries them:
+ *  - profile-likelihood curves of Ki and Kiu: the profile t statistic tau against the parameter,
+ *    with the cutoffs ±t that define the profile interval (Bates, D. M. and Watts, D. G. (1988)
+ *    Nonlinear Regression Analysis and Its Applications, Wiley, sec. 6.1). The straight dotted line
+ *    is the Wald (linear) approximation tau = (p - estimate)/SE: where the curve bends away from
+ *    it the Wald interval misleads.
+ *  - the joint (Ki, Kiu) region of the mixed model, with the line Ki = Kiu (alpha = 1, pure
+ *    noncompetitive) for reference.
+ */
+import type { ModelResult, ProfileCurve } from '../analysis/types.js';
+import type { FigureContext } from './figure-context.js';
+import type { FigureOutput } from './figure-output.js';
+import { renderXYFigure } from './xy-figure.js';
+import { paddedExtent } from './axes.js';
+import { withUnit } from './axis-units.js';
+import { drawPolyline } from './model-lines.js';
+import { INK } from './palette.js';
+import { markerPath } from './markers.js';
+import { sig, interval } from '../report/format-number.js';
+
+const PROFILED = ['Ki', 'Kiu'] as const;
+
+function profileFigure(ctx: FigureContext, model: ModelResult, curve: ProfileCurve): FigureOutput {
+  const name = curve.parameter;
+  const id = `fig-profile-${name.toLowerCase()}`;
+  const title = `Profile likelihood of ${name} (${model.mechanism})`;
+  const est = model.estimates.find((e) => e.name === name);
+  const pairs = curve.values.map((v, k) => [v, curve.tau[k]] as const).filter(([v, t]) => Number.isFinite(v) && Number.isFinite(t) && v > 0);
+  pairs.sort((a, b) => a[0] - b[0]);
+  const xs = pairs.map((p) => p[0]);
+  const ts = pairs.map((p) => p[1]);
+  const log = xs.length > 1 && xs[xs.length - 1] / xs[0] > 20;
+  const unit = ctx.units.inhibitor;
+  const level = Math.round(ctx.result.level * 100);
+  const prof = est?.profile;
+  const intervalText = prof ? `profile ${level}% interval ${interval(prof[0], prof[1], 3)}${prof[0] === null || prof[1] === null ? ' (open end: not reached in the searched range)' : ''}` : 'no profile interval recorded';
+  const tMax = Math.max(curve.cutoff * 1.4, ...ts.map((t) => Math.abs(t)));
+  const notes = [`Dashed: ±${sig(curve.cutoff, 3)} (the ${level}% cutoff); dotted: Wald approximation. ${name} ${intervalText}.`];
+  const svg = renderXYFigure({
+    id,
+    title,
+    desc: `Profile t statistic tau against ${name} for the ${model.mechanism} model. ${notes[0]}`,
+    x: { title: withUnit(name, unit), domain: paddedExtent(xs, 0.03, log), kind: log ? 'log' : 'linear' },
+    y: { title: 'τ (profile t)', domain: [-tMax, tMax] },
+    lines: [
+      { label: 'profile', colour: INK.accent, line: true },
+      { label: 'Wald approximation', colour: INK.faint, line: true, dash: '1 1.5' },
+    ],
+    notes,
+    plotHeight: 120,
+    draw(g, x, y, w) {
+      for (const c of [-curve.cutoff, curve.cutoff]) {
+        g.append('line').attr('class', 'cutoff').attr('x1', 0).attr('x2', w).attr('y1', y(c)).attr('y2', y(c)).attr('stroke', INK.reference).attr('stroke-width', 0.6).attr('stroke-dasharray', '3 2');
+      }
+      g.append('line').attr('class', 'zero').attr('x1', 0).attr('x2', w).attr('y1', y(0)).attr('y2', y(0)).attr('stroke', INK.grid).attr('stroke-width', 0.6);
+      if (est && est.value !== null && est.se !== null && est.se > 0) {
+        const value = est.value;
+        const se = est.se;
+        const [d0, d1] = x.domain();
+        const wx = [d0, d1];
+        drawPolyline(g, wx, wx.map((p) => (p - value) / se), x, y, { colour: INK.faint, width: 0.8, dash: '1 1.5', className: 'wald-line' });
+      }
+      drawPolyline(g, xs, ts, x, y, { colour: INK.accent, width: 1.2, className: 'profile-line' });
+      if (prof) {
+        for (const [end, t] of [[prof[0], -curve.cutoff], [prof[1], curve.cutoff]] as const) {
+          if (end === null || !(end > 0)) continue;
+          g.append('line').attr('class', 'interval-end').attr('x1', x(end)).attr('x2', x(end)).attr('y1', y(t)).attr('y2', y(0)).attr('stroke', INK.accent).attr('stroke-width', 0.5);
+        }
+      }
+    },
+  });
+  return {
+    id,
+    file: `profile-${name.toLowerCase()}.svg`,
+    group: 'uncertainty',
+    title,
+    caption: `The profile interval is where the curve crosses the dashed cutoffs. A curve that flattens before reaching a cutoff means the interval is open on that side: the data do not bound ${name} there.`,
+    svg,
+  };
+}
+
+function jointRegionFigure(ctx: FigureContext, model: ModelResult): FigureOutput | null {
+  const region = model.jointRegion;
+  if (!region || region.ki.length < 3) return null;
+  const id = 'fig-joint-ki-kiu';
+  const title = `Joint ${Math.round(region.level * 100)}% region of Ki and Kiu (mixed)`;
+  const ki = model.estimates.find((e) => e.name === 'Ki')?.value ?? null;
+  const kiu = model.estimates.find((e) => e.name === 'Kiu')?.value ?? null;
+  const xsAll = [...region.ki, ...(ki !== null ? [ki] : [])];
+  const ysAll = [...region.kiu, ...(kiu !== null ? [kiu] : [])];
+  const log = Math.max(...xsAll) / Math.min(...xsAll) > 20 || Math.max(...ysAll) / Math.min(...ysAll) > 20;
+  const unit = ctx.units.inhibitor;
+  const xDomain = paddedExtent(xsAll, 0.08, log);
+  const yDomain = paddedExtent(ysAll, 0.08, log);
+  const notes = [
+    `Shaded: the likelihood region at ${Math.round(region.level * 100)}%${region.open ? ', open: it runs out of the searched range' : ''}. Dashed: Ki = Kiu (alpha = 1, noncompetitive); where the region crosses it, noncompetitive is not excluded.`,
+  ];
+  const svg = renderXYFigure({
+    id,
+    title,
+    desc: `Joint confidence region of Ki and Kiu for the mixed model${ki !== null && kiu !== null ? `, estimate Ki = ${sig(ki, 3)}, Kiu = ${sig(kiu, 3)}` : ''}. ${notes[0]}`,
+    x: { title: withUnit('Ki', unit), domain: xDomain, kind: log ? 'log' : 'linear' },
+    y: { title: withUnit('Kiu', unit), domain: yDomain, kind: log ? 'log' : 'linear' },
+    notes,
+    plotHeight: 140,
+    draw(g, x, y) {
+      const pts = region.ki.map((v, k) => `${x(v).toFixed(2)},${y(region.kiu[k]).toFixed(2)}`).join(' ');
+      g.append('polygon').attr('class', 'region').attr('points', pts).attr('fill', INK.regionFill).attr('stroke', INK.accent).attr('stroke-width', 0.9);
+      const lo = Math.max(xDomain[0], yDomain[0]);
+      const hi = Math.min(xDomain[1], yDomain[1]);
+      if (hi > lo) drawPolyline(g, [lo, hi], [lo, hi], x, y, { colour: INK.reference, width: 0.7, dash: '3 2', className: 'alpha-one' });
+      if (ki !== null && kiu !== null) {
+        g.append('path').attr('class', 'estimate').attr('d', markerPath(5, 22)).attr('transform', `translate(${x(ki).toFixed(2)},${y(kiu).toFixed(2)})`).attr('fill', INK.text);
+      }
+    },
+  });
+  return {
+    id,
+    file: 'joint-ki-kiu.svg',
+    group: 'uncertainty',
+    title,
+    caption: 'Ki and Kiu are estimated together, and their errors are correlated; the region shows which pairs the data allow at the stated level, the cross marks the estimate.',
+    svg,
+  };
+}
+
+export function uncertaintyFigures(ctx: FigureContext): FigureOutput[] {
+  const out: FigureOutput[] = [];
+  for (const name of PROFILED) {
+    const curve = ctx.best.profiles?.find((p) => p.parameter === name);
+    if (curve && curve.values.length >= 3) out.push(profileFigure(ctx, ctx.best, curve));
+  }
+  const mixed = ctx.result.models.find((m) => m.mechanism === 'mixed');
+  if (mixed) {
+    const joint = jointRegionFigure(ctx, mixed);
+    if (joint) out.push(joint);
+  }
+  return out;
+}
