@@ -1,0 +1,8 @@
+/** Escaping of text placed in HTML (element content and quoted attribute values). */
+
+const ENTITIES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+/** Escapes &, <, >, " and ' so any text is safe inside an element or a quoted attribute. */
+export function escapeHtml(text: string | number): string {
+  return String(text).replace(/[&<>"']/g, (c) => ENTITIES[c]);
+}

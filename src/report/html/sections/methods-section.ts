@@ -1,0 +1,91 @@
+/**
+ * Methods: the rate laws, the error model, how the fits were made, the criteria, the tests and the
+ * intervals, each with the publication it comes from. Only the methods this analysis used are
+ * listed (profile and bootstrap intervals appear when they were computed).
+ */
+import type { AnalysisResult } from '../../../analysis/types.js';
+import type { ErrorModel } from '../../../fit/error-models.js';
+import { escapeHtml } from '../escape.js';
+import { DETECTION_FACTOR } from '../../../evidence/detection-bound.js';
+
+const ERROR_MODEL_TEXT: Record<ErrorModel, string> = {
+  constant: 'constant SD: every rate has the same standard deviation σ (unweighted least squares).',
+  proportional: 'SD proportional to the rate: SD = σ·f, weights 1/f² with f the fitted rate, iterated to convergence (IRLS).',
+  sqrt: 'SD proportional to the square root of the rate: SD = σ·√f, weights 1/f, iterated to convergence (IRLS).',
+  column: 'per-row SD from the file’s sd column, up to a common factor σ: weights 1/sd².',
+};
+
+/**
+ * The sources the methods cite, keyed for reuse. Authors, years, volumes and pages as in the
+ * project brief (docs of each module name the same); the article titles are from memory.
+ */
+export const REFERENCES = {
+  segel: 'Segel, I. H. (1975) Enzyme Kinetics. Wiley, New York.',
+  cornishBowden2012: 'Cornish-Bowden, A. (2012) Fundamentals of Enzyme Kinetics, 4th ed. Wiley-Blackwell, Weinheim.',
+  more: 'Moré, J. J. (1978) The Levenberg-Marquardt algorithm: implementation and theory. In Numerical Analysis, Lecture Notes in Mathematics 630, 105-116. Springer.',
+  carroll: 'Carroll, R. J. and Ruppert, D. (1988) Transformation and Weighting in Regression. Chapman & Hall, New York.',
+  hurvich: 'Hurvich, C. M. and Tsai, C.-L. (1989) Regression and time series model selection in small samples. Biometrika 76, 297-307.',
+  schwarz: 'Schwarz, G. (1978) Estimating the dimension of a model. Ann. Stat. 6, 461-464.',
+  burnham: 'Burnham, K. P. and Anderson, D. R. (2002) Model Selection and Multimodel Inference, 2nd ed. Springer, New York.',
+  draper: 'Draper, N. R. and Smith, H. (1998) Applied Regression Analysis, 3rd ed. Wiley, New York.',
+  wilks: 'Wilks, S. S. (1938) The large-sample distribution of the likelihood ratio for testing composite hypotheses. Ann. Math. Stat. 9, 60-62.',
+  selfLiang: 'Self, S. G. and Liang, K.-Y. (1987) Asymptotic properties of maximum likelihood estimators and likelihood ratio tests under nonstandard conditions. J. Am. Stat. Assoc. 82, 605-610.',
+  batesWatts: 'Bates, D. M. and Watts, D. G. (1988) Nonlinear Regression Analysis and Its Applications. Wiley, New York.',
+  efron: 'Efron, B. and Tibshirani, R. J. (1993) An Introduction to the Bootstrap. Chapman & Hall, New York.',
+  lineweaverBurk: 'Lineweaver, H. and Burk, D. (1934) The determination of enzyme dissociation constants. J. Am. Chem. Soc. 56, 658-666.',
+  dixon: 'Dixon, M. (1953) The determination of enzyme inhibitor constants. Biochem. J. 55, 170-171.',
+  cornishBowden1974: 'Cornish-Bowden, A. (1974) A simple graphical method for determining the inhibition constants of mixed, uncompetitive and non-competitive inhibitors. Biochem. J. 137, 143-144.',
+  morrison: 'Morrison, J. F. (1969) Kinetics of the reversible inhibition of enzyme-catalysed reactions by tight-binding inhibitors. Biochim. Biophys. Acta 185, 269-286.',
+  fengShoichet: 'Feng, B. Y. and Shoichet, B. K. (2006) A detergent-based assay for the detection of promiscuous inhibitors. Nat. Protoc. 1, 550-553.',
+} as const;
+
+export type ReferenceKey = keyof typeof REFERENCES;
+
+export function methodsSection(result: AnalysisResult): string {
+  const estimates = result.models.flatMap((m) => m.estimates);
+  const hasProfile = estimates.some((e) => e.profile) || result.models.some((m) => m.profiles?.length);
+  const hasBootstrap = estimates.some((e) => e.bootstrapPercentile || e.bootstrapBca);
+  const pct = Math.round(result.level * 100);
+  const equations = result.models
+    .slice()
+    .sort((a, b) => a.p - b.p)
+    .map((m) => `<li><strong>${escapeHtml(m.mechanism)}</strong>: <code>${escapeHtml(m.equation)}</code></li>`)
+    .join('');
+  const intervals = [
+    `<li><strong>Wald intervals</strong> from the covariance s²(JᵀWJ)⁻¹ of the log-scale constants, carried to the natural scale by the delta method, with t quantiles on n − p degrees of freedom (Bates &amp; Watts 1988, sec. 2.3).</li>`,
+    hasProfile
+      ? `<li><strong>Profile-likelihood intervals</strong>: each constant is fixed along a grid and the others refitted; the interval holds the values whose profile t statistic stays within the ${pct}% t quantile (Bates &amp; Watts 1988, ch. 6). They need not be symmetric and do not depend on the parametrisation.</li>`
+      : '',
+    hasBootstrap ? `<li><strong>Bootstrap intervals</strong> (percentile and BCa) from seeded resampling and refitting (Efron &amp; Tibshirani 1993).</li>` : '',
+  ].join('');
+  return `<section id="methods">
+<h2>Methods</h2>
+<h3>Rate laws</h3>
+<p>Rapid-equilibrium, single-substrate, reversible inhibition with [E] well below Ki (Segel 1975; Cornish-Bowden 2012). S = [S], I = [I]; Ki is the dissociation constant of EI, Kiu that of ESI, and alpha = Kiu/Ki.</p>
+<ul class="equations">${equations}</ul>
+<h3>Fitting</h3>
+<p>All inhibitor series are fitted at once (global fit) by weighted nonlinear least squares on the untransformed rates, with the constants on the log scale so they stay positive, by Levenberg-Marquardt steps (Moré 1978) from several data-driven starts and warm starts from the nested models. Error model: ${escapeHtml(ERROR_MODEL_TEXT[result.errorModel])} Where the weights follow the fit they are iterated (Carroll &amp; Ruppert 1988) and the log-likelihood keeps the sum of log weights, so it stays comparable between mechanisms.</p>
+<p>An inhibition constant above ${DETECTION_FACTOR} times the highest [I] tested changes the rate by under 1% anywhere in the design; it is reported as not detected rather than as a number (this project's rule).</p>
+<h3>Choosing between mechanisms</h3>
+<ul>
+<li><strong>AICc</strong>, Akaike's criterion with the small-sample correction, counting the error variance as a constant (Hurvich &amp; Tsai 1989); <strong>BIC</strong> (Schwarz 1978); <strong>Akaike weights</strong> and the rule of thumb for AICc differences (Burnham &amp; Anderson 2002).</li>
+<li><strong>Extra-sum-of-squares F test</strong> of nested models (Draper &amp; Smith 1998) and the <strong>likelihood-ratio test</strong> (Wilks 1938), conservative on the boundary of the fuller model (Self &amp; Liang 1987).</li>
+<li><strong>The verdict</strong>: mixed is preferred only when it has the lower AICc and the nested test rejects the best three-constant model at p &lt; 0.05; a rival within 4 AICc units of the winner leaves the call open; a mixed winner is described by the interval for alpha.</li>
+</ul>
+<h3>Intervals (${pct}%)</h3>
+<ul>${intervals}</ul>
+<h3>Replots</h3>
+<p>Double reciprocal (Lineweaver &amp; Burk 1934), Dixon (Dixon 1953), Cornish-Bowden (Cornish-Bowden 1974), Hanes-Woolf and Eadie-Hofstee (as in Cornish-Bowden 2012). They show the data transformed and the global fit transformed the same way; no constant is read from them.</p>
+<h3>References</h3>
+<ol class="references">${referenceList(hasBootstrap)}</ol>
+</section>`;
+}
+
+function referenceList(hasBootstrap: boolean): string {
+  const keys = (Object.keys(REFERENCES) as ReferenceKey[]).filter((k) => hasBootstrap || k !== 'efron');
+  return keys
+    .map((k) => REFERENCES[k])
+    .sort((a, b) => a.localeCompare(b))
+    .map((r) => `<li>${escapeHtml(r)}</li>`)
+    .join('');
+}
