@@ -1,9 +1,10 @@
 /**
  * `mechanist demo`: analyses the shipped demo table (an invented scenario: compound KT-0417
  * against the fictional amidase HLX-1; see data/demo/README.md) and writes the results under
- * reports/demo/.
+ * reports/demo/ (report.html, figures/, results.json, parameters.csv, summary.txt).
  */
 import { Command } from 'commander';
+import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
@@ -11,6 +12,7 @@ import { textSummary } from '../../report/text-summary.js';
 import type { CliIo } from '../io.js';
 import { demoDataPath } from '../package-paths.js';
 import { writeResultFiles } from '../write-results.js';
+import { sha256Hex } from '../../report/html/provenance.js';
 
 export const DEMO_SOURCE_NAME = 'data/demo/hlx-amidase-kt0417.csv';
 
@@ -22,7 +24,11 @@ export function demoCommand(io: CliIo): Command {
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
       const dir = resolve(io.cwd, o.out);
-      writeResultFiles(result, dir);
+      writeResultFiles(result, dir, {
+        command: 'mechanist demo',
+        inputSha256: sha256Hex(await readFile(demoDataPath())),
+        options: { '--error': 'proportional (fixed for the demo)' },
+      });
       io.out(textSummary(result));
       io.out(`\nResults written to ${o.out}/\n`);
     });
