@@ -5,7 +5,9 @@
 import type { Command } from 'commander';
 import type { ParseOptions } from '../input/options.js';
 import type { AnalysisOptions } from '../analysis/analyze-table.js';
-import { errorModelOption, numberOption, unitOption } from './parse-option-values.js';
+import { availableParallelism } from 'node:os';
+import { errorModelOption, integerOption, numberOption, positiveNumber, unitOption } from './parse-option-values.js';
+import { progressBar } from './progress-bar.js';
 import { UsageError } from './exit-codes.js';
 
 export interface SharedCliOptions {
@@ -17,6 +19,12 @@ export interface SharedCliOptions {
   rateUnit?: string;
   unit?: string;
   robust?: boolean;
+  bootstrap?: string;
+  seed?: string;
+  threads?: string;
+  atSubstrate?: string;
+  profile?: boolean;
+  json?: boolean;
 }
 
 export function addSharedOptions(cmd: Command): Command {
@@ -28,7 +36,12 @@ export function addSharedOptions(cmd: Command): Command {
     .option('--substrate-unit <unit>', 'unit of [S] in the file (M, mM, uM, nM, pM); overrides the header')
     .option('--inhibitor-unit <unit>', 'unit of [I] in the file; overrides the header')
     .option('--rate-unit <text>', 'unit of the rates, as text; overrides the header')
-    .option('--unit <unit>', 'report both concentrations in this unit (M, mM, uM, nM, pM)');
+    .option('--unit <unit>', 'report both concentrations in this unit (M, mM, uM, nM, pM)')
+    .option('--bootstrap <n>', 'add a wild bootstrap with n resamples (percentile and BCa intervals, mechanism-selection frequencies)')
+    .option('--seed <s>', 'seed of the bootstrap (same seed, same result)', '1')
+    .option('--threads <t>', 'threads for the bootstrap (default: the available cores, at most 4)')
+    .option('--at-substrate <x>', 'report the IC50 at this [S] (Cheng-Prusoff, in the [S] unit of the report)')
+    .option('--no-profile', 'skip the profile-likelihood intervals (Wald only)');
 }
 
 export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
@@ -52,5 +65,26 @@ export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
     errorModel: o.error === 'auto' ? 'auto' : errorModelOption(o.error ?? 'constant'),
     ...(o.robust ? { robust: true } : {}),
     level: numberOption('--level', o.level ?? '0.95', (x) => x > 0 && x < 1, 'a number between 0 and 1'),
+    ...intervalOptionsFrom(o),
   };
+}
+
+/** --bootstrap, --seed, --threads, --at-substrate and --no-profile; a progress bar unless --json. */
+function intervalOptionsFrom(o: SharedCliOptions): AnalysisOptions {
+  const out: AnalysisOptions = {};
+  if (o.profile === false) out.profile = false;
+  if (o.atSubstrate !== undefined) out.atSubstrate = positiveNumber('--at-substrate', o.atSubstrate);
+  if (o.bootstrap !== undefined) {
+    const threads = o.threads !== undefined ? integerOption('--threads', o.threads, 1) : Math.min(4, availableParallelism());
+    out.bootstrap = {
+      resamples: integerOption('--bootstrap', o.bootstrap, 1),
+      seed: integerOption('--seed', o.seed ?? '1', 0),
+      workers: threads,
+    };
+    if (!o.json) {
+      const bar = progressBar('bootstrap');
+      out.onProgress = (done, total) => bar.update(done, total);
+    }
+  }
+  return out;
 }

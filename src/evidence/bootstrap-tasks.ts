@@ -19,8 +19,8 @@
  * errors) is carried into the resamples without a model for it.
  */
 import { modelFor } from '../models/index.js';
-import type { Mechanism, MechanismModel } from '../models/types.js';
-import { fitMechanism, type MechanismFit } from '../fit/fit-mechanism.js';
+import type { Mechanism } from '../models/types.js';
+import { refitFromStarts, type Refit } from './bootstrap-refit.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { FitData } from '../fit/fit-data.js';
 import { aicc } from './information-criteria.js';
@@ -80,11 +80,6 @@ export function wildResample(plan: BootstrapPlan, index: number, out: Float64Arr
   return out;
 }
 
-/** A model whose only starting points are the given ones (the refit of a resample is warm-started). */
-function startingFrom(model: MechanismModel, starts: number[][]): MechanismModel {
-  return { ...model, starts: () => starts };
-}
-
 /** A constant far above the tested [I] range, to start an arm switched off (as fit-all-mechanisms does). */
 function farConstant(data: FitData): number {
   let imax = 0;
@@ -93,11 +88,11 @@ function farConstant(data: FitData): number {
 }
 
 /**
- * Refits every model of the plan to `data`, each from the original solution, and mixed also from
- * the refitted nested models (so mixed is never left worse than a model nested in it).
+ * Refits every model of the plan to `data` (bootstrap-refit.ts), each from the original solution,
+ * and mixed also from the refitted nested models (so mixed is never left worse than a model nested in it).
  */
-export function refitModels(plan: BootstrapPlan, data: FitData): MechanismFit[] {
-  const done = new Map<Mechanism, MechanismFit>();
+export function refitModels(plan: BootstrapPlan, data: FitData): Refit[] {
+  const done = new Map<Mechanism, Refit>();
   const far = farConstant(data);
   return plan.mechanisms.map((mechanism, j) => {
     const model = modelFor(mechanism);
@@ -110,7 +105,7 @@ export function refitModels(plan: BootstrapPlan, data: FitData): MechanismFit[] 
       if (u) starts.push([u.params[0], u.params[1], far, u.params[2]]);
       if (nc) starts.push([nc.params[0], nc.params[1], nc.params[2], nc.params[2]]);
     }
-    const fit = fitMechanism(startingFrom(model, starts), data, plan.errorModel);
+    const fit = refitFromStarts(model, data, plan.errorModel, starts);
     done.set(mechanism, fit);
     return fit;
   });

@@ -4,6 +4,7 @@
  */
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
+import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { diagnosticsJson } from './diagnostics-json.js';
 
@@ -32,6 +33,33 @@ export function estimateJson(e: ParameterEstimate, level: number): { [key: strin
   };
   if (e.exceeds !== undefined) out.exceeds = num(e.exceeds);
   if (e.note) out.note = e.note;
+  addIntervalFields(out, e, level);
+  return out;
+}
+
+/** Profile (null for an open end) and bootstrap intervals, keyed by level (intervals stage). */
+function addIntervalFields(
+  out: { [key: string]: Json },
+  e: Pick<ParameterEstimate, 'profile' | 'bootstrapPercentile' | 'bootstrapBca'>,
+  level: number,
+): void {
+  if (e.profile) out[levelKey('profile', level)] = [num(e.profile[0]), num(e.profile[1])];
+  if (e.bootstrapPercentile) out[levelKey('bootPercentile', level)] = pair(e.bootstrapPercentile);
+  if (e.bootstrapBca) out[levelKey('bootBca', level)] = pair(e.bootstrapBca);
+}
+
+function derivedJson(d: DerivedQuantity, level: number): { [key: string]: Json } {
+  const out: { [key: string]: Json } = {
+    name: d.name,
+    ...(d.inhibitor !== undefined ? { inhibitor: d.inhibitor } : {}),
+    ...(d.substrate !== undefined ? { substrate: d.substrate } : {}),
+    unit: d.unit,
+    value: num(d.value),
+    se: num(d.se),
+    [levelKey('ci', level)]: pair(d.wald),
+  };
+  addIntervalFields(out, d, level);
+  if (d.note) out.note = d.note;
   return out;
 }
 
@@ -55,6 +83,11 @@ export function modelJson(m: ModelResult, level: number): { [key: string]: Json 
     bicWeight: num(m.bicWeight),
     residualSd: num(Math.sqrt(m.residualVariance)),
     params,
+    ...(m.derived ? { derived: m.derived.map((d) => derivedJson(d, level)) } : {}),
+    ...(m.profiles ? { profiles: m.profiles.map((c) => ({ parameter: c.parameter, cutoff: num(c.cutoff), values: c.values.map(num), tau: c.tau.map(num) })) } : {}),
+    ...(m.jointRegion
+      ? { jointRegion: { level: m.jointRegion.level, open: m.jointRegion.open, Ki: m.jointRegion.ki.map(num), Kiu: m.jointRegion.kiu.map(num) } }
+      : {}),
   };
 }
 
@@ -88,6 +121,18 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       primary: c.primary,
       p: num(c.p),
     })),
+    ...(result.bootstrap
+      ? {
+          bootstrap: {
+            resamples: result.bootstrap.resamples,
+            seed: result.bootstrap.seed,
+            scheme: result.bootstrap.scheme,
+            generatingModel: result.bootstrap.generatingModel,
+            selectionFrequency: result.bootstrap.selection,
+            failedRefits: result.bootstrap.failures,
+          },
+        }
+      : {}),
     verdict: {
       mechanism: result.verdict.mechanism,
       outcome: result.verdict.outcome,

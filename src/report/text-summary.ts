@@ -31,10 +31,50 @@ export function parameterLines(model: ModelResult, result: AnalysisResult): stri
   const pct = `${Math.round(result.level * 100)}%`;
   return model.estimates.map((e) => {
     const unit = unitOf(e.name, result);
-    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${e.note ?? 'not determined'}`;
+    const profile = e.profile ? profileText(e.name, e.profile, unit, pct) : '';
+    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${e.note ?? 'not determined'}${profile ? `; ${profile}` : ''}`;
     const wald = e.wald ? `Wald ${pct} ${interval(e.wald[0], e.wald[1])}` : 'no interval';
-    return `  ${pad(e.name, 6)}${padLeft(sig(e.value), 10)} ${pad(unit, 6)} SE ${pad(sig(e.se, 3), 9)} ${wald}`;
+    const line = `  ${pad(e.name, 6)}${padLeft(sig(e.value), 10)} ${pad(unit, 6)} SE ${pad(sig(e.se, 3), 9)} ${profile ? `${profile}  ` : ''}${wald}`;
+    const boot = e.bootstrapPercentile
+      ? `\n        bootstrap ${pct} percentile ${interval(e.bootstrapPercentile[0], e.bootstrapPercentile[1])}${e.bootstrapBca ? `, BCa ${interval(e.bootstrapBca[0], e.bootstrapBca[1])}` : ''}`
+      : '';
+    return line + boot;
   });
+}
+
+/** A profile interval; an open end is written as a one-sided bound, e.g. "Kiu > 40 uM". */
+export function profileText(name: string, ends: [number | null, number | null], unit: string, pct: string): string {
+  const [lo, hi] = ends;
+  const u = unit ? ` ${unit}` : '';
+  if (lo !== null && hi !== null) return `profile ${pct} ${interval(lo, hi)}`;
+  if (lo !== null) return `profile ${pct}: ${name} > ${sig(lo)}${u}`;
+  if (hi !== null) return `profile ${pct}: ${name} < ${sig(hi)}${u}`;
+  return `profile ${pct}: not bounded by these data`;
+}
+
+/** pKi, pKiu and IC50 of a model, and the bootstrap selection frequencies. */
+export function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
+  const pct = `${Math.round(result.level * 100)}%`;
+  const lines: string[] = [];
+  for (const d of model.derived ?? []) {
+    if (d.name !== 'pKi' && d.name !== 'pKiu' && d.name !== 'IC50') continue;
+    const label = d.name === 'IC50' ? `IC50 at [S] = ${sig(d.substrate)}` : d.name;
+    if (d.value === null) {
+      lines.push(`  ${label}: ${d.note ?? 'not determined'}${d.profile ? `; ${profileText(d.name, d.profile, '', pct)}` : ''}`);
+      continue;
+    }
+    const parts = [`${sig(d.value)}${d.unit ? ` ${d.unit}` : ''}`];
+    if (d.profile) parts.push(profileText(d.name, d.profile, '', pct));
+    if (d.wald) parts.push(`Wald ${pct} ${interval(d.wald[0], d.wald[1])}`);
+    if (d.bootstrapBca) parts.push(`BCa ${interval(d.bootstrapBca[0], d.bootstrapBca[1])}`);
+    lines.push(`  ${label}: ${parts.join('  ')}`);
+  }
+  const b = result.bootstrap;
+  if (b) {
+    const ranked = Object.entries(b.selection).sort((x, y) => y[1] - x[1]).filter(([, f]) => f > 0);
+    lines.push(`  bootstrap (${b.resamples} resamples, seed ${b.seed}, ${b.scheme}): ranked first by AICc: ${ranked.map(([m, f]) => `${m} ${(100 * f).toFixed(1)}%`).join(', ')}`);
+  }
+  return lines;
 }
 
 export function textSummary(result: AnalysisResult): string {
@@ -58,6 +98,7 @@ export function textSummary(result: AnalysisResult): string {
   lines.push('');
   lines.push(`Parameters of ${best.mechanism} (global fit):`);
   lines.push(...parameterLines(best, result));
+  lines.push(...derivedLines(best, result));
   const checks = diagnosticLines(result);
   if (checks.length) {
     lines.push('');
