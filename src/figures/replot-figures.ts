@@ -169,7 +169,7 @@ export function renderLineFamilyReplot(ctx: FigureContext, spec: LineFamilyReplo
     file: spec.file,
     group: 'replot',
     title: spec.title,
-    caption: `Qualitative. The constants come from the global ${ctx.best.mechanism} fit; the lines are that fit transformed, not a regression of the transformed points. ${meetText} ${spec.reading} ${spec.source}.`,
+    caption: `Qualitative. The constants come from the global ${ctx.best.mechanism} fit; the lines are that fit transformed, not a regression of the transformed points. ${spec.reading} ${spec.source}.`,
     svg,
   };
 }
