@@ -121,10 +121,21 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
   let evaluations = 0;
   let lowerSseSeen = false;
 
+  const zHat = freePart(q, fit.theta);
+  const armIndices = fit.model.params.flatMap((p, j) => (p === 'Ki' || p === 'Kiu' ? [j] : []));
+  const theta = new Float64Array(q.m);
+  const armOff = (z: Float64Array, c: number) => armIndices.some((j) => fullTheta(q, z, c, theta)[j] > support.lnDetectionBound);
   const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
     fixed.value = c;
-    const r = levenbergMarquardt(problem, zStart);
+    let r = levenbergMarquardt(problem, zStart);
     evaluations++;
+    // An arm past the detection bound sits on a flat ridge where a warm start can stall: also try
+    // from the estimate's free parameters and keep the lower SSE.
+    if (armOff(r.x, c) && zStart !== zHat) {
+      const fromEstimate = levenbergMarquardt(problem, zHat);
+      evaluations++;
+      if (fromEstimate.sse < r.sse) r = fromEstimate;
+    }
     const increase = r.sse - fit.sse;
     if (increase < -1e-9 * fit.sse) lowerSseSeen = true;
     const tau = Math.sign(c - cHat) * Math.sqrt(Math.max(0, increase) / ctx.s2);
@@ -133,8 +144,8 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
 
   const c0 = Math.min(support.high, Math.max(support.low, cHat));
   const start = c0 === cHat
-    ? { c: cHat, sse: fit.sse, tau: 0, z: freePart(q, fit.theta), theta: Float64Array.from(fit.theta) }
-    : evaluate(c0, freePart(q, fit.theta));
+    ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta) }
+    : evaluate(c0, zHat);
   const se = logScaleSe(ctx, q);
   const firstStep = Number.isFinite(se) && se > 0 ? Math.min(0.5, Math.max(1e-6, (ctx.cutoff * se) / 4)) : 0.1;
 
