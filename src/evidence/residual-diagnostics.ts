@@ -8,7 +8,8 @@
  *  - Trend of the weighted residuals against [S], [I] and the fitted rate (Spearman; src/stats/).
  *  - Lack-of-fit F test, pure error against lack of fit, where replicates exist
  *    (Draper, N. R. and Smith, H. (1998) Applied Regression Analysis, 3rd ed., sec. 2.1).
- *  - Shapiro-Wilk test of the internally studentised residuals (Royston, P. (1995) Appl. Stat. 44, 547-551).
+ *  - Shapiro-Wilk test of the internally studentised residuals (Royston, P. (1995) Appl. Stat. 44,
+ *    547-551), for 3 to 5000 residuals (the range of Royston's approximation); null outside it.
  *  - Suspect points: externally studentised residual beyond 3 in absolute value (about 0.3% of
  *    points under a correct Gaussian model; common practice), and high leverage h > 3p/n
  *    (Belsley, Kuh and Welsch (1980) Regression Diagnostics, Wiley, use 2p/n; 3p/n is the
@@ -92,7 +93,9 @@ export function residualDiagnostics(fit: MechanismFit, data: FitData): ResidualD
     : { internal: new Float64Array(n).fill(NaN), external: new Float64Array(n).fill(NaN) };
   const finiteInternal = Array.from(stud.internal).filter(Number.isFinite);
   let normality: ShapiroWilkResult | null = null;
-  if (finiteInternal.length >= 3 && Math.max(...finiteInternal) > Math.min(...finiteInternal)) normality = shapiroWilk(finiteInternal);
+  // Royston's approximation covers 3 <= n <= 5000; larger tables are not tested for normality
+  if (finiteInternal.length >= 3 && finiteInternal.length <= 5000 && Math.max(...finiteInternal) > Math.min(...finiteInternal))
+    normality = shapiroWilk(finiteInternal);
 
   const suspects: SuspectPoint[] = [];
   const leverageLimit = (LEVERAGE_FACTOR * fit.p) / n;

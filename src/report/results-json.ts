@@ -104,6 +104,9 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       layout: input.layout,
       separator: input.separator === '\t' ? 'tab' : input.separator,
       decimalMark: input.decimalMark,
+      detection: result.table.detection
+        ? { layout: result.table.detection.layout, separator: result.table.detection.separator, decimalMark: result.table.detection.decimalMark }
+        : null,
       units: { substrate: input.units.substrate, inhibitor: input.units.inhibitor, rate: input.units.rate },
       warnings: input.warnings.map((w) => ({ code: w.code, message: w.message })),
     },

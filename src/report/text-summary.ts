@@ -2,6 +2,7 @@
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
+import { describeTable } from '../input/describe-table.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -82,9 +83,8 @@ export function textSummary(result: AnalysisResult): string {
   const v = result.verdict;
   const best = result.models.find((m) => m.mechanism === v.mechanism) ?? result.models[0];
   const lines: string[] = [];
-  lines.push(
-    `${inp.source}${inp.compound !== undefined ? ` [compound ${inp.compound}]` : ''}: ${inp.rowsUsed} of ${inp.rowsRead} rows used, error model ${result.errorModel}`,
-  );
+  lines.push(result.table.detection ? describeTable(result.table) : `${inp.source}: ${inp.rowsRead} read, ${inp.rowsUsed} used`);
+  lines.push(`Error model: ${result.errorModel}${result.errorModelChoice?.automatic ? ' (chosen automatically)' : ''}; intervals at ${Math.round(result.level * 100)}%`);
   lines.push('');
   lines.push(`Verdict: ${v.headline} (${v.decisive ? 'decisive' : 'not decisive'})`);
   for (const r of v.reasons) lines.push(`  - ${r}`);

@@ -14,6 +14,7 @@ export function tableOf(points: RatePoint[], source = 'simulated'): RateTable {
     decimalMark: '.',
     units: { substrate: 'uM', inhibitor: 'uM', rate: null },
     hasSd: false,
+    detection: { layout: 'option', separator: 'option', decimalMark: 'option' },
   };
 }
 
