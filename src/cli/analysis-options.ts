@@ -14,6 +14,8 @@ export interface SharedCliOptions {
   error?: string;
   level?: string;
   layout?: string;
+  separator?: string;
+  decimalMark?: string;
   substrateUnit?: string;
   inhibitorUnit?: string;
   rateUnit?: string;
@@ -33,6 +35,8 @@ export function addSharedOptions(cmd: Command): Command {
     .option('--robust', 'add a bounded-influence (bisquare) refit and say whether the call depends on a few points')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--layout <kind>', 'table layout: long | matrix (default: detected)')
+    .option('--separator <name>', 'field separator: comma | tab | semicolon (default: detected)')
+    .option('--decimal-mark <name>', 'decimal mark: point | comma (default: detected)')
     .option('--substrate-unit <unit>', 'unit of [S] in the file (M, mM, uM, nM, pM); overrides the header')
     .option('--inhibitor-unit <unit>', 'unit of [I] in the file; overrides the header')
     .option('--rate-unit <text>', 'unit of the rates, as text; overrides the header')
@@ -49,6 +53,16 @@ export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
   if (o.layout !== undefined) {
     if (o.layout !== 'long' && o.layout !== 'matrix') throw new UsageError(`option --layout: "${o.layout}" is not long or matrix`);
     parse.layout = o.layout;
+  }
+  if (o.separator !== undefined) {
+    const sep = ({ comma: ',', tab: '\t', semicolon: ';' } as const)[o.separator as 'comma' | 'tab' | 'semicolon'];
+    if (!sep) throw new UsageError(`option --separator: "${o.separator}" is not comma, tab or semicolon`);
+    parse.separator = sep;
+  }
+  if (o.decimalMark !== undefined) {
+    const mark = ({ point: '.', comma: ',' } as const)[o.decimalMark as 'point' | 'comma'];
+    if (!mark) throw new UsageError(`option --decimal-mark: "${o.decimalMark}" is not point or comma`);
+    parse.decimalMark = mark;
   }
   if (o.substrateUnit) parse.substrateUnit = unitOption('--substrate-unit', o.substrateUnit);
   if (o.inhibitorUnit) parse.inhibitorUnit = unitOption('--inhibitor-unit', o.inhibitorUnit);
