@@ -35,15 +35,16 @@ export interface LayoutContext {
 export function readConcentrationCell(
   cell: string,
   what: 'substrate' | 'inhibitor',
-  place: Place,
+  line: number,
+  column: number,
   context: LayoutContext,
 ): number | string {
   const read = readNumberCell(cell, context.decimalMark);
   if (typeof read !== 'number') return problemReason(read, cell, what, context);
   if (read < 0) {
     throw new InputError(
-      `${locate(context.source, place)}negative ${what} concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
-      context.source, place.line, place.column,
+      `${locate(context.source, { line, column })}negative ${what} concentration ${quoteText(cell.trim())}; concentrations cannot be below zero, correct the value`,
+      context.source, line, column,
     );
   }
   return read;

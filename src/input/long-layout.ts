@@ -153,51 +153,50 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
 function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, compound: string | undefined): RatePoint | Exclusion {
   const { source } = context;
   const col = plan.known;
-  const cell = (index: number | undefined): string => cellAt(row, index);
-  const exclusion = (index: number, reason: string): Exclusion => ({ line: row.line, column: index + 1, reason });
 
   if (col.exclude !== undefined) {
-    const flag = readExcludeFlag(cell(col.exclude));
+    const flag = readExcludeFlag(cellAt(row, col.exclude));
     if (flag === null) {
       const place = { line: row.line, column: col.exclude + 1 };
       throw new InputError(
-        `${locate(source, place)}exclude value ${quoteText(cell(col.exclude).trim())} not understood; write yes to leave the row out (${EXCLUDE_YES_WORDS}) or leave it blank`,
+        `${locate(source, place)}exclude value ${quoteText(cellAt(row, col.exclude).trim())} not understood; write yes to leave the row out (${EXCLUDE_YES_WORDS}) or leave it blank`,
         source, place.line, place.column,
       );
     }
-    if (flag) return exclusion(col.exclude, `flagged in the exclude column (${quoteText(cell(col.exclude).trim())})`);
+    if (flag) return excludeCell(row, col.exclude, `flagged in the exclude column (${quoteText(cellAt(row, col.exclude).trim())})`);
   }
 
-  const substrate = readConcentrationCell(cell(col.substrate), 'substrate', { line: row.line, column: col.substrate! + 1 }, context);
-  const inhibitor = readConcentrationCell(cell(col.inhibitor), 'inhibitor', { line: row.line, column: col.inhibitor! + 1 }, context);
-  const rate = readRateCell(cell(col.rate), 'rate', context);
+  const substrate = readConcentrationCell(cellAt(row, col.substrate), 'substrate', row.line, col.substrate! + 1, context);
+  const inhibitor = readConcentrationCell(cellAt(row, col.inhibitor), 'inhibitor', row.line, col.inhibitor! + 1, context);
+  const rate = readRateCell(cellAt(row, col.rate), 'rate', context);
 
   const extra = firstFilledCellFrom(row, plan.width);
   if (extra >= 0) {
-    return exclusion(
+    return excludeCell(
+      row,
       extra,
       `row has ${row.cells.length} cells but the header has ${plan.width} columns (an unquoted separator inside a value?)`,
     );
   }
-  if (typeof substrate === 'string') return exclusion(col.substrate!, substrate);
-  if (typeof inhibitor === 'string') return exclusion(col.inhibitor!, inhibitor);
-  if (typeof rate === 'string') return exclusion(col.rate!, rate);
-  if (substrate === 0) return exclusion(col.substrate!, ZERO_SUBSTRATE_REASON);
+  if (typeof substrate === 'string') return excludeCell(row, col.substrate!, substrate);
+  if (typeof inhibitor === 'string') return excludeCell(row, col.inhibitor!, inhibitor);
+  if (typeof rate === 'string') return excludeCell(row, col.rate!, rate);
+  if (substrate === 0) return excludeCell(row, col.substrate!, ZERO_SUBSTRATE_REASON);
 
   const point: RatePoint = { line: row.line, substrate, inhibitor, rate };
-  if (col.sd !== undefined && cell(col.sd).trim() !== '') {
-    const sd = readRateCell(cell(col.sd), 'sd', context);
-    if (typeof sd === 'string') return exclusion(col.sd, sd);
-    if (sd <= 0) return exclusion(col.sd, `sd ${quoteText(cell(col.sd).trim())} is not above zero; a standard deviation must be positive`);
+  if (col.sd !== undefined && cellAt(row, col.sd).trim() !== '') {
+    const sd = readRateCell(cellAt(row, col.sd), 'sd', context);
+    if (typeof sd === 'string') return excludeCell(row, col.sd, sd);
+    if (sd <= 0) return excludeCell(row, col.sd, `sd ${quoteText(cellAt(row, col.sd).trim())} is not above zero; a standard deviation must be positive`);
     point.sd = sd;
   }
   if (compound !== undefined) point.compound = compound;
-  const replicate = cell(col.replicate).trim();
+  const replicate = cellAt(row, col.replicate).trim();
   if (replicate !== '') point.replicate = replicate;
-  const well = cell(col.well).trim();
+  const well = cellAt(row, col.well).trim();
   if (well !== '') point.well = well;
   for (const { index, label } of plan.annotations) {
-    const value = cell(index).trim();
+    const value = cellAt(row, index).trim();
     if (value === '') continue;
     point.annotations ??= {};
     point.annotations[label] = value;
@@ -213,4 +212,8 @@ function cellAt(row: TextRow, index: number | undefined): string {
 function firstFilledCellFrom(row: TextRow, start: number): number {
   for (let index = start; index < row.cells.length; index++) if (row.cells[index].trim() !== '') return index;
   return -1;
+}
+
+function excludeCell(row: TextRow, index: number, reason: string): Exclusion {
+  return { line: row.line, column: index + 1, reason };
 }

@@ -214,7 +214,7 @@ export function readMatrixLayout(rows: TextRow[], context: LayoutContext): Layou
           source, at.line, at.column,
         );
       }
-      const substrate = readConcentrationCell(row.cells[0] ?? '', 'substrate', { line: row.line, column: 1 }, context);
+      const substrate = readConcentrationCell(row.cells[0] ?? '', 'substrate', row.line, 1, context);
       columns.forEach((inhibitor, offset) => {
         if (inhibitor === null) return; // an unnamed column with no data anywhere
         const column = offset + 2;
