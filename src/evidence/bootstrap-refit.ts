@@ -5,9 +5,11 @@
  * - only warm starts (the original solution, and for mixed the refitted nested models);
  * - the first weights come from the rates predicted by the first start, not from the observed rates,
  *   so iteratively reweighted fits start next to their fixed point;
- * - Levenberg-Marquardt tolerances of 1e-10 and reweighting until the weights change by less than
- *   1e-8 (relative), instead of the main fit's limits at machine precision. The refitted estimates
- *   differ from fully converged ones by far less than their bootstrap spread.
+ * - Levenberg-Marquardt tolerances of 1e-7 in the reweighting passes and 1e-10 in the last one,
+ *   which runs once the weights change by less than 1e-7 (relative), instead of the main fit's
+ *   limits at machine precision. The refitted estimates differ from fully converged ones by at most
+ *   3e-8 relative (measured against fitMechanism on 29 simulated 120-point datasets, proportional
+ *   error, all five models), far below their bootstrap spread.
  */
 import type { MechanismModel } from '../models/types.js';
 import type { FitData } from '../fit/fit-data.js';
@@ -25,8 +27,10 @@ export interface Refit {
 }
 
 const REFIT_TOLERANCES = { ftol: 1e-10, xtol: 1e-10, gtol: 1e-12 };
+/** looser tolerances for the reweighting passes before the last */
+const PASS_TOLERANCES = { ftol: 1e-7, xtol: 1e-7, gtol: 1e-10 };
 const MAX_REWEIGHT_PASSES = 40;
-const WEIGHT_CHANGE = 1e-8;
+const WEIGHT_CHANGE = 1e-7;
 
 function predict(model: MechanismModel, params: ArrayLike<number>, data: FitData, out: Float64Array): Float64Array {
   for (let k = 0; k < out.length; k++) out[k] = model.rate(params, data.s[k], data.i[k]);
@@ -61,8 +65,9 @@ export function refitFromStarts(model: MechanismModel, data: FitData, errorModel
       setWeights(predict(model, best.x.map(Math.exp), data, fitted));
       let change = 0;
       for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(weights[k] - previous[k]) / previous[k]);
-      best = levenbergMarquardt(problem, best.x, REFIT_TOLERANCES);
-      if (change < WEIGHT_CHANGE) break;
+      const last = change < WEIGHT_CHANGE;
+      best = levenbergMarquardt(problem, best.x, last ? REFIT_TOLERANCES : PASS_TOLERANCES);
+      if (last) break;
     }
   }
   const params = best.x.map(Math.exp);
