@@ -1,6 +1,6 @@
 /** Line keys and drawing helpers for global-fit model lines (best solid, runner-up dashed). */
 import * as d3 from 'd3';
-import type { Group } from './svg-document.js';
+import { appendRawLayer, type Group } from './svg-document.js';
 import type { FigureContext } from './figure-context.js';
 import type { LegendItem } from './legend.js';
 import { INK } from './palette.js';
@@ -40,7 +40,7 @@ export function drawPolyline(
     .attr('stroke-linejoin', 'round');
 }
 
-/** Markers for points (data coordinates), series index k per point. */
+/** Markers for points (data coordinates), series index k per point (written as raw markup, see svg-document.ts). */
 export function drawMarkers(
   g: Group,
   px: ArrayLike<number>,
@@ -50,18 +50,13 @@ export function drawMarkers(
   x: NumericScale,
   y: NumericScale,
 ): void {
-  const layer = g.append('g').attr('class', 'points');
+  const parts: string[] = [];
   for (let k = 0; k < px.length; k++) {
     if (!Number.isFinite(px[k]) || !Number.isFinite(py[k])) continue;
     const s = series[k];
-    layer
-      .append('path')
-      .attr('d', markerPath(s))
-      .attr('transform', markerTransform(s, x(px[k]), y(py[k])))
-      .attr('fill', colours[s])
-      .attr('stroke', INK.text)
-      .attr('stroke-width', 0.4);
+    parts.push(`<path d="${markerPath(s)}" transform="${markerTransform(s, x(px[k]), y(py[k]))}" fill="${colours[s]}" stroke="${INK.text}" stroke-width="0.4"></path>`);
   }
+  appendRawLayer(g, 'points', parts.join(''));
 }
 
 /** n + 1 points evenly spaced (or geometrically, for log axes) from a to b. */

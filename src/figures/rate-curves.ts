@@ -38,7 +38,7 @@ export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): Fig
     title,
     desc,
     x: { title: withUnit('[S]', ctx.units.substrate), domain: xDomain, kind: logSubstrate ? 'log' : 'linear' },
-    y: { title: withUnit('v', ctx.units.rate), domain: yDomain },
+    y: { title: withUnit('v', ctx.units.rate), domain: yDomain, nice: true },
     seriesHeading: '[I]',
     series: inhibitorSeriesKey(ctx),
     lines: modelLineKey(ctx, true),

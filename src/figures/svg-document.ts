@@ -36,8 +36,32 @@ export function createSvg(spec: { id: string; width: number; height: number; tit
   return svg;
 }
 
-/** Serialises a finished figure as standalone SVG markup (XML; text and attributes escaped). */
+/**
+ * Markup of many small, uniform elements (the data markers) is written as text rather than built
+ * node by node: jsdom spends most of a figure's time creating and serialising elements. The
+ * parent gets an empty placeholder group; serialiseSvg swaps in the text. Only numbers and fixed
+ * colour and class names go into such markup (callers must not pass user text).
+ */
+const rawLayers = new Map<string, string>();
+let rawCounter = 0;
+
+export function appendRawLayer(parent: d3.Selection<SVGGElement, unknown, null, undefined>, className: string, markup: string): void {
+  const key = `raw${++rawCounter}`;
+  rawLayers.set(key, markup);
+  parent.append('g').attr('class', className).attr('data-raw', key);
+}
+
+/**
+ * Serialises a finished figure as standalone SVG markup. The HTML serialiser of jsdom is used
+ * (several times faster than XMLSerializer); for SVG content it writes well-formed XML as long as
+ * no attribute value holds '<' (none does: user text only ever goes into text nodes, which are
+ * escaped), and the root carries its xmlns attribute explicitly (createSvg).
+ */
 export function serialiseSvg(svg: Svg): string {
-  const window = sharedDom().window;
-  return new window.XMLSerializer().serializeToString(svg.node() as Node);
+  const markup = (svg.node() as SVGSVGElement).outerHTML;
+  return markup.replace(/<g class="([a-z-]+)" data-raw="(raw\d+)"><\/g>/g, (_m, cls: string, key: string) => {
+    const inner = rawLayers.get(key) ?? '';
+    rawLayers.delete(key);
+    return `<g class="${cls}">${inner}</g>`;
+  });
 }

@@ -22,7 +22,8 @@ export function provenanceFooter(result: AnalysisResult, provenance: ReportProve
     ['mechanisms compared', result.models.map((m) => m.mechanism).join(', ')],
     ...Object.entries(provenance.options ?? {}),
   ];
-  const seed = provenance.seed === undefined || provenance.seed === null ? 'none used (no random resampling in this analysis)' : String(provenance.seed);
+  const given = provenance.seed ?? result.bootstrap?.seed ?? null;
+  const seed = given === null ? 'none used (no random resampling in this analysis)' : `${given}${result.bootstrap ? ` (bootstrap, ${result.bootstrap.resamples} resamples)` : ''}`;
   const rows: Array<[string, string]> = [
     ['tool', `${TOOL_NAME} ${TOOL_VERSION}`],
     ...(provenance.command ? ([['command', provenance.command]] as Array<[string, string]>) : []),
