@@ -163,7 +163,7 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, com
         source, place.line, place.column,
       );
     }
-    if (flag) return excludeCell(row, col.exclude, `flagged in the exclude column (${quoteText(cellAt(row, col.exclude).trim())})`);
+    if (flag) return excludeCell(row, col, col.exclude, `flagged in the exclude column (${quoteText(cellAt(row, col.exclude).trim())})`);
   }
 
   const substrate = readConcentrationCell(cellAt(row, col.substrate), 'substrate', row.line, col.substrate! + 1, context);
@@ -174,20 +174,21 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, com
   if (extra >= 0) {
     return excludeCell(
       row,
+      col,
       extra,
       `row has ${row.cells.length} cells but the header has ${plan.width} columns (an unquoted separator inside a value?)`,
     );
   }
-  if (typeof substrate === 'string') return excludeCell(row, col.substrate!, substrate);
-  if (typeof inhibitor === 'string') return excludeCell(row, col.inhibitor!, inhibitor);
-  if (typeof rate === 'string') return excludeCell(row, col.rate!, rate);
-  if (substrate === 0) return excludeCell(row, col.substrate!, ZERO_SUBSTRATE_REASON);
+  if (typeof substrate === 'string') return excludeCell(row, col, col.substrate!, substrate);
+  if (typeof inhibitor === 'string') return excludeCell(row, col, col.inhibitor!, inhibitor);
+  if (typeof rate === 'string') return excludeCell(row, col, col.rate!, rate);
+  if (substrate === 0) return excludeCell(row, col, col.substrate!, ZERO_SUBSTRATE_REASON);
 
   const point: RatePoint = { line: row.line, substrate, inhibitor, rate };
   if (col.sd !== undefined && cellAt(row, col.sd).trim() !== '') {
     const sd = readRateCell(cellAt(row, col.sd), 'sd', context);
-    if (typeof sd === 'string') return excludeCell(row, col.sd, sd);
-    if (sd <= 0) return excludeCell(row, col.sd, `sd ${quoteText(cellAt(row, col.sd).trim())} is not above zero; a standard deviation must be positive`);
+    if (typeof sd === 'string') return excludeCell(row, col, col.sd, sd);
+    if (sd <= 0) return excludeCell(row, col, col.sd, `sd ${quoteText(cellAt(row, col.sd).trim())} is not above zero; a standard deviation must be positive`);
     point.sd = sd;
   }
   if (compound !== undefined) point.compound = compound;
@@ -214,6 +215,12 @@ function firstFilledCellFrom(row: TextRow, start: number): number {
   return -1;
 }
 
-function excludeCell(row: TextRow, index: number, reason: string): Exclusion {
-  return { line: row.line, column: index + 1, reason };
+/** The exclusion of a row, with its [S], [I] and rate cells as written. */
+function excludeCell(row: TextRow, col: ColumnPlan['known'], index: number, reason: string): Exclusion {
+  return {
+    line: row.line,
+    column: index + 1,
+    reason,
+    asWritten: { substrate: cellAt(row, col.substrate), inhibitor: cellAt(row, col.inhibitor), rate: cellAt(row, col.rate) },
+  };
 }

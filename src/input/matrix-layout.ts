@@ -18,7 +18,7 @@
  *
  * rowsRead counts data cells: (number of [I] columns) x (number of data rows) in each block.
  */
-import { InputError, type ConcentrationUnit } from './types.js';
+import { InputError, type ConcentrationUnit, type Exclusion } from './types.js';
 import { locate, quoteText, type Place } from './messages.js';
 import { isBlankRow, type TextRow } from './tokenize.js';
 import { splitHeaderName } from './header.js';
@@ -169,6 +169,11 @@ function inhibitorColumns(block: Block, context: LayoutContext): (number | null)
   return values;
 }
 
+/** A matrix cell's [S] (its row), [I] (its column header) and rate, as written; for exclusions. */
+function cellAsWritten(row: TextRow, header: TextRow, index: number): Exclusion['asWritten'] {
+  return { substrate: row.cells[0] ?? '', inhibitor: header.cells[index] ?? '', rate: row.cells[index] ?? '' };
+}
+
 export function readMatrixLayout(rows: TextRow[], context: LayoutContext): LayoutResult {
   const { source } = context;
   const blocks = splitBlocks(rows, source);
@@ -220,19 +225,19 @@ export function readMatrixLayout(rows: TextRow[], context: LayoutContext): Layou
         const column = offset + 2;
         group!.rowsRead++;
         if (typeof substrate === 'string') {
-          group!.excluded.push({ line: row.line, column, reason: `${substrate} (column 1)` });
+          group!.excluded.push({ line: row.line, column, reason: `${substrate} (column 1)`, asWritten: cellAsWritten(row, block.header, offset + 1) });
           return;
         }
         const pairKey = `${substrate}|${inhibitor}`;
         const replicate = (counts.get(pairKey) ?? 0) + 1;
         counts.set(pairKey, replicate);
         if (substrate === 0) {
-          group!.excluded.push({ line: row.line, column, reason: ZERO_SUBSTRATE_REASON });
+          group!.excluded.push({ line: row.line, column, reason: ZERO_SUBSTRATE_REASON, asWritten: cellAsWritten(row, block.header, offset + 1) });
           return;
         }
         const rate = readRateCell(row.cells[offset + 1] ?? '', 'rate', context);
         if (typeof rate === 'string') {
-          group!.excluded.push({ line: row.line, column, reason: rate });
+          group!.excluded.push({ line: row.line, column, reason: rate, asWritten: cellAsWritten(row, block.header, offset + 1) });
           return;
         }
         const point = { line: row.line, substrate, inhibitor, rate, replicate: String(replicate) };

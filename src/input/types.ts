@@ -27,6 +27,12 @@ export interface Exclusion {
   line: number;
   column?: number;
   reason: string;
+  /**
+   * The [S], [I] and rate of the excluded row as written in the file (untrimmed cell text; '' for
+   * a blank cell), so a report can show what was left out. For a matrix cell: the [S] of its row,
+   * the [I] of its column header and the cell itself.
+   */
+  asWritten?: { substrate: string; inhibitor: string; rate: string };
 }
 
 /** A finding that does not stop the analysis. */

@@ -11,7 +11,7 @@ const accounted = (t: RateTable): boolean => t.points.length + t.excluded.length
 describe('exclusions', () => {
   it('blank and non-numeric cells', () => {
     const [t] = readFixture('blank-and-text-cells.csv');
-    expect(t.excluded).toEqual([
+    expect(t.excluded).toMatchObject([
       { line: 8, column: 1, reason: 'substrate is blank' },
       { line: 9, column: 2, reason: 'inhibitor is blank' },
       { line: 10, column: 3, reason: 'rate "about 2" is not a number' },
@@ -23,7 +23,7 @@ describe('exclusions', () => {
 
   it('infinite values (written as Inf, infinity, or too large for a double)', () => {
     const [t] = readFixture('infinite-values.csv');
-    expect(t.excluded).toEqual([
+    expect(t.excluded).toMatchObject([
       { line: 8, column: 3, reason: 'rate is infinite ("Inf")' },
       { line: 9, column: 3, reason: 'rate is infinite ("1e999")' },
       { line: 10, column: 2, reason: 'inhibitor is infinite ("infinity")' },
@@ -33,7 +33,7 @@ describe('exclusions', () => {
 
   it('rows flagged in the exclude column; no/0/blank keep the row', () => {
     const [t] = readFixture('exclude-flag.csv');
-    expect(t.excluded).toEqual(
+    expect(t.excluded).toMatchObject(
       ['yes', 'X', 'TRUE', '1', 'excluded'].map((flag, k) => ({ line: 8 + k, column: 4, reason: `flagged in the exclude column ("${flag}")` })),
     );
     expect(t.points.map((p) => p.line)).toEqual([2, 3, 4, 5, 6, 7]);
@@ -43,7 +43,7 @@ describe('exclusions', () => {
   it('[S] = 0 rows are blanks, not points on the curve', () => {
     const [t] = readFixture('zero-substrate.csv');
     const reason = '[S] = 0: a rate without substrate is a blank (background), not a point on the curve';
-    expect(t.excluded).toEqual([
+    expect(t.excluded).toMatchObject([
       { line: 2, column: 1, reason },
       { line: 3, column: 1, reason },
     ]);
@@ -53,14 +53,14 @@ describe('exclusions', () => {
 
   it('a row with more cells than the header has columns', () => {
     const [t] = readFixture('extra-cells.csv');
-    expect(t.excluded).toEqual([
+    expect(t.excluded).toMatchObject([
       { line: 8, column: 4, reason: 'row has 4 cells but the header has 3 columns (an unquoted separator inside a value?)' },
     ]);
   });
 
   it('a zero sd is excluded, a blank sd keeps the point without sd and warns', () => {
     const [t] = readFixture('sd-column.csv');
-    expect(t.excluded).toEqual([{ line: 8, column: 4, reason: 'sd "0" is not above zero; a standard deviation must be positive' }]);
+    expect(t.excluded).toMatchObject([{ line: 8, column: 4, reason: 'sd "0" is not above zero; a standard deviation must be positive' }]);
     expect(t.points.find((p) => p.line === 7)?.sd).toBeUndefined();
     expect(t.points.find((p) => p.line === 2)?.sd).toBe(0.05);
     expect(t.hasSd).toBe(false);
@@ -75,7 +75,7 @@ describe('exclusions', () => {
     const [t] = readFixture('matrix-replicate-columns.csv');
     const zero = '[S] = 0: a rate without substrate is a blank (background), not a point on the curve';
     expect(t.rowsRead).toBe(16); // 4 data rows x 4 [I] columns
-    expect(t.excluded).toEqual([
+    expect(t.excluded).toMatchObject([
       { line: 3, column: 5, reason: 'rate is blank' },
       { line: 4, column: 2, reason: zero },
       { line: 4, column: 3, reason: zero },
@@ -86,11 +86,24 @@ describe('exclusions', () => {
     expect(t.points).toHaveLength(10);
   });
 
+  it('each exclusion carries the [S], [I] and rate of its row (or matrix cell) as written', () => {
+    const [long] = readFixture('blank-and-text-cells.csv');
+    expect(long.excluded.map((x) => x.asWritten)).toEqual([
+      { substrate: '', inhibitor: '0', rate: '1.2' },
+      { substrate: '8', inhibitor: '', rate: '2.5' },
+      { substrate: '8', inhibitor: '10', rate: 'about 2' },
+      { substrate: '8', inhibitor: '10', rate: '' },
+    ]);
+    const [matrix] = readFixture('matrix-replicate-columns.csv');
+    expect(matrix.excluded.find((x) => x.line === 5)?.asWritten).toEqual({ substrate: '4', inhibitor: '10', rate: 'x' });
+    expect(matrix.excluded.find((x) => x.line === 4 && x.column === 3)?.asWritten).toEqual({ substrate: '0', inhibitor: '0', rate: '0.01' });
+  });
+
   it('a decimal point in a decimal-comma file is excluded with a hint', () => {
     const text = 'substrate;inhibitor;rate\n1;0;1,0\n2;0;1,6\n4;0;2,2\n1;10;0,6\n2;10;1,1\n4;10;1.7\n';
     const [t] = readFixtureText(text);
     expect(t.decimalMark).toBe(',');
-    expect(t.excluded).toEqual([{ line: 7, column: 3, reason: 'rate "1.7" is not a number (this file is read with decimal commas)' }]);
+    expect(t.excluded).toMatchObject([{ line: 7, column: 3, reason: 'rate "1.7" is not a number (this file is read with decimal commas)' }]);
   });
 });
 

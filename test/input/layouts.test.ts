@@ -33,7 +33,7 @@ describe('long layout', () => {
     const reference = sortedPoints(example('long.csv')[0]);
     expect(sortedPoints(example('long-semicolon.csv')[0])).toEqual(reference);
     const [tsv] = example('long.tsv'); // one row flagged in the exclude column
-    expect(tsv.excluded).toEqual([{ line: 9, column: 5, reason: 'flagged in the exclude column ("yes")' }]);
+    expect(tsv.excluded).toMatchObject([{ line: 9, column: 5, reason: 'flagged in the exclude column ("yes")' }]);
     expect(sortedPoints(tsv)).toHaveLength(59);
   });
 });
