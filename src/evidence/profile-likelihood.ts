@@ -30,6 +30,7 @@ import type { ProfileCurve } from '../analysis/types.js';
 import { findRoot } from './find-root.js';
 import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
 import { profileSupport, type ProfileSupport } from './profile-support.js';
+import { DETECTION_FACTOR } from './detection-bound.js';
 
 export interface ParameterProfile {
   name: ProfiledName;
@@ -125,16 +126,35 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
   const armIndices = fit.model.params.flatMap((p, j) => (p === 'Ki' || p === 'Kiu' ? [j] : []));
   const theta = new Float64Array(q.m);
   const armOff = (z: Float64Array, c: number) => armIndices.some((j) => fullTheta(q, z, c, theta)[j] > support.lnDetectionBound);
+  const lnMaxInhibitor = support.lnDetectionBound - Math.log(DETECTION_FACTOR);
+  const reentryStarts = (z: Float64Array, c: number, zStart: Float64Array): Float64Array[] => {
+    const starts: Float64Array[] = zStart !== zHat ? [zHat] : [];
+    fullTheta(q, z, c, theta);
+    for (const j of armIndices) {
+      const f = q.freeIndex[j];
+      if (f < 0 || q.fixedCoefficient[j] !== 0 || !(theta[j] > support.lnDetectionBound)) continue;
+      for (const value of [support.lnDetectionBound, lnMaxInhibitor]) {
+        const start = Float64Array.from(z);
+        start[f] = value;
+        starts.push(start);
+      }
+    }
+    return starts;
+  };
   const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
     fixed.value = c;
     let r = levenbergMarquardt(problem, zStart);
     evaluations++;
-    // An arm past the detection bound sits on a flat ridge where a warm start can stall: also try
-    // from the estimate's free parameters and keep the lower SSE.
-    if (armOff(r.x, c) && zStart !== zHat) {
-      const fromEstimate = levenbergMarquardt(problem, zHat);
-      evaluations++;
-      if (fromEstimate.sse < r.sse) r = fromEstimate;
+    // An arm past the detection bound sits on a flat ridge where LM cannot feel whether bringing it
+    // back would help: also start from the estimate's free parameters, and from the warm start with
+    // each such arm pulled back to the detection bound and to the highest [I] tested; keep the
+    // lowest SSE.
+    if (armOff(r.x, c)) {
+      for (const z of reentryStarts(r.x, c, zStart)) {
+        const other = levenbergMarquardt(problem, z);
+        evaluations++;
+        if (other.sse < r.sse) r = other;
+      }
     }
     const increase = r.sse - fit.sse;
     if (increase < -1e-9 * fit.sse) lowerSseSeen = true;
