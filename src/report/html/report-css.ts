@@ -50,6 +50,10 @@ th { background: var(--panel); font-weight: bold; border-bottom: 1px solid #b9c0
 td.num, th.num { text-align: right; white-space: nowrap; }
 td.undetected { color: var(--open); font-style: italic; }
 td.excluded-row { color: var(--open); }
+td.num.as-written { white-space: normal; overflow-wrap: anywhere; max-width: 18ch; }
+td.warn { color: var(--open); font-weight: bold; }
+p.formula { max-width: 85ch; }
+p.formula code { white-space: normal; overflow-wrap: anywhere; }
 .warn { color: var(--open); }
 ul.warnings li { margin: 4px 0; }
 ul.warnings .code { font-family: "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: 12px; background: #fff3dc; color: #6b4300; padding: 1px 5px; border-radius: 2px; margin-right: 4px; }

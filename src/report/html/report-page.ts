@@ -1,7 +1,8 @@
 /**
  * The report page: one self-contained HTML file (inline CSS and SVG, no script, no external
- * fetch). Order: verdict beside the primary plot, the constants, the fit and its residuals, the
- * comparison of mechanisms, warnings, uncertainty, replots, data, methods, cautions, footer.
+ * fetch). Order: verdict beside the primary plot, the constants, the quantities derived from them,
+ * the fit and its residuals, the checks on the fit, the comparison of mechanisms, warnings,
+ * uncertainty, replots, data, methods, cautions, footer.
  */
 import type { AnalysisResult } from '../../analysis/types.js';
 import type { FigureOutput } from '../../figures/figure-output.js';
@@ -18,6 +19,8 @@ import { methodsSection } from './sections/methods-section.js';
 import { cautionsSection } from './sections/cautions-section.js';
 import { provenanceFooter } from './sections/provenance-footer.js';
 import { figureBlock } from './sections/figure-block.js';
+import { derivedSection } from './sections/derived-section.js';
+import { fitChecksSection } from './sections/fit-checks-section.js';
 
 export interface ReportInput {
   result: AnalysisResult;
@@ -40,11 +43,14 @@ export function reportHtml(input: ReportInput): string {
   const fitFigures = figures.filter((f) => f.group === 'fit' && f !== primary);
   const uncertainty = figures.filter((f) => f.group === 'uncertainty');
   const replots = figures.filter((f) => f.group === 'replot');
+  const derived = derivedSection(result);
   const name = result.input.compound !== undefined ? `compound ${result.input.compound}` : result.input.source;
   const sections: Array<[string, string]> = [
     ['verdict', 'Verdict'],
     ['constants', 'Constants'],
+    ...(derived ? ([['derived', 'Derived']] as Array<[string, string]>) : []),
     ['fit', 'Fit and residuals'],
+    ['checks', 'Checks'],
     ['comparison', 'Mechanisms compared'],
     ['warnings', 'Warnings'],
     ...(uncertainty.length ? ([['uncertainty', 'Uncertainty']] as Array<[string, string]>) : []),
@@ -76,10 +82,12 @@ ${verdictSection(result)}
 ${primary ? figureBlock(primary, 'primary') : ''}
 </div>
 ${parametersSection(result)}
+${derived}
 <section id="fit">
 <h2>Fit and residuals</h2>
 ${grid(fitFigures)}
 </section>
+${fitChecksSection(result)}
 ${comparisonSection(result, evidence ? figureBlock(evidence) : '')}
 ${warningsSection(result)}
 ${uncertainty.length ? `<section id="uncertainty">\n<h2>Uncertainty</h2>\n${grid(uncertainty)}\n</section>` : ''}

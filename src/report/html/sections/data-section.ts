@@ -1,13 +1,23 @@
 /**
- * The data: every excluded row with its reason (always shown), then the full table of the file's
- * rows in line order, with the fitted rate and scaled residual of the drawn model.
+ * The data: every excluded row with its reason and its values as written in the file (always
+ * shown), then the full table of the file's rows in line order, with the fitted rate and scaled
+ * residual of the drawn model.
  */
 import type { AnalysisResult } from '../../../analysis/types.js';
 import { escapeHtml } from '../escape.js';
 import { sig } from '../../format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
+import type { Exclusion } from '../../../input/types.js';
 import { displayUnit } from '../../../figures/axis-units.js';
 import { drawnModel } from '../../../figures/figure-context.js';
+
+/** A cell of an excluded row as written in the file: its text, "blank", or "–" when not recorded. */
+function writtenCell(x: Exclusion, quantity: 'substrate' | 'inhibitor' | 'rate'): Cell {
+  const text = x.asWritten?.[quantity];
+  if (text === undefined) return cell('–', true);
+  const shown = text.trim();
+  return shown === '' ? cell('<span class="muted">blank</span>', true) : cell(escapeHtml(shown), true, 'as-written');
+}
 
 export function dataSection(result: AnalysisResult): string {
   const u = result.input.units;
@@ -22,8 +32,17 @@ export function dataSection(result: AnalysisResult): string {
   const excluded = result.input.excluded;
   const excludedTable = excluded.length
     ? htmlTable(
-        [cell('line', true), cell('column', true), cell('reason')],
-        [...excluded].sort((a, b) => a.line - b.line).map((x) => [cell(String(x.line), true), cell(x.column !== undefined ? String(x.column) : '–', true), cell(escapeHtml(x.reason))]),
+        [cell('line', true), cell('column', true), cell(head('[S]', su), true), cell(head('[I]', iu), true), cell(head('v', vu), true), cell('reason')],
+        [...excluded]
+          .sort((a, b) => a.line - b.line || (a.column ?? 0) - (b.column ?? 0))
+          .map((x) => [
+            cell(String(x.line), true),
+            cell(x.column !== undefined ? String(x.column) : '–', true),
+            writtenCell(x, 'substrate'),
+            writtenCell(x, 'inhibitor'),
+            writtenCell(x, 'rate'),
+            cell(escapeHtml(x.reason)),
+          ]),
         'data excluded',
       )
     : '<p>No rows were excluded.</p>';
@@ -44,7 +63,7 @@ export function dataSection(result: AnalysisResult): string {
   for (const x of excluded) {
     rows.push({
       line: x.line,
-      cells: [cell(String(x.line), true), cell('–', true), cell('–', true), cell('–', true), ...(hasSd ? [cell('–', true)] : []), cell('–', true), cell('–', true), cell(`excluded: ${escapeHtml(x.reason)}`, false, 'excluded-row')],
+      cells: [cell(String(x.line), true), writtenCell(x, 'substrate'), writtenCell(x, 'inhibitor'), writtenCell(x, 'rate'), ...(hasSd ? [cell('–', true)] : []), cell('–', true), cell('–', true), cell(`excluded: ${escapeHtml(x.reason)}`, false, 'excluded-row')],
     });
   }
   rows.sort((a, b) => a.line - b.line);
@@ -57,6 +76,7 @@ export function dataSection(result: AnalysisResult): string {
 <h2>Data</h2>
 <p>${escapeHtml(`${inp.rowsUsed} of ${inp.rowsRead} rows entered the fit (${inp.layout} layout, separator “${inp.separator === '\t' ? 'tab' : inp.separator}”, decimal mark “${inp.decimalMark}”).`)}</p>
 <h3>Excluded rows (${excluded.length})</h3>
+${excluded.length ? '<p class="muted">Values as written in the file; none of these entered the fit.</p>' : ''}
 ${excludedTable}
 <details class="full-data"><summary>All rows, in file order (${rows.length})</summary>
 ${full}

@@ -36,6 +36,10 @@ export const REFERENCES = {
   dixon: 'Dixon, M. (1953) The determination of enzyme inhibitor constants. Biochem. J. 55, 170-171.',
   cornishBowden1974: 'Cornish-Bowden, A. (1974) A simple graphical method for determining the inhibition constants of mixed, uncompetitive and non-competitive inhibitors. Biochem. J. 137, 143-144.',
   morrison: 'Morrison, J. F. (1969) Kinetics of the reversible inhibition of enzyme-catalysed reactions by tight-binding inhibitors. Biochim. Biophys. Acta 185, 269-286.',
+  waldWolfowitz: 'Wald, A. and Wolfowitz, J. (1940) On a test whether two samples are from the same population. Ann. Math. Stat. 11, 147-162.',
+  royston: 'Royston, P. (1995) Remark AS R94: a remark on algorithm AS 181: the W-test for normality. Appl. Stat. 44, 547-551.',
+  beatonTukey: 'Beaton, A. E. and Tukey, J. W. (1974) The fitting of power series, meaning polynomials, illustrated on band-spectroscopic data. Technometrics 16, 147-185.',
+  chengPrusoff: 'Cheng, Y. and Prusoff, W. H. (1973) Relationship between the inhibition constant (K1) and the concentration of inhibitor which causes 50 per cent inhibition (I50) of an enzymatic reaction. Biochem. Pharmacol. 22, 3099-3108.',
   fengShoichet: 'Feng, B. Y. and Shoichet, B. K. (2006) A detergent-based assay for the detection of promiscuous inhibitors. Nat. Protoc. 1, 550-553.',
 } as const;
 
@@ -77,12 +81,18 @@ export function methodsSection(result: AnalysisResult): string {
 <h3>Replots</h3>
 <p>Double reciprocal (Lineweaver &amp; Burk 1934), Dixon (Dixon 1953), Cornish-Bowden (Cornish-Bowden 1974), Hanes-Woolf and Eadie-Hofstee (as in Cornish-Bowden 2012). They show the data transformed and the global fit transformed the same way; no constant is read from them.</p>
 <h3>References</h3>
-<ol class="references">${referenceList(hasBootstrap)}</ol>
+<ol class="references">${referenceList(usedOnlySometimes(result, hasBootstrap))}</ol>
 </section>`;
 }
 
-function referenceList(hasBootstrap: boolean): string {
-  const keys = (Object.keys(REFERENCES) as ReferenceKey[]).filter((k) => hasBootstrap || k !== 'efron');
+/** References cited only when the method ran: true when it did. */
+function usedOnlySometimes(result: AnalysisResult, hasBootstrap: boolean): Partial<Record<ReferenceKey, boolean>> {
+  const ic50 = result.models.some((m) => m.derived?.some((d) => d.name === 'IC50'));
+  return { efron: hasBootstrap, beatonTukey: result.robust !== undefined, chengPrusoff: ic50 };
+}
+
+function referenceList(conditional: Partial<Record<ReferenceKey, boolean>>): string {
+  const keys = (Object.keys(REFERENCES) as ReferenceKey[]).filter((k) => conditional[k] ?? true);
   return keys
     .map((k) => REFERENCES[k])
     .sort((a, b) => a.localeCompare(b))
