@@ -1,7 +1,8 @@
 /** `mechanist analyze FILE`: one compound's table, fitted, ranked and summarised. */
 import { Command } from 'commander';
 import { resolve } from 'node:path';
-import { readRateFile } from '../../input/index.js';
+import { readFile } from 'node:fs/promises';
+import { decodeRateBytes, parseRateText, readRateFile, type ParseOptions } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
 import type { AnalysisResult } from '../../analysis/types.js';
 import type { RateTable } from '../../input/types.js';
@@ -11,6 +12,7 @@ import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCli
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { writeResultFiles } from '../write-results.js';
+import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
@@ -38,6 +40,39 @@ export function safeName(name: string): string {
   return name.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^\.+/, '_') || '_';
 }
 
+/**
+ * Reads the file's bytes once, for both the tables and the SHA-256 in the report footer. When the
+ * bytes cannot be read, readRateFile is left to word the error (one line naming the file).
+ */
+async function readInputOnce(path: string, parse: ParseOptions): Promise<{ tables: RateTable[]; bytes: Uint8Array | null }> {
+  let bytes: Uint8Array | null = null;
+  try {
+    bytes = await readFile(path);
+  } catch {
+    // reported below, in the input stage's own words
+  }
+  if (bytes === null) return { tables: await readRateFile(path, parse), bytes: null };
+  return { tables: parseRateText(decodeRateBytes(bytes, path), { ...parse, source: path }), bytes };
+}
+
+/**
+ * What the report footer records about this run: the SHA-256 of the input file's bytes, the command
+ * and each option as given (defaults included, marked as such).
+ */
+export function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: Command): ReportProvenance {
+  const options: Record<string, string> = {};
+  for (const option of cmd.options) {
+    const key = option.attributeName();
+    const value: unknown = cmd.getOptionValue(key);
+    if (value === undefined) continue;
+    const source = cmd.getOptionValueSource(key);
+    // a negatable option (--no-profile) holds true when it was not given
+    const shown = typeof value === 'boolean' ? (value !== option.negate ? 'given' : 'not given') : String(value);
+    options[option.long ?? option.flags] = `${shown}${source === 'default' ? ' (default)' : ''}`;
+  }
+  return { ...(bytes ? { inputSha256: sha256Hex(bytes) } : {}), command: `mechanist analyze ${file}`, options };
+}
+
 export function analyzeCommand(io: CliIo): Command {
   const cmd = new Command('analyze')
     .description('fit the five mechanisms to one rate table and rank them')
@@ -50,9 +85,13 @@ export function analyzeCommand(io: CliIo): Command {
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
     const path = resolve(io.cwd, file);
-    const tables = chooseTables(await readRateFile(path, parse), o.compound, file);
+    const input = await readInputOnce(path, parse);
+    const tables = chooseTables(input.tables, o.compound, file);
     const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
-    if (o.out) for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1));
+    if (o.out) {
+      const provenance = analyzeProvenance(input.bytes, file, cmd);
+      for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1), provenance);
+    }
     if (o.json) {
       const docs = results.map(analysisJson);
       io.out(JSON.stringify(docs.length === 1 ? docs[0] : docs, null, 2) + '\n');
