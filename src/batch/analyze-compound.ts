@@ -17,18 +17,31 @@ export const COMPOUNDS_FOLDER = 'compounds';
 /** Report files linked from the summary, in order of preference. */
 const REPORT_ENTRY_FILES = ['report.html', 'summary.txt', 'results.json'];
 
-/** Analysis options as plain data that can be posted to a worker thread (models by name). */
-export type PortableAnalysisOptions = Omit<AnalysisOptions, 'models'> & { mechanisms?: Mechanism[] };
+/**
+ * Analysis options as plain data that can be posted to a worker thread: models by name, and no
+ * callbacks (a per-compound progress callback has no place in a batch, which shows its own).
+ */
+export type PortableAnalysisOptions = Omit<AnalysisOptions, 'models' | 'onProgress'> & { mechanisms?: Mechanism[] };
 
 export interface CompoundSettings {
   analysis: PortableAnalysisOptions;
   /** output folder of the run when per-compound reports are wanted, else null */
   reportRoot: string | null;
+  /** for the reports' reproducibility footer: the command and when the run started */
+  command: string;
+  startedAt: Date;
 }
 
+/**
+ * The options of a batch run as plain data. A bootstrap runs in the thread of its compound
+ * (workers: 1): the batch is already parallel across compounds, and the bootstrap's result does
+ * not depend on its number of threads (src/evidence/bootstrap-threads.ts).
+ */
 export function toPortableOptions(options: AnalysisOptions): PortableAnalysisOptions {
   const { models, ...rest } = options;
-  return models ? { ...rest, mechanisms: models.map((m) => m.mechanism) } : rest;
+  const plain = Object.fromEntries(Object.entries(rest).filter(([, value]) => typeof value !== 'function')) as PortableAnalysisOptions;
+  if (plain.bootstrap) plain.bootstrap = { ...plain.bootstrap, workers: 1 };
+  return models ? { ...plain, mechanisms: models.map((m) => m.mechanism) } : plain;
 }
 
 export function fromPortableOptions(options: PortableAnalysisOptions): AnalysisOptions {
@@ -67,7 +80,12 @@ export function analyzeCompound(job: CompoundJob, settings: CompoundSettings): C
   let report: string | null = null;
   if (settings.reportRoot !== null) {
     try {
-      const written = writeResultFiles(result, join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder));
+      const written = writeResultFiles(result, join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder), {
+        command: settings.command,
+        ...(job.inputSha256 !== null ? { inputSha256: job.inputSha256 } : {}),
+        seed: settings.analysis.bootstrap?.seed ?? null,
+        generatedAt: settings.startedAt,
+      });
       report = reportLink(written, settings.reportRoot);
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);

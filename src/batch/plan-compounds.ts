@@ -11,7 +11,9 @@
  *    then with the path as given (CPD-7@run2/plate1.csv, or run2/plate1.csv), and last with the
  *    position in the run (CPD-7@run2/plate1.csv#12).
  */
+import { readFileSync } from 'node:fs';
 import { basename, extname } from 'node:path';
+import { sha256Hex } from '../report/html/provenance.js';
 import { readRateFile } from '../input/read-rate-file.js';
 import type { ParseOptions } from '../input/options.js';
 import { InputError, type RateTable } from '../input/types.js';
@@ -21,6 +23,7 @@ import type { CompoundJob } from './types.js';
 
 interface Entry {
   source: string;
+  inputSha256: string | null;
   nameInFile: string | null;
   table: RateTable | null;
   readError: string | null;
@@ -89,15 +92,17 @@ function readFailureMessage(error: InputError, file: InputFile): string {
 async function readEntries(file: InputFile, parse: ParseOptions): Promise<Entry[]> {
   try {
     const tables = await readRateFile(file.path, parse);
+    const inputSha256 = sha256Hex(readFileSync(file.path));
     return tables.map((table) => ({
       source: file.given,
+      inputSha256,
       nameInFile: table.compound ?? null,
       table: { ...table, source: file.given },
       readError: null,
     }));
   } catch (error) {
     if (!(error instanceof InputError)) throw error;
-    return [{ source: file.given, nameInFile: null, table: null, readError: readFailureMessage(error, file) }];
+    return [{ source: file.given, inputSha256: null, nameInFile: null, table: null, readError: readFailureMessage(error, file) }];
   }
 }
 
@@ -115,5 +120,6 @@ export async function planCompounds(files: readonly InputFile[], parse: ParseOpt
     folder: folders[k],
     table: entry.table,
     readError: entry.readError,
+    inputSha256: entry.inputSha256,
   }));
 }

@@ -43,6 +43,8 @@ export interface BatchOptions {
   onCompound?: (row: CompoundSummary, done: number, total: number) => void;
   /** called once the compounds are known, before any is analysed */
   onPlan?: (total: number) => void;
+  /** how the run is named in each report's reproducibility footer; default "mechanist batch" */
+  command?: string;
 }
 
 export interface BatchResult {
@@ -53,8 +55,10 @@ export interface BatchResult {
   notes: string[];
   /** absolute paths of summary.csv, summary.json and index.html (empty without `out`) */
   written: string[];
-  /** worker threads used (0 when every compound ran in the calling thread) */
+  /** worker threads that analysed compounds (0 when every compound ran in the calling thread) */
   threadsUsed: number;
+  /** why worker threads could not be used, when some compounds fell back to the calling thread */
+  workerProblem: string | null;
   settings: BatchSettings;
 }
 
@@ -75,6 +79,7 @@ function batchSettings(options: BatchOptions): BatchSettings {
  */
 export async function runBatch(inputs: readonly string[], options: BatchOptions = {}): Promise<BatchResult> {
   const cwd = options.cwd ?? process.cwd();
+  const startedAt = new Date();
   if (options.reports && !options.out) throw new InputError('per-compound reports need an output folder', '');
   const { files, notes } = collectInputFiles(inputs, cwd);
   if (files.length === 0) {
@@ -86,9 +91,14 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
   const out = options.out ? resolve(cwd, options.out) : null;
   const settings = batchSettings(options);
   let done = 0;
-  const { rows, threadsUsed } = await runCompoundJobs(jobs, {
+  const { rows, threadsUsed, workerProblem } = await runCompoundJobs(jobs, {
     threads: options.jobs ?? availableParallelism(),
-    settings: { analysis: toPortableOptions(options.analysis ?? {}), reportRoot: options.reports ? out : null },
+    settings: {
+      analysis: toPortableOptions(options.analysis ?? {}),
+      reportRoot: options.reports ? out : null,
+      command: options.command ?? 'mechanist batch',
+      startedAt,
+    },
     onRow: (row) => options.onCompound?.(row, ++done, jobs.length),
   });
   const written: string[] = [];
@@ -104,5 +114,5 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
       written.push(path);
     }
   }
-  return { rows, counts: summaryCounts(rows), notes, written, threadsUsed, settings };
+  return { rows, counts: summaryCounts(rows), notes, written, threadsUsed, workerProblem, settings };
 }

@@ -78,4 +78,6 @@ export interface CompoundJob {
   table: RateTable | null;
   /** set when the file could not be read */
   readError: string | null;
+  /** SHA-256 of the input file's bytes, for the report's reproducibility footer (null if unread) */
+  inputSha256: string | null;
 }

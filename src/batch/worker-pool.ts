@@ -24,6 +24,8 @@ export interface PoolOutcome {
   rows: CompoundSummary[];
   /** worker threads that analysed at least one compound (0: all ran in the calling thread) */
   threadsUsed: number;
+  /** why a worker thread could not start (its compounds ran in the calling thread), else null */
+  workerProblem: string | null;
 }
 
 /** The compiled worker script beside this module (dist/batch/worker.js), or null when absent. */
@@ -35,7 +37,7 @@ export function workerScriptPath(): string | null {
 export async function runCompoundJobs(jobs: readonly CompoundJob[], options: PoolOptions): Promise<PoolOutcome> {
   const script = workerScriptPath();
   const threads = Math.min(Math.max(1, Math.floor(options.threads)), jobs.length);
-  if (threads <= 1 || script === null) return { rows: runInThread(jobs, options), threadsUsed: 0 };
+  if (threads <= 1 || script === null) return { rows: runInThread(jobs, options), threadsUsed: 0, workerProblem: null };
   return runOnWorkers(jobs, options, script, threads);
 }
 
@@ -72,6 +74,7 @@ function identityOf(job: CompoundJob) {
 function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script: string, threads: number): Promise<PoolOutcome> {
   return new Promise((resolveAll) => {
     let workersThatAnswered = 0;
+    let workerProblem: string | null = null;
     const rows: Array<CompoundSummary | undefined> = new Array(jobs.length);
     const workers = new Set<Worker>();
     let next = 0;
@@ -85,7 +88,7 @@ function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script
       if (finished === jobs.length) {
         for (const w of workers) void w.terminate();
         workers.clear();
-        resolveAll({ rows: rows as CompoundSummary[], threadsUsed: workersThatAnswered });
+        resolveAll({ rows: rows as CompoundSummary[], threadsUsed: workersThatAnswered, workerProblem });
       }
     };
 
@@ -123,6 +126,7 @@ function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script
         if (!answered && !outOfMemory) {
           // The worker could not start (or died on its first compound): that compound, and the
           // rest if no worker is left, run in the calling thread; no new worker is started.
+          workerProblem ??= why;
           if (current >= 0) runHere(current);
           drainIfAlone();
           return;

@@ -9,7 +9,6 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { writeBatchInputs } from './batch-inputs.js';
-import { progressBar, progressLine } from '../../src/batch/progress.js';
 
 const root = join(import.meta.dirname, '..', '..');
 const mainJs = join(root, 'dist', 'cli', 'main.js');
@@ -28,13 +27,14 @@ describe('mechanist batch on worker threads (built CLI)', () => {
     if (!existsSync(mainJs) || !existsSync(workerJs)) throw new Error('dist/ is missing: run `npx tsc -p tsconfig.json` before these tests (npm test does)');
   });
 
-  it('writes byte-identical summaries and reports with --jobs 1, 2 and 3', () => {
-    const runs = ['1', '2', '3'].map((jobs) => ({ jobs, ...runBuilt(['batch', ...args, '--out', `out-${jobs}`, '--jobs', jobs], inputs.root) }));
+  it('writes byte-identical summaries and reports with --jobs 1 and 2', { timeout: 300_000 }, () => {
+    const runs = ['1', '2'].map((jobs) => ({ jobs, ...runBuilt(['batch', ...args, '--out', `out-${jobs}`, '--jobs', jobs], inputs.root) }));
     for (const run of runs) {
       expect(run.code).toBe(1); // plates/broken.csv fails
       expect(run.out).toMatch(/^7 of 8 compounds analysed, 1 failed; /);
       expect(run.err).not.toContain('\r'); // stderr is not a terminal: no progress bar
       expect(run.err).toMatch(/^mechanist: broken: plates\/broken\.csv:/);
+      expect(run.err).not.toContain('worker threads could not be used');
     }
     const files = ['summary.csv', 'summary.json', 'compounds/mixed/results.json', 'compounds/CPD-1/parameters.csv', 'compounds/CPD-2/summary.txt'];
     for (const file of files) {
@@ -43,33 +43,15 @@ describe('mechanist batch on worker threads (built CLI)', () => {
     }
   });
 
-  it('really runs on worker threads, with the rows of the in-thread run', () => {
+  it('really runs on worker threads, with the rows of the in-thread run', { timeout: 300_000 }, () => {
     const script = `
       const { runBatch } = await import(${JSON.stringify(pathToFileURL(join(root, 'dist', 'index.js')).href)});
       const parallel = await runBatch(['plates', 'screen.csv'], { jobs: 2 });
       const serial = await runBatch(['plates', 'screen.csv'], { jobs: 1 });
-      console.log(JSON.stringify({ threads: [parallel.threadsUsed, serial.threadsUsed], same: JSON.stringify(parallel.rows) === JSON.stringify(serial.rows), n: parallel.rows.length }));
+      console.log(JSON.stringify({ threads: [parallel.threadsUsed, serial.threadsUsed], problem: parallel.workerProblem, same: JSON.stringify(parallel.rows) === JSON.stringify(serial.rows), n: parallel.rows.length }));
     `;
     const r = spawnSync(process.execPath, ['--input-type=module', '-e', script], { cwd: inputs.root, encoding: 'utf8' });
     expect(r.stderr).toBe('');
-    expect(JSON.parse(r.stdout)).toEqual({ threads: [2, 0], same: true, n: 7 });
-  });
-});
-
-describe('progress bar', () => {
-  it('draws done/total and failures, and nothing when switched off', () => {
-    expect(progressLine(7, 28, 0)).toBe(`[${'#'.repeat(7)}${'.'.repeat(21)}] 7/28 compounds`);
-    expect(progressLine(28, 28, 2)).toBe(`[${'#'.repeat(28)}] 28/28 compounds, 2 failed`);
-    let written = '';
-    const on = progressBar((t) => void (written += t), 2, true);
-    on.tick(false);
-    on.tick(true);
-    on.finish();
-    expect(written.endsWith(`\r${progressLine(2, 2, 1)}\x1b[K\n`)).toBe(true);
-    let silent = '';
-    const off = progressBar((t) => void (silent += t), 2, false);
-    off.tick(false);
-    off.finish();
-    expect(silent).toBe('');
+    expect(JSON.parse(r.stdout)).toEqual({ threads: [2, 0], problem: null, same: true, n: 7 });
   });
 });

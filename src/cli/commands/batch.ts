@@ -7,7 +7,7 @@ import { Command } from 'commander';
 import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
 import { runBatch } from '../../batch/run-batch.js';
-import { progressBar, type ProgressBar } from '../../batch/progress.js';
+import { progressBar, type ProgressBar } from '../progress-bar.js';
 import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
@@ -38,7 +38,8 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
-    let bar: ProgressBar | null = null;
+    // the shared bar draws on stderr when it is a terminal; --quiet (and a non-terminal io) turn it off
+    const bar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('batch') : null;
     const result = await runBatch(inputs, {
       out: o.out,
       reports: Boolean(o.reports),
@@ -46,13 +47,12 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
       parse,
       analysis,
       cwd: io.cwd,
-      onPlan: (total) => {
-        bar = progressBar((t) => io.err(t), total, io.errIsTTY && !o.quiet);
-      },
-      onCompound: (row) => bar?.tick(row.status === 'failed'),
+      onCompound: (_row, done, total) => bar?.update(done, total),
     });
-    (bar as ProgressBar | null)?.finish();
+    bar?.finish();
     if (!o.quiet) for (const note of result.notes) io.err(`mechanist: note: ${note}\n`);
+    if (!o.quiet && result.workerProblem !== null)
+      io.err(`mechanist: note: worker threads could not be used (${result.workerProblem}); compounds ran in the main thread\n`);
     for (const row of result.rows) if (row.error !== null) io.err(`mechanist: ${row.compound}: ${row.error}\n`);
     const { compounds, analysed, failed } = result.counts;
     const where = result.written.map((p) => relative(io.cwd, p) || p).join(', ');
