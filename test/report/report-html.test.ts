@@ -80,11 +80,27 @@ describe('report page', () => {
     expect(full).toContain('open: the data do not bound the constant on that side');
   });
 
-  it('lists every excluded row with its reason', () => {
+  it('lists every excluded row with its reason and its values as written in the file', () => {
     expect(demo.input.excluded.length).toBeGreaterThan(0);
     const rows = Array.from(doc.querySelectorAll('table.excluded tbody tr')).map((tr) => Array.from(tr.querySelectorAll('td')).map((td) => td.textContent));
     expect(rows).toHaveLength(demo.input.excluded.length);
-    for (const x of demo.input.excluded) expect(rows).toContainEqual([String(x.line), x.column !== undefined ? String(x.column) : '–', x.reason]);
+    const written = (text: string | undefined) => (text === undefined ? '–' : text.trim() === '' ? 'blank' : text.trim());
+    for (const x of demo.input.excluded) {
+      expect(x.asWritten).toBeDefined();
+      expect(rows).toContainEqual([String(x.line), x.column !== undefined ? String(x.column) : '–', written(x.asWritten?.substrate), written(x.asWritten?.inhibitor), written(x.asWritten?.rate), x.reason]);
+    }
+    // the demo's blank-rate row (line 54) shows its [S] and [I] and a blank rate, in the full table too
+    const blankRate = Array.from(doc.querySelectorAll('details.full-data tbody tr')).find((tr) => tr.querySelector('td')?.textContent === '54')!;
+    const cells = Array.from(blankRate.querySelectorAll('td')).map((td) => td.textContent);
+    expect(cells.slice(1, 4)).toEqual([written(demo.input.excluded.find((x) => x.line === 54)!.asWritten!.substrate), written(demo.input.excluded.find((x) => x.line === 54)!.asWritten!.inhibitor), 'blank']);
+  });
+
+  it('carries the derived quantities and the checks on the fit, right after the constants and the fit', () => {
+    const ids = Array.from(doc.querySelectorAll('main section[id]')).map((s) => s.id);
+    expect(ids.indexOf('derived')).toBe(ids.indexOf('constants') + 1);
+    expect(ids.indexOf('checks')).toBe(ids.indexOf('fit') + 1);
+    const nav = Array.from(doc.querySelectorAll('nav.contents a')).map((a) => a.getAttribute('href'));
+    for (const id of ids.filter((i) => i !== 'verdict')) expect(nav).toContain(`#${id}`);
   });
 
   it('has one data row per used point and per excluded row', () => {
@@ -136,7 +152,7 @@ describe('report page', () => {
         source: evil,
         compound: evil,
         units: { ...demo.input.units, rate: evil },
-        excluded: [...demo.input.excluded, { line: 999, reason: evil }],
+        excluded: [...demo.input.excluded, { line: 999, reason: evil, asWritten: { substrate: evil, inhibitor: evil, rate: evil } }],
         warnings: [...demo.input.warnings, { code: 'x', message: evil }],
       },
     };
