@@ -2,15 +2,18 @@
  * The demo report in a real browser (headless Chromium): it loads with no console error and no
  * request beyond its own file, every figure has a non-zero size and a title, and no text of any
  * figure reaches outside its SVG's viewBox (text boxes from getBBox, carried to the SVG's user
- * space with the element's transform matrix).
+ * space with the element's transform matrix). A second report, from `analyze --robust --error auto
+ * --bootstrap --at-substrate` on a simulated table with an outlier and an excluded row (invented
+ * data), carries every optional section; its tables and text must fit the page.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
 import { runCli } from '../../src/cli/run-cli.js';
+import { simulateRates, ratesToCsv } from '../../src/simulate/simulate-rates.js';
 import { launchChromium, type HeadlessBrowser } from './chromium.js';
 
 let browser: HeadlessBrowser;
@@ -109,5 +112,125 @@ describe('demo report in headless Chromium', () => {
   it('the verdict is the first thing in the page body', async () => {
     const first = await page.evaluate(() => document.querySelector('main section')?.id);
     expect(first).toBe('verdict');
+  });
+});
+
+/** Runs in the page: elements of the given sections whose content is wider than their box. */
+function collectLayoutChecks(ids: string[]): { missing: string[]; pageOverflow: number; scrolledTables: string[]; clipped: string[] } {
+  const missing = ids.filter((id) => !document.getElementById(id) || document.getElementById(id)!.getBoundingClientRect().height === 0);
+  const scrolledTables: string[] = [];
+  const clipped: string[] = [];
+  for (const id of ids) {
+    const section = document.getElementById(id);
+    if (!section) continue;
+    for (const wrap of Array.from(section.querySelectorAll<HTMLElement>('.table-wrap'))) {
+      if (wrap.closest('details.full-data')) continue; // the full data table may scroll on purpose
+      if (wrap.scrollWidth > wrap.clientWidth + 1) scrolledTables.push(`${id}: ${wrap.querySelector('table')?.className} ${wrap.scrollWidth} > ${wrap.clientWidth}`);
+    }
+    for (const el of Array.from(section.querySelectorAll<HTMLElement>('p, li, td, th, summary, h2, h3, code'))) {
+      if (el.scrollWidth > el.clientWidth + 1 && getComputedStyle(el).display !== 'inline') clipped.push(`${id}: <${el.tagName.toLowerCase()}> "${(el.textContent ?? '').slice(0, 40)}"`);
+      const box = el.getBoundingClientRect();
+      const outer = section.getBoundingClientRect();
+      if (box.width > 0 && box.right > outer.right + 1 && !el.closest('.table-wrap')) clipped.push(`${id}: <${el.tagName.toLowerCase()}> past the section edge`);
+    }
+  }
+  return { missing, pageOverflow: document.documentElement.scrollWidth - window.innerWidth, scrolledTables, clipped };
+}
+
+describe('a full analyze report (robust, automatic error model, bootstrap, IC50) in headless Chromium', () => {
+  let full: Page;
+  let folder: string;
+  const errors: string[] = [];
+  const requests: string[] = [];
+
+  beforeAll(async () => {
+    folder = mkdtempSync(join(tmpdir(), 'mechanist-full-report-'));
+    const points = simulateRates({
+      mechanism: 'mixed',
+      params: { Vmax: 100, Km: 10, Ki: 2, Kiu: 10 },
+      substrate: [2, 4, 7, 10, 15, 25, 50, 100],
+      inhibitor: [0, 1, 2, 4, 8],
+      replicates: 3,
+      noise: 'proportional',
+      noiseLevel: 0.05,
+      seed: 23,
+    });
+    const k = points.findIndex((p) => p.substrate === 100 && p.inhibitor === 0);
+    points[k].rate *= 0.35;
+    const csv = ratesToCsv(points, { substrate: 'uM', inhibitor: 'uM' }) + '50,4,plate reader reported an overflow for this well and no value was kept,3\n';
+    writeFileSync(join(folder, 'rates.csv'), csv);
+    const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'auto', '--bootstrap', '30', '--seed', '4', '--at-substrate', '20'], { out: () => {}, err: () => {}, errIsTTY: false, cwd: folder });
+    expect(code).toBe(0);
+    full = await browser.context.newPage();
+    full.on('console', (m) => {
+      if (m.type() === 'error' || m.type() === 'warning') errors.push(m.text());
+    });
+    full.on('pageerror', (e) => errors.push(String(e)));
+    full.on('request', (r) => {
+      if (!r.url().startsWith('file://')) requests.push(r.url());
+    });
+    await full.goto(pathToFileURL(join(folder, 'out', 'report.html')).href, { waitUntil: 'load' });
+    // open every collapsed block so that its tables are laid out and measured too
+    await full.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
+  });
+
+  afterAll(() => rmSync(folder, { recursive: true, force: true }));
+
+  it('loads with no console errors and fetches nothing', () => {
+    expect(errors).toEqual([]);
+    expect(requests).toEqual([]);
+  });
+
+  it('has the derived quantities, the checks with the suspect and down-weighted points, and the excluded values', async () => {
+    const found = await full.evaluate(() => ({
+      suspects: document.querySelectorAll('#checks table.suspects tbody tr').length,
+      downWeighted: document.querySelectorAll('#checks table.down-weighted tbody tr').length,
+      selection: document.querySelectorAll('#derived table.selection tbody tr').length,
+      ic50: Array.from(document.querySelectorAll('#derived table.derived td')).some((td) => td.textContent?.startsWith('IC50 at [S] = 20')),
+      excluded: document.querySelector('#data table.excluded')?.textContent ?? '',
+    }));
+    expect(found.suspects).toBeGreaterThan(0);
+    expect(found.downWeighted).toBeGreaterThan(0);
+    expect(found.selection).toBe(5);
+    expect(found.ic50).toBe(true);
+    expect(found.excluded).toContain('plate reader reported an overflow');
+  });
+
+  it('every figure has a size, a title and its text inside the viewBox', async () => {
+    const checks = await full.evaluate(collectFigureChecks, 'figure.plot svg');
+    expect(checks.length).toBeGreaterThanOrEqual(10);
+    for (const c of checks) {
+      expect(c.width, c.id).toBeGreaterThan(100);
+      expect(c.height, c.id).toBeGreaterThan(50);
+      expect(c.title.length, c.id).toBeGreaterThan(5);
+      expect(c.overflow, c.id).toEqual([]);
+    }
+  });
+
+  it('the new sections fit the page: no table needs scrolling, no text leaves its box', async () => {
+    const layout = await full.evaluate(collectLayoutChecks, ['derived', 'checks', 'data', 'provenance']);
+    expect(layout.missing).toEqual([]);
+    expect(layout.pageOverflow).toBeLessThanOrEqual(0);
+    expect(layout.scrolledTables).toEqual([]);
+    expect(layout.clipped).toEqual([]);
+  });
+
+  it('the layout check catches a table wider than the page (control)', async () => {
+    const probe = await browser.context.newPage();
+    await probe.setContent('<section id="probe" style="width:300px"><div class="table-wrap" style="overflow-x:auto"><table><tr><td style="white-space:nowrap">' + 'wide '.repeat(80) + '</td></tr></table></div><p style="white-space:nowrap;overflow:hidden">' + 'long '.repeat(80) + '</p></section>');
+    const layout = await probe.evaluate(collectLayoutChecks, ['probe']);
+    await probe.close();
+    expect(layout.scrolledTables).toHaveLength(1);
+    expect(layout.clipped.length).toBeGreaterThan(0);
+  });
+});
+
+describe('the demo report\'s new sections in headless Chromium', () => {
+  it('fit the page', async () => {
+    const layout = await page.evaluate(collectLayoutChecks, ['derived', 'checks', 'data']);
+    expect(layout.missing).toEqual([]);
+    expect(layout.pageOverflow).toBeLessThanOrEqual(0);
+    expect(layout.scrolledTables).toEqual([]);
+    expect(layout.clipped).toEqual([]);
   });
 });
