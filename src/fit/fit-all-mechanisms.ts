@@ -9,7 +9,7 @@ import { MECHANISMS } from '../models/index.js';
 import type { Mechanism, MechanismModel } from '../models/types.js';
 import type { ErrorModel } from './error-models.js';
 import type { FitData } from './fit-data.js';
-import { fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
+import { domainEdge, fitAtParams, fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
 
 /** A constant far above the tested inhibitor range, used to start an arm "switched off". */
 function farConstant(data: FitData): number {
@@ -18,21 +18,73 @@ function farConstant(data: FitData): number {
   return 100 * (imax || 1);
 }
 
+/**
+ * The parameters of `fuller` that reproduce a `simpler` solution: shared names carry over, a
+ * missing inhibition constant is set to `off` (its arm switched off), and noncompetitive inside
+ * mixed sets Kiu = Ki. Null when `simpler` is not nested in `fuller` this way.
+ */
+export function embedNested(simpler: MechanismModel, fuller: MechanismModel, params: ArrayLike<number>, off: (name: string) => number): number[] | null {
+  if (simpler.params.length >= fuller.params.length) return null;
+  const value = (name: string): number | undefined => {
+    const j = simpler.params.indexOf(name as never);
+    return j >= 0 ? params[j] : undefined;
+  };
+  if (simpler.mechanism === 'noncompetitive' && fuller.mechanism !== 'mixed') return null;
+  return fuller.params.map((name) => {
+    if (simpler.mechanism === 'noncompetitive' && name === 'Kiu') return value('Ki')!;
+    return value(name) ?? off(name);
+  });
+}
+
 function warmStarts(model: MechanismModel, done: Map<Mechanism, MechanismFit>, data: FitData): number[][] {
   const far = farConstant(data);
-  const none = done.get('none');
+  const sources: Mechanism[] = model.mechanism === 'mixed' ? ['competitive', 'uncompetitive', 'noncompetitive'] : model.params.length === 3 ? ['none'] : [];
   const starts: number[][] = [];
-  if (model.mechanism === 'mixed') {
-    const c = done.get('competitive');
-    const u = done.get('uncompetitive');
-    const nc = done.get('noncompetitive');
-    if (c) starts.push([c.params[0], c.params[1], c.params[2], far]);
-    if (u) starts.push([u.params[0], u.params[1], far, u.params[2]]);
-    if (nc) starts.push([nc.params[0], nc.params[1], nc.params[2], nc.params[2]]);
-  } else if (model.params.length === 3 && none) {
-    starts.push([none.params[0], none.params[1], far / 10]);
+  for (const m of sources) {
+    const fit = done.get(m);
+    const embedded = fit && embedNested(fit.model, model, fit.params, () => (model.mechanism === 'mixed' ? far : far / 10));
+    if (embedded) starts.push(embedded);
   }
   return starts;
+}
+
+/** Weighted SSE of a model at given parameters, with the weights held fixed. */
+function weightedSseAt(model: MechanismModel, data: FitData, params: ArrayLike<number>, weights: Float64Array): number {
+  let sse = 0;
+  for (let k = 0; k < data.v.length; k++) {
+    const r = data.v[k] - model.rate(params, data.s[k], data.i[k]);
+    sse += weights[k] * r * r;
+  }
+  return sse;
+}
+
+/**
+ * The nesting check: at the fuller model's final weights, no nested solution may have a lower SSE,
+ * since the nested solution is a limit of the fuller model. Where one does, the search stalled
+ * (typically with a constant run off to where its gradient vanishes), and the fuller model's fit
+ * is replaced by that solution embedded, the extra constant at the edge of its domain (reported as
+ * "not detected" downstream). With fixed weights this is simply SSE_fuller <= SSE_nested.
+ */
+function respectNesting(fit: MechanismFit, done: Map<Mechanism, MechanismFit>, data: FitData, errorModel: ErrorModel, options: Pick<FitOptions, 'weightMultipliers'>): MechanismFit {
+  let best = fit;
+  let bestSse = fit.sse;
+  for (const nested of done.values()) {
+    const embedded = embedNested(nested.model, fit.model, nested.params, (name) => domainEdge(fit.model, data, name));
+    if (!embedded) continue;
+    const sse = weightedSseAt(fit.model, data, embedded, fit.weights);
+    if (!(sse < bestSse)) continue;
+    bestSse = sse;
+    const candidate = fitAtParams(
+      fit.model,
+      data,
+      errorModel,
+      embedded,
+      `Best fit is a limit of this model: the ${nested.mechanism} solution with the extra constant switched off.`,
+      options.weightMultipliers,
+    );
+    best = { ...candidate, startsTried: fit.startsTried, startsReachingBest: fit.startsReachingBest, reweightPasses: fit.reweightPasses };
+  }
+  return best;
 }
 
 /** Fits all registered mechanisms; results in registry order (simplest first). */
@@ -45,7 +97,7 @@ export function fitAllMechanisms(
   const done = new Map<Mechanism, MechanismFit>();
   for (const model of models) {
     const fit = fitMechanism(model, data, errorModel, { ...options, extraStarts: warmStarts(model, done, data) });
-    done.set(model.mechanism, fit);
+    done.set(model.mechanism, respectNesting(fit, done, data, errorModel, options));
   }
   return models.map((m) => done.get(m.mechanism)!);
 }

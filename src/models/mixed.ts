@@ -24,10 +24,14 @@ export const mixed: MechanismModel = {
     out[o + 3] = (v * s * i) / (p[3] * d);
   },
   starts(data) {
+    // three corners of the log grid (both arms alike, each arm dominant); the warm starts from the
+    // nested models (src/fit/fit-all-mechanisms.ts) cover the limits
     const r = roughScales(data);
-    const guesses = inhibitionConstantGuesses(r);
-    const out: number[][] = [];
-    for (const ki of guesses) for (const kiu of guesses) out.push([r.vmax, r.km, ki, kiu]);
-    return out;
+    const [low, mid, high] = inhibitionConstantGuesses(r);
+    return [
+      [r.vmax, r.km, mid, mid],
+      [r.vmax, r.km, low, high],
+      [r.vmax, r.km, high, low],
+    ];
   },
 };
