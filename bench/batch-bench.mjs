@@ -10,7 +10,8 @@
  *
  * Stages, each in its own child process so its peak memory is its own (process.resourceUsage()
  * .maxRSS covers the worker threads, which live in the same process; rss is also sampled):
- *   1. no reports: all compounds, --jobs N, summary files only
+ *   1. no reports: all compounds, --jobs N, summary files only; again with Wald intervals only
+ *      (analysis option profile: false, the CLI's --no-profile)
  *   2. reports: the first BATCH_BENCH_REPORTS compounds, --jobs N, a report folder per compound
  *   3. where the time goes, in one thread: reading and planning, analyzeTable per compound,
  *      fitAllMechanisms per compound (the fits alone), summarising, writing one report folder
@@ -84,13 +85,13 @@ async function writeInputs(dir) {
 }
 
 /** Child-process stage: one runBatch, timed, with its peak memory. */
-async function stageBatch(input, out, reports) {
+async function stageBatch(input, out, reports, analysis) {
   const { runBatch } = await import(dist('index.js'));
   let sampledPeak = process.memoryUsage().rss;
   const timer = setInterval(() => (sampledPeak = Math.max(sampledPeak, process.memoryUsage().rss)), 20);
   const t0 = performance.now();
   const cpu0 = process.cpuUsage();
-  const result = await runBatch([input], { out, reports, jobs: JOBS });
+  const result = await runBatch([input], { out, reports, jobs: JOBS, analysis });
   const seconds = (performance.now() - t0) / 1000;
   const cpu = process.cpuUsage(cpu0);
   clearInterval(timer);
@@ -107,6 +108,7 @@ async function stageBatch(input, out, reports) {
     peakRssMB: process.resourceUsage().maxRSS / 1024,
     sampledPeakRssMB: sampledPeak / 2 ** 20,
     outcomes,
+    errors: [...new Set(result.rows.filter((r) => r.error).map((r) => r.error))].slice(0, 3),
   };
 }
 
@@ -119,7 +121,7 @@ async function stageProfile(input, out) {
   const t0 = performance.now();
   const jobs = await planCompounds(collectInputFiles([input], process.cwd()).files);
   const planMs = performance.now() - t0;
-  const tables = jobs.map((j) => j.table).slice(0, 300);
+  const tables = jobs.map((j) => j.table).slice(0, 100);
   const time = (fn) => {
     for (const t of tables.slice(0, 20)) fn(t); // warm-up
     const start = performance.now();
@@ -160,14 +162,19 @@ async function main() {
   try {
     const { folder, reportsFolder } = await writeInputs(dir);
     console.log(`batch bench: ${COMPOUNDS} simulated compounds (8 [S] x 5 [I] x 2), --jobs ${JOBS}, ${availableParallelism()} cores, load ${loadavg().map((x) => x.toFixed(1)).join(' ')}`);
-    const plain = runStage(['--stage', 'batch', folder, join(dir, 'out-plain'), 'no']);
-    const reports = runStage(['--stage', 'batch', reportsFolder, join(dir, 'out-reports'), 'yes']);
+    const plain = runStage(['--stage', 'batch', folder, join(dir, 'out-plain'), 'no', '{}']);
+    const reports = runStage(['--stage', 'batch', reportsFolder, join(dir, 'out-reports'), 'yes', '{}']);
+    // the same compounds with Wald intervals only (profile: false, as `--no-profile`): the batch
+    // machinery with a lighter analysis
+    const wald = runStage(['--stage', 'batch', folder, join(dir, 'out-wald'), 'no', '{"profile":false}']);
     const profile = runStage(['--stage', 'profile', folder, join(dir, 'out-profile')]);
     const py = spawnSync('python3', [join(here, 'scipy-batch-runner.py'), join(dir, 'datasets.json'), String(SCIPY)], { encoding: 'utf8' });
     const scipy = py.status === 0 ? JSON.parse(py.stdout.trim().split('\n').pop()) : null;
 
     console.log(`no reports:   ${plain.compounds} compounds in ${fmt(plain.seconds, 2)} s = ${fmt(plain.compoundsPerSecond)} /s on ${plain.threadsUsed} workers (CPU ${fmt(plain.cpuSeconds, 1)} s), peak rss ${fmt(plain.peakRssMB, 0)} MB (sampled ${fmt(plain.sampledPeakRssMB, 0)}), ${plain.failed} failed`);
     console.log(`              outcomes ${JSON.stringify(plain.outcomes)}`);
+    for (const e of plain.errors) console.log(`              failed: ${e}`);
+    console.log(`Wald only:    ${wald.compounds} compounds in ${fmt(wald.seconds, 2)} s = ${fmt(wald.compoundsPerSecond)} /s on ${wald.threadsUsed} workers (CPU ${fmt(wald.cpuSeconds, 1)} s), peak rss ${fmt(wald.peakRssMB, 0)} MB, ${wald.failed} failed`);
     console.log(`with reports: ${reports.compounds} compounds in ${fmt(reports.seconds, 2)} s = ${fmt(reports.compoundsPerSecond)} /s on ${reports.threadsUsed} workers, peak rss ${fmt(reports.peakRssMB, 0)} MB, ${reports.failed} failed`);
     console.log(`one thread, per compound (mean over ${profile.timedOn}): analyzeTable ${fmt(profile.analyzeMs, 2)} ms, of which the five fits ${fmt(profile.fitsMs, 2)} ms; summary row ${fmt(profile.summarizeMs, 3)} ms; report folder ${fmt(profile.reportMs, 2)} ms; reading + planning ${fmt(profile.planMsPerCompound, 3)} ms${profile.analysisFailures ? `; ${profile.analysisFailures} analyzeTable calls threw` : ''}`);
     if (scipy) {
@@ -187,8 +194,8 @@ async function main() {
 
 const stage = process.argv.indexOf('--stage');
 if (stage >= 0) {
-  const [kind, input, out, reports] = process.argv.slice(stage + 1);
-  const result = kind === 'batch' ? await stageBatch(input, out, reports === 'yes') : await stageProfile(input, out);
+  const [kind, input, out, reports, analysis] = process.argv.slice(stage + 1);
+  const result = kind === 'batch' ? await stageBatch(input, out, reports === 'yes', JSON.parse(analysis)) : await stageProfile(input, out);
   console.log(JSON.stringify(result));
 } else {
   await main();

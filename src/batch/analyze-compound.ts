@@ -7,12 +7,23 @@ import { join, relative, sep } from 'node:path';
 import { analyzeTable, AnalysisError, type AnalysisOptions } from '../analysis/analyze-table.js';
 import { modelFor } from '../models/index.js';
 import type { Mechanism } from '../models/types.js';
-import { writeResultFiles } from '../cli/write-results.js';
+import type { writeResultFiles } from '../cli/write-results.js';
 import { failedSummary, summarizeAnalysis } from './summarize.js';
 import type { CompoundJob, CompoundSummary } from './types.js';
 
 /** Sub-folder of the output folder that holds one report folder per compound. */
 export const COMPOUNDS_FOLDER = 'compounds';
+
+/** Writes one compound's report folder (src/cli/write-results.ts). */
+export type ReportWriter = typeof writeResultFiles;
+
+/**
+ * The report writer, loaded only when reports are wanted: it brings in the figure and page code
+ * (and a DOM implementation), which costs a worker about 1.5 s and 80 MB to load.
+ */
+export async function loadReportWriter(settings: CompoundSettings): Promise<ReportWriter | null> {
+  return settings.reportRoot === null ? null : (await import('../cli/write-results.js')).writeResultFiles;
+}
 
 /** Report files linked from the summary, in order of preference. */
 const REPORT_ENTRY_FILES = ['report.html', 'summary.txt', 'results.json'];
@@ -67,8 +78,11 @@ function reportLink(written: string[], root: string): string | null {
   return null;
 }
 
-/** Analyses one compound and returns its summary row (a failed row when anything goes wrong). */
-export function analyzeCompound(job: CompoundJob, settings: CompoundSettings): CompoundSummary {
+/**
+ * Analyses one compound and returns its summary row (a failed row when anything goes wrong).
+ * `writeReport` (see loadReportWriter) must be given when `settings.reportRoot` is set.
+ */
+export function analyzeCompound(job: CompoundJob, settings: CompoundSettings, writeReport: ReportWriter | null = null): CompoundSummary {
   const identity = { position: job.position, compound: job.compound, nameInFile: job.nameInFile, source: job.source };
   if (job.table === null) return failedSummary(identity, job.readError ?? 'the file could not be read');
   let result;
@@ -80,7 +94,8 @@ export function analyzeCompound(job: CompoundJob, settings: CompoundSettings): C
   let report: string | null = null;
   if (settings.reportRoot !== null) {
     try {
-      const written = writeResultFiles(result, join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder), {
+      if (writeReport === null) throw new Error('no report writer was loaded');
+      const written = writeReport(result, join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder), {
         command: settings.command,
         ...(job.inputSha256 !== null ? { inputSha256: job.inputSha256 } : {}),
         seed: settings.analysis.bootstrap?.seed ?? null,

@@ -7,7 +7,7 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { analyzeCompound, type CompoundSettings } from './analyze-compound.js';
+import { analyzeCompound, loadReportWriter, type CompoundSettings, type ReportWriter } from './analyze-compound.js';
 import { failedSummary } from './summarize.js';
 import type { CompoundJob, CompoundSummary } from './types.js';
 
@@ -37,13 +37,15 @@ export function workerScriptPath(): string | null {
 export async function runCompoundJobs(jobs: readonly CompoundJob[], options: PoolOptions): Promise<PoolOutcome> {
   const script = workerScriptPath();
   const threads = Math.min(Math.max(1, Math.floor(options.threads)), jobs.length);
-  if (threads <= 1 || script === null) return { rows: runInThread(jobs, options), threadsUsed: 0, workerProblem: null };
-  return runOnWorkers(jobs, options, script, threads);
+  // loaded here too: the calling thread writes reports when it runs compounds itself
+  const writeReport = await loadReportWriter(options.settings);
+  if (threads <= 1 || script === null) return { rows: runInThread(jobs, options, writeReport), threadsUsed: 0, workerProblem: null };
+  return runOnWorkers(jobs, options, script, threads, writeReport);
 }
 
-function runInThread(jobs: readonly CompoundJob[], options: PoolOptions): CompoundSummary[] {
+function runInThread(jobs: readonly CompoundJob[], options: PoolOptions, writeReport: ReportWriter | null): CompoundSummary[] {
   return jobs.map((job) => {
-    const row = analyzeCompound(job, options.settings);
+    const row = analyzeCompound(job, options.settings, writeReport);
     options.onRow?.(row);
     return row;
   });
@@ -71,7 +73,13 @@ function identityOf(job: CompoundJob) {
   return { position: job.position, compound: job.compound, nameInFile: job.nameInFile, source: job.source };
 }
 
-function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script: string, threads: number): Promise<PoolOutcome> {
+function runOnWorkers(
+  jobs: readonly CompoundJob[],
+  options: PoolOptions,
+  script: string,
+  threads: number,
+  writeReport: ReportWriter | null,
+): Promise<PoolOutcome> {
   return new Promise((resolveAll) => {
     let workersThatAnswered = 0;
     let workerProblem: string | null = null;
@@ -92,7 +100,7 @@ function runOnWorkers(jobs: readonly CompoundJob[], options: PoolOptions, script
       }
     };
 
-    const runHere = (index: number) => record(index, analyzeCompound(jobs[index], options.settings));
+    const runHere = (index: number) => record(index, analyzeCompound(jobs[index], options.settings, writeReport));
     // With no worker left (none could start), the calling thread does the rest.
     const drainIfAlone = () => {
       if (workers.size > 0) return;
