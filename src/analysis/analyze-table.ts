@@ -32,6 +32,12 @@ export interface AnalysisOptions {
   robust?: boolean;
   /** profile-likelihood intervals, curves and the joint (Ki, Kiu) region; default true */
   profile?: boolean;
+  /**
+   * 'full' (default): profiles for every model and the joint (Ki, Kiu) region for the figures;
+   * 'summary': profiles for the best-ranked model and mixed only, no joint region (what a batch
+   * summary needs; the verdict and the reported constants are the same)
+   */
+  detail?: 'full' | 'summary';
   /** wild bootstrap: resamples, seed and threads in all (see src/analysis/stage-intervals.ts) */
   bootstrap?: BootstrapRequest;
   /** [S] at which to report the IC50 (Cheng-Prusoff) */
@@ -64,6 +70,8 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const bootstrap = addIntervals(models, data, table.units, {
     level,
     profile: options.profile,
+    profileModels: options.detail === 'summary' ? 'leading' : 'all',
+    jointRegion: options.detail !== 'summary',
     bootstrap: options.bootstrap,
     atSubstrate: options.atSubstrate,
     onProgress: options.onProgress,

@@ -39,6 +39,14 @@ export interface IntervalOptions {
   level: number;
   /** profile-likelihood intervals and curves; default true */
   profile?: boolean;
+  /**
+   * which models get profiles: 'all' (default) or 'leading': the best-ranked model and mixed (whose
+   * alpha interval the verdict reads); the others keep their Wald intervals. Batch runs without
+   * reports use 'leading'.
+   */
+  profileModels?: 'all' | 'leading';
+  /** the joint (Ki, Kiu) region of mixed, for the report's figure; default true */
+  jointRegion?: boolean;
   bootstrap?: BootstrapRequest;
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
@@ -61,8 +69,10 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
   const usable = (fit: MechanismFit) => Number.isFinite(fit.sse) && fit.df > 0;
   const profiles = new Map<ModelResult, ParameterProfile[]>();
   if (options.profile !== false) {
+    const leading = (m: ModelResult) => m === models[0] || m.mechanism === 'mixed';
     for (const model of models) {
       if (!usable(model.fit)) continue;
+      if (options.profileModels === 'leading' && !leading(model)) continue;
       const found = profileAllOfFit(model.fit, data, { level });
       profiles.set(model, found);
       model.profiles = found.map((p) => p.curve);
@@ -70,7 +80,7 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
         const p = found.find((x) => x.name === e.name);
         if (p) e.profile = p.interval;
       }
-      if (model.mechanism === 'mixed') {
+      if (model.mechanism === 'mixed' && options.jointRegion !== false) {
         const region = jointRegionKiKiu(model.fit, data, { level });
         if (region) model.jointRegion = region;
       }

@@ -23,7 +23,7 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { parameterLogScales, weightedProblem } from '../fit/fit-mechanism.js';
 import type { FitData } from '../fit/fit-data.js';
 import { levenbergMarquardt } from '../fit/levenberg-marquardt.js';
-import type { LeastSquaresProblem } from '../fit/least-squares-problem.js';
+import type { LeastSquaresOptions, LeastSquaresProblem } from '../fit/least-squares-problem.js';
 import { unscaledCovariance } from '../fit/qr.js';
 import { tQuantile } from '../stats/distributions.js';
 import type { ProfileCurve } from '../analysis/types.js';
@@ -31,6 +31,12 @@ import { findRoot } from './find-root.js';
 import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
 import { profileSupport, type ProfileSupport } from './profile-support.js';
 import { DETECTION_FACTOR } from './detection-bound.js';
+
+/**
+ * Tolerances of each constrained refit along a profile: the SSE to 1e-12 relative, far finer than
+ * tau needs near the cutoff (where SSE - SSE_hat is a few percent of SSE_hat).
+ */
+const PROFILE_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14 };
 
 export interface ParameterProfile {
   name: ProfiledName;
@@ -49,7 +55,7 @@ export interface ParameterProfile {
 export interface ProfileOptions {
   /** confidence level; default 0.95 */
   level?: number;
-  /** absolute tolerance of the ends on the log scale; default 1e-10 */
+  /** absolute tolerance of the ends on the log scale; default 1e-9 (a relative 1e-9 in the parameter) */
   tolerance?: number;
 }
 
@@ -81,7 +87,7 @@ function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): 
   const s2 = fit.sse / fit.df;
   const cutoff = tQuantile(1 - (1 - level) / 2, fit.df);
   const covariance = unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix.map((x) => x * s2);
-  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-10 };
+  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-9 };
 }
 
 /** Wald SE of the profiled quantity on the log scale (NaN when not identified). */
@@ -143,7 +149,7 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
   };
   const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
     fixed.value = c;
-    let r = levenbergMarquardt(problem, zStart);
+    let r = levenbergMarquardt(problem, zStart, PROFILE_FIT);
     evaluations++;
     // An arm past the detection bound sits on a flat ridge where LM cannot feel whether bringing it
     // back would help: also start from the estimate's free parameters, and from the warm start with
@@ -151,7 +157,7 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
     // lowest SSE.
     if (armOff(r.x, c)) {
       for (const z of reentryStarts(r.x, c, zStart)) {
-        const other = levenbergMarquardt(problem, z);
+        const other = levenbergMarquardt(problem, z, PROFILE_FIT);
         evaluations++;
         if (other.sse < r.sse) r = other;
       }
@@ -219,7 +225,15 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
       warm = point.z;
       return direction * point.tau - ctx.cutoff;
     };
-    const root = findRoot(g, inside.c, outside.c, direction * inside.tau - ctx.cutoff, direction * outside.tau - ctx.cutoff, ctx.tolerance);
+    const gInside = direction * inside.tau - ctx.cutoff;
+    const gOutside = direction * outside.tau - ctx.cutoff;
+    if (!(gInside < 0 && gOutside >= 0)) {
+      // The constrained fit found a different valley between the two points (tau is not monotone
+      // there); the outer point is the first one known to lie beyond the cutoff.
+      notes.push(`the ${name} profile is not monotone near its ${direction > 0 ? 'upper' : 'lower'} end; the end is the first point found beyond the cutoff`);
+      return gInside >= 0 ? inside.c : outside.c;
+    }
+    const root = findRoot(g, inside.c, outside.c, gInside, gOutside, ctx.tolerance);
     if (!root.converged) notes.push(`the ${name} interval end was not refined to full precision`);
     return root.x;
   }
