@@ -139,6 +139,13 @@ async function stageProfile(input, out) {
     }
   });
   const sample = results.slice(-tables.length);
+  const waldMs = time((t) => {
+    try {
+      lib.analyzeTable(t, { profile: false });
+    } catch {
+      // counted above
+    }
+  });
   let start = performance.now();
   for (const r of sample) lib.summarizeAnalysis(r);
   const summarizeMs = (performance.now() - start) / sample.length;
@@ -146,7 +153,7 @@ async function stageProfile(input, out) {
   start = performance.now();
   some.forEach((r, k) => writeResultFiles(r, join(out, `r${k}`)));
   const reportMs = (performance.now() - start) / some.length;
-  return { compounds: jobs.length, analysisFailures, planMsPerCompound: planMs / jobs.length, analyzeMs, fitsMs, summarizeMs, reportMs, timedOn: tables.length };
+  return { compounds: jobs.length, analysisFailures, planMsPerCompound: planMs / jobs.length, analyzeMs, waldMs, fitsMs, summarizeMs, reportMs, timedOn: tables.length };
 }
 
 function runStage(args) {
@@ -176,7 +183,7 @@ async function main() {
     for (const e of plain.errors) console.log(`              failed: ${e}`);
     console.log(`Wald only:    ${wald.compounds} compounds in ${fmt(wald.seconds, 2)} s = ${fmt(wald.compoundsPerSecond)} /s on ${wald.threadsUsed} workers (CPU ${fmt(wald.cpuSeconds, 1)} s), peak rss ${fmt(wald.peakRssMB, 0)} MB, ${wald.failed} failed`);
     console.log(`with reports: ${reports.compounds} compounds in ${fmt(reports.seconds, 2)} s = ${fmt(reports.compoundsPerSecond)} /s on ${reports.threadsUsed} workers, peak rss ${fmt(reports.peakRssMB, 0)} MB, ${reports.failed} failed`);
-    console.log(`one thread, per compound (mean over ${profile.timedOn}): analyzeTable ${fmt(profile.analyzeMs, 2)} ms, of which the five fits ${fmt(profile.fitsMs, 2)} ms; summary row ${fmt(profile.summarizeMs, 3)} ms; report folder ${fmt(profile.reportMs, 2)} ms; reading + planning ${fmt(profile.planMsPerCompound, 3)} ms${profile.analysisFailures ? `; ${profile.analysisFailures} analyzeTable calls threw` : ''}`);
+    console.log(`one thread, per compound (mean over ${profile.timedOn}): analyzeTable ${fmt(profile.analyzeMs, 2)} ms (${fmt(profile.waldMs, 2)} ms without profiles), of which the five fits ${fmt(profile.fitsMs, 2)} ms; summary row ${fmt(profile.summarizeMs, 3)} ms; report folder ${fmt(profile.reportMs, 2)} ms; reading + planning ${fmt(profile.planMsPerCompound, 3)} ms${profile.analysisFailures ? `; ${profile.analysisFailures} analyzeTable calls threw` : ''}`);
     if (scipy) {
       const oneThread = 1000 / profile.fitsMs;
       console.log(`scipy ${scipy.scipy} (one process, five fits per compound, constant error): lean ${fmt(scipy.lean.compoundsPerSecond)} /s over ${scipy.lean.compounds}, thorough ${fmt(scipy.thorough.compoundsPerSecond)} /s over ${scipy.thorough.compounds}`);
