@@ -34,8 +34,9 @@ export interface AnalysisOptions {
   profile?: boolean;
   /**
    * 'full' (default): profiles for every model and the joint (Ki, Kiu) region for the figures;
-   * 'summary': profiles for the best-ranked model and mixed only, no joint region (what a batch
-   * summary needs; the verdict and the reported constants are the same)
+   * 'summary': profiles only for the models the verdict can name, residual checks only for the
+   * winner, no joint region (what a batch summary needs; the verdict and the constants of the
+   * named mechanism are the same as with 'full')
    */
   detail?: 'full' | 'summary';
   /** wild bootstrap: resamples, seed and threads in all (see src/analysis/stage-intervals.ts) */
@@ -81,7 +82,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
   const preliminary = verdictFrom(models, nested, []);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
-  const diagnostics = runDiagnostics(models, data, errorModel);
+  const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
   const caveats: Caveat[] = caveatsFor(winner, diagnostics, data);
 
   const emCheck = winner.fit.df > 0 ? checkErrorModel(winner.fit, data) : null;

@@ -29,9 +29,13 @@ export interface DiagnosticsStage {
   errorModelCheck: ErrorModelCheck | null;
 }
 
-export function runDiagnostics(models: readonly ModelResult[], data: FitData, errorModel: ErrorModel): DiagnosticsStage {
+/**
+ * Residual checks of every model (or, with `only`, of that model alone: what a batch summary
+ * needs), and the per-series fits.
+ */
+export function runDiagnostics(models: readonly ModelResult[], data: FitData, errorModel: ErrorModel, only?: Mechanism): DiagnosticsStage {
   const residuals: DiagnosticsStage['residuals'] = {};
-  for (const m of models) if (m.fit.df > 0) residuals[m.mechanism] = residualDiagnostics(m.fit, data);
+  for (const m of models) if (m.fit.df > 0 && (only === undefined || m.mechanism === only)) residuals[m.mechanism] = residualDiagnostics(m.fit, data);
   const series = seriesFits(data, errorModel);
   return { residuals, seriesFits: series, seriesDisagreements: [], errorModelCheck: null };
 }

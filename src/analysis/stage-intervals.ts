@@ -40,9 +40,10 @@ export interface IntervalOptions {
   /** profile-likelihood intervals and curves; default true */
   profile?: boolean;
   /**
-   * which models get profiles: 'all' (default) or 'leading': the best-ranked model and mixed (whose
-   * alpha interval the verdict reads); the others keep their Wald intervals. Batch runs without
-   * reports use 'leading'.
+   * which models get profiles: 'all' (default) or 'leading': every model the verdict can name
+   * (the best-ranked model, the best three-parameter model, mixed, whose alpha interval the verdict
+   * reads, and no inhibition); the others keep their Wald intervals. Batch runs without reports use
+   * 'leading', so their summary rows equal those of a full analysis.
    */
   profileModels?: 'all' | 'leading';
   /** the joint (Ki, Kiu) region of mixed, for the report's figure; default true */
@@ -69,7 +70,8 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
   const usable = (fit: MechanismFit) => Number.isFinite(fit.sse) && fit.df > 0;
   const profiles = new Map<ModelResult, ParameterProfile[]>();
   if (options.profile !== false) {
-    const leading = (m: ModelResult) => m === models[0] || m.mechanism === 'mixed';
+    const bestThree = models.find((m) => m.p === 3 && m.mechanism !== 'mixed');
+    const leading = (m: ModelResult) => m === models[0] || m === bestThree || m.mechanism === 'mixed' || m.mechanism === 'none';
     for (const model of models) {
       if (!usable(model.fit)) continue;
       if (options.profileModels === 'leading' && !leading(model)) continue;

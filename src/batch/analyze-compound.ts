@@ -87,7 +87,10 @@ export function analyzeCompound(job: CompoundJob, settings: CompoundSettings, wr
   if (job.table === null) return failedSummary(identity, job.readError ?? 'the file could not be read');
   let result;
   try {
-    result = analyzeTable(job.table, fromPortableOptions(settings.analysis));
+    // Without reports, only what the summary row needs (the verdict and the named mechanism's
+    // constants are the same as in a full analysis; see AnalysisOptions.detail).
+    const detail = settings.reportRoot === null ? 'summary' : 'full';
+    result = analyzeTable(job.table, { ...fromPortableOptions(settings.analysis), detail });
   } catch (error) {
     return failedSummary(identity, failureText(error), job.table);
   }

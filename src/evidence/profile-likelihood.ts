@@ -55,7 +55,7 @@ export interface ParameterProfile {
 export interface ProfileOptions {
   /** confidence level; default 0.95 */
   level?: number;
-  /** absolute tolerance of the ends on the log scale; default 1e-9 (a relative 1e-9 in the parameter) */
+  /** absolute tolerance of the ends on the log scale; default 1e-8 (a relative 1e-8 in the parameter) */
   tolerance?: number;
 }
 
@@ -87,7 +87,7 @@ function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): 
   const s2 = fit.sse / fit.df;
   const cutoff = tQuantile(1 - (1 - level) / 2, fit.df);
   const covariance = unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix.map((x) => x * s2);
-  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-9 };
+  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-8 };
 }
 
 /** Wald SE of the profiled quantity on the log scale (NaN when not identified). */
@@ -173,7 +173,9 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
     ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta) }
     : evaluate(c0, zHat);
   const se = logScaleSe(ctx, q);
-  const firstStep = Number.isFinite(se) && se > 0 ? Math.min(0.5, Math.max(1e-6, (ctx.cutoff * se) / 4)) : 0.1;
+  // First step to 90% of the Wald end (cutoff x SE on the log scale): where the profile is close to
+  // quadratic the next step brackets the end, and the root search finishes it.
+  const firstStep = Number.isFinite(se) && se > 0 ? Math.min(1, Math.max(1e-6, 0.9 * ctx.cutoff * se)) : 0.1;
 
   const points: ProfilePoint[] = [start];
   const lower = walkToEnd(-1);
