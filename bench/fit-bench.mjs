@@ -24,6 +24,7 @@ import { fitAllMechanisms } from '../dist/fit/fit-all-mechanisms.js';
 import { fitDataFromArrays } from '../dist/fit/fit-data.js';
 import { analyzeTable } from '../dist/analysis/analyze-table.js';
 import { simulateRates } from '../dist/simulate/simulate-rates.js';
+import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const TARGET_MS = 5;
@@ -51,19 +52,7 @@ const datasets = Object.entries(TRUTH).map(([mechanism, params], k) => {
 });
 
 function rateTable(points) {
-  return {
-    source: '<simulated>',
-    points,
-    rowsRead: points.length,
-    excluded: [],
-    warnings: [],
-    layout: 'long',
-    separator: ',',
-    decimalMark: '.',
-    units: { substrate: null, inhibitor: null, rate: null },
-    hasSd: false,
-    detection: { layout: 'option', separator: 'option', decimalMark: 'option' },
-  };
+  return tableFromPoints(points, { source: '<simulated>' });
 }
 const fitData = (points) => fitDataFromArrays(points.map((p) => p.substrate), points.map((p) => p.inhibitor), points.map((p) => p.rate));
 

@@ -14,6 +14,7 @@
 import { performance } from 'node:perf_hooks';
 import { analyzeTable } from '../dist/analysis/analyze-table.js';
 import { simulateRates } from '../dist/simulate/simulate-rates.js';
+import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 
 const PER_MECHANISM = Number(process.argv[2] ?? 200);
 const TARGET = 0.9;
@@ -32,19 +33,7 @@ const SUBSTRATE = Array.from({ length: 8 }, (_, k) => 0.2 * KM * 50 ** (k / 7));
 const INHIBITOR = [0, 0.5, 1, 2, 4].map((x) => x * KI);
 
 function rateTable(points) {
-  return {
-    source: '<simulated>',
-    points,
-    rowsRead: points.length,
-    excluded: [],
-    warnings: [],
-    layout: 'long',
-    separator: ',',
-    decimalMark: '.',
-    units: { substrate: null, inhibitor: null, rate: null },
-    hasSd: false,
-    detection: { layout: 'option', separator: 'option', decimalMark: 'option' },
-  };
+  return tableFromPoints(points, { source: '<simulated>' });
 }
 
 /** Seeds differ per mechanism so no two mechanisms share a noise sequence. */

@@ -20,6 +20,7 @@ import { performance } from 'node:perf_hooks';
 import { cpus, loadavg } from 'node:os';
 import { analyzeTable } from '../dist/analysis/analyze-table.js';
 import { simulateRates } from '../dist/simulate/simulate-rates.js';
+import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 import { renderFigures } from '../dist/figures/render-figures.js';
 import { reportHtml } from '../dist/report/html/report-page.js';
 
@@ -37,19 +38,7 @@ const points = simulateRates({
   noiseLevel: 0.05,
   seed: 20240611,
 });
-const table = {
-  source: 'bench-mixed-120.csv',
-  points,
-  rowsRead: points.length,
-  excluded: [],
-  warnings: [],
-  layout: 'long',
-  separator: ',',
-  decimalMark: '.',
-  units: { substrate: 'uM', inhibitor: 'uM', rate: 'nM/s' },
-  hasSd: false,
-  detection: { layout: 'detected', separator: 'detected', decimalMark: 'detected' },
-};
+const table = tableFromPoints(points, { source: 'bench-mixed-120.csv', units: { substrate: 'uM', inhibitor: 'uM', rate: 'nM/s' } });
 
 function median(xs) {
   const s = [...xs].sort((a, b) => a - b);

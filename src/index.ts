@@ -23,6 +23,7 @@ export type { NestedComparison } from './evidence/nested-comparisons.js';
 export type { Verdict, VerdictOutcome } from './evidence/verdict.js';
 export { simulateRates, ratesToCsv, trueRate, type SimulationDesign, type NoiseModel } from './simulate/simulate-rates.js';
 export { seededRandom, type RandomSource } from './simulate/random.js';
+export { tableFromPoints, type InMemoryTableOptions } from './simulate/table-from-points.js';
 export { analysisJson } from './report/results-json.js';
 export { textSummary } from './report/text-summary.js';
 export { TOOL_NAME, TOOL_VERSION } from './version.js';

@@ -14,6 +14,7 @@ import { analysisJson } from '../../src/report/results-json.js';
 import { profileText, textSummary } from '../../src/report/text-summary.js';
 import { ic50AtSubstrate } from '../../src/evidence/cheng-prusoff.js';
 import { profileSupport } from '../../src/evidence/profile-support.js';
+import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 
 function table(mechanism: Mechanism, params: Partial<Record<ParamName, number>>, seed: number, inhibitorUnit: 'uM' | null = 'uM'): RateTable {
   const points = simulateRates({
@@ -26,19 +27,7 @@ function table(mechanism: Mechanism, params: Partial<Record<ParamName, number>>,
     noiseLevel: 0.2,
     seed,
   });
-  return {
-    source: '<memory>',
-    points,
-    rowsRead: points.length,
-    excluded: [],
-    warnings: [],
-    layout: 'long',
-    separator: ',',
-    decimalMark: '.',
-    units: { substrate: 'uM', inhibitor: inhibitorUnit, rate: 'nM/s' },
-    hasSd: false,
-    detection: { layout: 'detected', separator: 'detected', decimalMark: 'detected' },
-  };
+  return tableFromPoints(points, { units: { substrate: 'uM', inhibitor: inhibitorUnit, rate: 'nM/s' } });
 }
 
 const model = (r: AnalysisResult, m: Mechanism) => r.models.find((x) => x.mechanism === m)!;

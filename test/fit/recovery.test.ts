@@ -32,6 +32,7 @@ import { analyzeTable } from '../../src/analysis/analyze-table.js';
 import type { Mechanism, ParamName } from '../../src/models/types.js';
 import type { RateTable, RatePoint } from '../../src/input/types.js';
 import { simulateRates } from '../../src/simulate/simulate-rates.js';
+import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 
 const PER_MECHANISM = 30;
 const KM = 2;
@@ -47,19 +48,7 @@ const TRUTH: Record<Mechanism, Partial<Record<ParamName, number>>> = {
 };
 
 function rateTable(points: RatePoint[]): RateTable {
-  return {
-    source: '<simulated>',
-    points,
-    rowsRead: points.length,
-    excluded: [],
-    warnings: [],
-    layout: 'long',
-    separator: ',',
-    decimalMark: '.',
-    units: { substrate: null, inhibitor: null, rate: null },
-    hasSd: false,
-    detection: { layout: 'option', separator: 'option', decimalMark: 'option' },
-  };
+  return tableFromPoints(points, { source: '<simulated>' });
 }
 
 /** Seeds of the test; bench/recovery.mjs uses 500000 + ..., so the two samples do not overlap. */

@@ -1,21 +1,10 @@
 /** Builds an in-memory RateTable from simulated points (tests only; invented data). */
 import type { RatePoint, RateTable } from '../../src/input/types.js';
 import { simulateRates, type SimulationDesign } from '../../src/simulate/simulate-rates.js';
+import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 
 export function tableOf(points: RatePoint[], source = 'simulated'): RateTable {
-  return {
-    source,
-    points,
-    rowsRead: points.length,
-    excluded: [],
-    warnings: [],
-    layout: 'long',
-    separator: ',',
-    decimalMark: '.',
-    units: { substrate: 'uM', inhibitor: 'uM', rate: null },
-    hasSd: false,
-    detection: { layout: 'option', separator: 'option', decimalMark: 'option' },
-  };
+  return tableFromPoints(points, { source, units: { substrate: 'uM', inhibitor: 'uM' } });
 }
 
 export const GOOD_DESIGN = { substrate: [2, 4, 7, 10, 15, 25, 50, 100], inhibitor: [0, 1, 2, 4, 8] };
