@@ -3,7 +3,7 @@
  * (Segel 1975, ch. 3; Cornish-Bowden 2012, sec. 6.2). The inhibitor binds free enzyme only.
  */
 import type { MechanismModel } from './types.js';
-import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+import { singleConstantGuesses, roughScales } from './starting-values.js';
 
 export const competitive: MechanismModel = {
   mechanism: 'competitive',
@@ -23,6 +23,6 @@ export const competitive: MechanismModel = {
   },
   starts(data) {
     const r = roughScales(data);
-    return inhibitionConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
+    return singleConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
   },
 };

@@ -3,7 +3,7 @@
  * (Segel 1975, ch. 3; Cornish-Bowden 2012, sec. 6.4). Mixed inhibition with Ki = Kiu (alpha = 1).
  */
 import type { MechanismModel } from './types.js';
-import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+import { singleConstantGuesses, roughScales } from './starting-values.js';
 
 export const noncompetitive: MechanismModel = {
   mechanism: 'noncompetitive',
@@ -22,6 +22,6 @@ export const noncompetitive: MechanismModel = {
   },
   starts(data) {
     const r = roughScales(data);
-    return inhibitionConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
+    return singleConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);
   },
 };

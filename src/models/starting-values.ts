@@ -56,3 +56,13 @@ export function inhibitionConstantGuesses(scales: RoughScales): number[] {
   const mid = scales.inhibitorMiddle;
   return [mid * 0.2, mid, mid * 5];
 }
+
+/**
+ * Two guesses for a single inhibition constant, a decade apart around the middle of the tested
+ * [I] range; with the warm start from the no-inhibition solution (the constant far above the
+ * range) they bracket where a one-constant model can end up.
+ */
+export function singleConstantGuesses(scales: RoughScales): number[] {
+  const mid = scales.inhibitorMiddle;
+  return [mid * 0.3, mid * 3];
+}

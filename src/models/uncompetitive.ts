@@ -4,7 +4,7 @@
  * complex only; Kiu is the dissociation constant of ESI.
  */
 import type { MechanismModel } from './types.js';
-import { inhibitionConstantGuesses, roughScales } from './starting-values.js';
+import { singleConstantGuesses, roughScales } from './starting-values.js';
 
 export const uncompetitive: MechanismModel = {
   mechanism: 'uncompetitive',
@@ -23,6 +23,6 @@ export const uncompetitive: MechanismModel = {
   },
   starts(data) {
     const r = roughScales(data);
-    return inhibitionConstantGuesses(r).map((kiu) => [r.vmax, r.km, kiu]);
+    return singleConstantGuesses(r).map((kiu) => [r.vmax, r.km, kiu]);
   },
 };
