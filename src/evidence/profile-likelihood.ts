@@ -36,7 +36,7 @@ import { DETECTION_FACTOR } from './detection-bound.js';
  * Tolerances of each constrained refit along a profile: the SSE to 1e-12 relative, far finer than
  * tau needs near the cutoff (where SSE - SSE_hat is a few percent of SSE_hat).
  */
-const PROFILE_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14 };
+const PROFILE_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14, skipFinalJacobian: true };
 
 export interface ParameterProfile {
   name: ProfiledName;

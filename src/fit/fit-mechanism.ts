@@ -121,7 +121,7 @@ export function parameterLogScales(model: MechanismModel, data: FitData): Float6
  * tolerances. This costs a fraction of running every start to rounding level and finds the same
  * minimum (checked against scipy in test/fit/scipy-agreement.test.ts).
  */
-const SCREENING: LeastSquaresOptions = { ftol: 1e-8, xtol: 1e-8, gtol: 1e-10 };
+const SCREENING: LeastSquaresOptions = { ftol: 1e-8, xtol: 1e-8, gtol: 1e-10, skipFinalJacobian: true };
 
 function runStarts(problem: LeastSquaresProblem, starts: Float64Array[]): { best: LeastSquaresResult; reaching: number } {
   const results = starts.map((x0) => levenbergMarquardt(problem, x0, SCREENING));
@@ -205,7 +205,7 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
 }
 
 /** A reweighting pass: at most a few residual evaluations from the current point. */
-const REWEIGHT_STEP: LeastSquaresOptions = { maxEvaluations: 4, ftol: 1e-12, xtol: 1e-12, gtol: 1e-14 };
+const REWEIGHT_STEP: LeastSquaresOptions = { maxEvaluations: 4, ftol: 1e-12, xtol: 1e-12, gtol: 1e-14, skipFinalJacobian: true };
 
 /** The largest value a parameter can take in the fit: the upper edge of its domain. */
 export function domainEdge(model: MechanismModel, data: FitData, name: string): number {

@@ -26,6 +26,12 @@ export interface LeastSquaresOptions {
   maxEvaluations?: number;
   /** initial step bound factor (MINPACK factor); default 100 */
   factor?: number;
+  /**
+   * when true, the result's `jacobian` is the last one evaluated (possibly at the point before the
+   * last step) and no extra evaluation is made at x: for callers that discard it (screening starts,
+   * profile refits); default false
+   */
+  skipFinalJacobian?: boolean;
 }
 
 export type LeastSquaresStatus =

@@ -247,7 +247,7 @@ export function levenbergMarquardt(
 
   const finish = (status: LeastSquaresStatus, message: string, jacobianCurrent: boolean): LeastSquaresResult => {
     let jacobian = w.rowJacobian;
-    if (!jacobianCurrent && fnorm < Infinity) {
+    if (!jacobianCurrent && fnorm < Infinity && !options.skipFinalJacobian) {
       problem.jacobian(x, jacobian);
     }
     jacobian = Float64Array.from(jacobian);
