@@ -11,6 +11,14 @@ import { analyzeCompound, loadReportWriter, type CompoundSettings, type ReportWr
 import { failedSummary } from './summarize.js';
 import type { CompoundJob, CompoundSummary } from './types.js';
 
+/**
+ * Heap limit per worker. V8 otherwise lets each worker's heap grow far before collecting, which
+ * with report rendering (a DOM implementation per worker) pushed a 2-worker run past 500 MB;
+ * a cap makes it collect sooner. 384 MB of old space is several times what one compound's report
+ * needs (bench/batch-bench.mjs measures the peak).
+ */
+const WORKER_LIMITS = { maxOldGenerationSizeMb: 384 };
+
 export interface PoolOptions {
   /** number of worker threads wanted (at most one per job is started) */
   threads: number;
@@ -108,7 +116,7 @@ function runOnWorkers(
     };
 
     const start = () => {
-      const worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv() });
+      const worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
       workers.add(worker);
       let current = -1;
       let answered = false;
