@@ -74,7 +74,14 @@ describe('mechanist analyze', () => {
     const r = await run(['analyze', join(ROOT, 'data/demo/hlx-amidase-kt0417.csv'), '--out', dir]);
     expect(r.code).toBe(0);
     for (const f of ['results.json', 'parameters.csv', 'summary.txt']) expect(existsSync(join(dir, f))).toBe(true);
-    expect(readFileSync(join(dir, 'parameters.csv'), 'utf8').split('\n')[0]).toMatch(/^mechanism,rank,aicc_weight,parameter,value,se/);
+    const csv = readFileSync(join(dir, 'parameters.csv'), 'utf8').trim().split('\n');
+    expect(csv[0]).toBe('mechanism,rank,aicc_weight,parameter,value,se,wald95_low,wald95_high,profile95_low,profile95_high,detected,note');
+    const doc = JSON.parse(readFileSync(join(dir, 'results.json'), 'utf8'));
+    const best = doc.models[0];
+    const km = csv.find((line) => line.startsWith(`${best.mechanism},1,`) && line.split(',')[3] === 'Km')!.split(',');
+    expect(Number(km[4])).toBe(best.params.Km.value);
+    expect(Number(km[8])).toBe(best.params.Km.profile95[0]);
+    expect(Number(km[9])).toBe(best.params.Km.profile95[1]);
   });
 
   it('a malformed file: one line naming file, line and column; exit 2; no stack trace', async () => {
