@@ -4,7 +4,7 @@
  */
 import { InputError, type ConcentrationUnit, type Exclusion, type RatePoint } from './types.js';
 import { locate, quoteText, type Place } from './messages.js';
-import { readNumberCell, type CellProblem } from './numbers.js';
+import { looksLikeDecimalComma, looksLikeDecimalPoint, readNumberCell, type CellProblem } from './numbers.js';
 
 export interface CompoundRows {
   compound?: string;
@@ -72,7 +72,7 @@ export const ZERO_SUBSTRATE_REASON =
   '[S] = 0: a rate without substrate is a blank (background), not a point on the curve';
 
 function decimalHint(text: string, context: LayoutContext): string {
-  if (context.decimalMark === ',' && /^[+-]?\d*\.\d+$/.test(text)) return ' (this file is read with decimal commas)';
-  if (context.decimalMark === '.' && /^[+-]?\d*,\d+$/.test(text)) return ' (this file is read with decimal points)';
+  if (context.decimalMark === ',' && looksLikeDecimalPoint(text)) return ' (this file is read with decimal commas)';
+  if (context.decimalMark === '.' && looksLikeDecimalComma(text)) return ' (this file is read with decimal points)';
   return '';
 }

@@ -105,6 +105,13 @@ describe('exclusions', () => {
     expect(t.decimalMark).toBe(',');
     expect(t.excluded).toMatchObject([{ line: 7, column: 3, reason: 'rate "1.7" is not a number (this file is read with decimal commas)' }]);
   });
+
+  it('the hint also covers a decimal point written with an exponent', () => {
+    const text = 'substrate;inhibitor;rate\n1;0;1,0\n2;0;1,6\n4;0;2,2\n1;10;0,6\n2;10;1,1\n4;10;1.7e0\n';
+    const [t] = readFixtureText(text);
+    expect(t.decimalMark).toBe(',');
+    expect(t.excluded).toMatchObject([{ line: 7, column: 3, reason: 'rate "1.7e0" is not a number (this file is read with decimal commas)' }]);
+  });
 });
 
 function readFixtureText(text: string): RateTable[] {
