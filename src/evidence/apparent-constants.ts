@@ -5,6 +5,7 @@
  *   Vmax_app = Vmax / (1 + I/Kiu),   Km_app = Km (1 + I/Ki) / (1 + I/Kiu)
  * competitive: Kiu = infinity; uncompetitive: Ki = infinity; noncompetitive: Kiu = Ki.
  */
+import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { Mechanism, ParamName } from '../models/types.js';
 
 /** The (Ki, Kiu) pair of a mechanism in the mixed form (Infinity for an absent arm). */
@@ -32,4 +33,13 @@ export function apparentVmax(mechanism: Mechanism, names: readonly ParamName[], 
 export function apparentKm(mechanism: Mechanism, names: readonly ParamName[], p: ArrayLike<number>, inhibitor: number): number {
   const { ki, kiu } = inhibitionArms(mechanism, names, p);
   return (p[names.indexOf('Km')] * (1 + inhibitor / ki)) / (1 + inhibitor / kiu);
+}
+
+/** Apparent (Vmax, Km) at inhibitor level I implied by a global fit. */
+export function apparentConstants(fit: Pick<MechanismFit, 'mechanism' | 'model' | 'params'>, inhibitor: number): { Vmax: number; Km: number } {
+  const names = fit.model.params;
+  return {
+    Vmax: apparentVmax(fit.mechanism, names, fit.params, inhibitor),
+    Km: apparentKm(fit.mechanism, names, fit.params, inhibitor),
+  };
 }

@@ -3,9 +3,7 @@
  * [I]. These are diagnostics (the input of the slope and intercept replots and a consistency
  * check of the global model), never the reported constants.
  *
- * Expected apparent constants under the global model (Segel 1975, ch. 3; Cornish-Bowden 2012, ch. 6):
- *   Vmax_app = Vmax / (1 + I/Kiu),   Km_app = Km (1 + I/Ki) / (1 + I/Kiu)
- * with 1/Ki = 0 for uncompetitive and 1/Kiu = 0 for competitive (Ki = Kiu for noncompetitive).
+ * The global model's apparent constants they are compared with come from apparent-constants.ts.
  */
 import { noInhibition } from '../models/no-inhibition.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
@@ -14,6 +12,7 @@ import type { ErrorModel } from '../fit/error-models.js';
 import type { FitData } from '../fit/fit-data.js';
 import type { SeriesFit } from '../analysis/types.js';
 import { waldEstimates } from './wald-estimates.js';
+import { apparentConstants } from './apparent-constants.js';
 
 function subset(data: FitData, keep: (k: number) => boolean): FitData {
   const idx: number[] = [];
@@ -42,24 +41,6 @@ export function seriesFits(data: FitData, errorModel: ErrorModel): SeriesFit[] {
     });
   }
   return out;
-}
-
-/** Apparent (Vmax, Km) at inhibitor level I implied by a global fit. */
-export function apparentConstants(fit: MechanismFit, inhibitor: number): { Vmax: number; Km: number } {
-  const names = fit.model.params;
-  const value = (name: string) => {
-    const j = names.indexOf(name as never);
-    return j >= 0 ? fit.params[j] : Infinity;
-  };
-  const vmax = value('Vmax');
-  const km = value('Km');
-  let ki = value('Ki');
-  let kiu = value('Kiu');
-  if (fit.mechanism === 'noncompetitive') kiu = ki;
-  if (fit.mechanism === 'none') ki = kiu = Infinity;
-  const free = 1 + inhibitor / ki;
-  const bound = 1 + inhibitor / kiu;
-  return { Vmax: vmax / bound, Km: (km * free) / bound };
 }
 
 export interface SeriesDisagreement {

@@ -9,7 +9,7 @@ import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
 import type { ResidualDiagnostics } from '../../../evidence/residual-diagnostics.js';
 import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/residual-diagnostics.js';
 import { CLEARLY_WORSE_DELTA } from '../../../evidence/error-model-check.js';
-import { apparentConstants } from '../../../evidence/series-fits.js';
+import { apparentConstants } from '../../../evidence/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { displayUnit } from '../../../figures/axis-units.js';
