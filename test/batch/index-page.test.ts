@@ -9,7 +9,8 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { foreignRequests, launchChromium, watchPage, type HeadlessBrowser, type PageWatch } from '../helpers/chromium.js';
 import { indexPage } from '../../src/batch/index-page.js';
 import { failedSummary } from '../../src/batch/summarize.js';
 import type { CompoundSummary, ConstantSummary } from '../../src/batch/types.js';
@@ -49,34 +50,25 @@ const rows: CompoundSummary[] = [
   failedSummary({ position: 6, compound: 'BAD', nameInFile: null, source: 'bad.csv' }, 'bad.csv:3:2: rate "x" is not a number'),
 ];
 
-const BROWSER_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
-
 describe('batch index page in headless Chromium', () => {
-  let browser: BrowserContext;
+  let browser: HeadlessBrowser;
   let page: Page;
-  let profile: string;
-  const problems: string[] = [];
-  const requests: string[] = [];
+  let watch: PageWatch;
+  let dir: string;
 
   beforeAll(async () => {
-    const dir = mkdtempSync(join(tmpdir(), 'mechanist-index-'));
+    dir = mkdtempSync(join(tmpdir(), 'mechanist-index-'));
     const file = join(dir, 'index.html');
     writeFileSync(file, indexPage(rows, { settings: { errorModel: 'constant', level: 0.95, reports: true, analysis: {} }, finishedAt: new Date(0) }));
-    profile = mkdtempSync(join(tmpdir(), 'mechanist-chromium-'));
-    // a fresh profile folder (playwright passes it to Chromium as --user-data-dir)
-    browser = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args: BROWSER_ARGS });
-    page = browser.pages()[0] ?? (await browser.newPage());
-    page.on('console', (m) => {
-      if (m.type() === 'error' || m.type() === 'warning') problems.push(`${m.type()}: ${m.text()}`);
-    });
-    page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
-    page.on('request', (r) => requests.push(r.url()));
+    browser = await launchChromium();
+    page = await browser.context.newPage();
+    watch = watchPage(page);
     await page.goto(pathToFileURL(file).href);
   });
 
   afterAll(async () => {
     await browser?.close();
-    if (profile) rmSync(profile, { recursive: true, force: true });
+    if (dir) rmSync(dir, { recursive: true, force: true });
   });
 
   const column = (heading: string) =>
@@ -90,9 +82,9 @@ describe('batch index page in headless Chromium', () => {
 
   it('loads without console errors and fetches nothing', async () => {
     expect(await page.textContent('#shown')).toBe('6 of 6 compounds shown');
-    expect(problems).toEqual([]);
-    expect(requests.every((u) => u.startsWith('file://'))).toBe(true);
-    expect(requests).toHaveLength(1);
+    expect(watch.problems).toEqual([]);
+    expect(foreignRequests(watch.requests)).toEqual([]);
+    expect(watch.requests).toHaveLength(1);
     // escaped text, not markup
     expect(await page.locator('details li').first().textContent()).toBe('a <b>flag</b> & more');
     expect(await page.locator('a', { hasText: 'CPD-10' }).getAttribute('href')).toBe('compounds/CPD-10/report.html');
@@ -112,7 +104,7 @@ describe('batch index page in headless Chromium', () => {
     expect(await column('Compound')).toEqual(['BAD', 'CPD-10', 'CPD-2', 'CPD-9', 'NONE-1', 'WEAK']);
     await sortButton('#').click();
     expect(await column('#')).toEqual(['1', '2', '3', '4', '5', '6']);
-    expect(problems).toEqual([]);
+    expect(watch.problems).toEqual([]);
   });
 
   it('filters by outcome and by search text', async () => {
@@ -127,6 +119,6 @@ describe('batch index page in headless Chromium', () => {
     await page.selectOption('#outcome', '');
     await page.fill('#search', '');
     expect(await column('Compound')).toHaveLength(6);
-    expect(problems).toEqual([]);
+    expect(watch.problems).toEqual([]);
   });
 });

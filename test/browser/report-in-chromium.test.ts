@@ -14,26 +14,20 @@ import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
 import { runCli } from '../../src/cli/run-cli.js';
 import { simulateRates, ratesToCsv } from '../../src/simulate/simulate-rates.js';
-import { launchChromium, type HeadlessBrowser } from './chromium.js';
+import { foreignRequests, launchChromium, watchPage, type HeadlessBrowser, type PageWatch } from '../helpers/chromium.js';
+import { GOOD_DESIGN, TRUE_PARAMS } from '../helpers/sim-table.js';
 
 let browser: HeadlessBrowser;
 let page: Page;
+let watch: PageWatch;
 let out: string;
-const consoleErrors: string[] = [];
-const foreignRequests: string[] = [];
 
 beforeAll(async () => {
   out = mkdtempSync(join(tmpdir(), 'mechanist-report-'));
   expect(await runCli(['demo', '--out', out], { out: () => {}, err: () => {}, errIsTTY: false, cwd: out })).toBe(0);
   browser = await launchChromium();
   page = await browser.context.newPage();
-  page.on('console', (m) => {
-    if (m.type() === 'error' || m.type() === 'warning') consoleErrors.push(m.text());
-  });
-  page.on('pageerror', (e) => consoleErrors.push(String(e)));
-  page.on('request', (r) => {
-    if (!r.url().startsWith('file://')) foreignRequests.push(r.url());
-  });
+  watch = watchPage(page);
   await page.goto(pathToFileURL(join(out, 'report.html')).href, { waitUntil: 'load' });
 });
 
@@ -84,8 +78,8 @@ function collectFigureChecks(selector: string): FigureCheck[] {
 
 describe('demo report in headless Chromium', () => {
   it('loads with no console errors and fetches nothing', () => {
-    expect(consoleErrors).toEqual([]);
-    expect(foreignRequests).toEqual([]);
+    expect(watch.problems).toEqual([]);
+    expect(foreignRequests(watch.requests)).toEqual([]);
   });
 
   it('every figure has a non-zero size, a title, and all its text inside the viewBox', async () => {
@@ -140,16 +134,14 @@ function collectLayoutChecks(ids: string[]): { missing: string[]; pageOverflow: 
 describe('a full analyze report (robust, automatic error model, bootstrap, IC50) in headless Chromium', () => {
   let full: Page;
   let folder: string;
-  const errors: string[] = [];
-  const requests: string[] = [];
+  let fullWatch: PageWatch;
 
   beforeAll(async () => {
     folder = mkdtempSync(join(tmpdir(), 'mechanist-full-report-'));
     const points = simulateRates({
       mechanism: 'mixed',
-      params: { Vmax: 100, Km: 10, Ki: 2, Kiu: 10 },
-      substrate: [2, 4, 7, 10, 15, 25, 50, 100],
-      inhibitor: [0, 1, 2, 4, 8],
+      params: TRUE_PARAMS.mixed,
+      ...GOOD_DESIGN,
       replicates: 3,
       noise: 'proportional',
       noiseLevel: 0.05,
@@ -162,13 +154,7 @@ describe('a full analyze report (robust, automatic error model, bootstrap, IC50)
     const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'auto', '--bootstrap', '30', '--seed', '4', '--at-substrate', '20'], { out: () => {}, err: () => {}, errIsTTY: false, cwd: folder });
     expect(code).toBe(0);
     full = await browser.context.newPage();
-    full.on('console', (m) => {
-      if (m.type() === 'error' || m.type() === 'warning') errors.push(m.text());
-    });
-    full.on('pageerror', (e) => errors.push(String(e)));
-    full.on('request', (r) => {
-      if (!r.url().startsWith('file://')) requests.push(r.url());
-    });
+    fullWatch = watchPage(full);
     await full.goto(pathToFileURL(join(folder, 'out', 'report.html')).href, { waitUntil: 'load' });
     // open every collapsed block so that its tables are laid out and measured too
     await full.evaluate(() => document.querySelectorAll('details').forEach((d) => (d.open = true)));
@@ -177,8 +163,8 @@ describe('a full analyze report (robust, automatic error model, bootstrap, IC50)
   afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
   it('loads with no console errors and fetches nothing', () => {
-    expect(errors).toEqual([]);
-    expect(requests).toEqual([]);
+    expect(fullWatch.problems).toEqual([]);
+    expect(foreignRequests(fullWatch.requests)).toEqual([]);
   });
 
   it('has the derived quantities, the checks with the suspect and down-weighted points, and the excluded values', async () => {
