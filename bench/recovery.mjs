@@ -13,24 +13,13 @@
  */
 import { performance } from 'node:perf_hooks';
 import { analyzeTable } from '../dist/analysis/analyze-table.js';
-import { simulateRates } from '../dist/simulate/simulate-rates.js';
+import { REFERENCE_INHIBITOR, REFERENCE_K, REFERENCE_KM, REFERENCE_SUBSTRATE, simulateReferenceDesign } from '../dist/simulate/reference-design.js';
 import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 
 const PER_MECHANISM = Number(process.argv[2] ?? 200);
 const TARGET = 0.9;
-const KM = 2;
-const KI = 1;
+// the design and the (invented) truth: src/simulate/reference-design.ts, shared with the tests
 const MECHANISMS = ['none', 'competitive', 'uncompetitive', 'noncompetitive', 'mixed'];
-/** True parameters (invented): alpha = 4 for mixed. */
-const TRUTH = {
-  none: { Vmax: 100, Km: KM },
-  competitive: { Vmax: 100, Km: KM, Ki: KI },
-  uncompetitive: { Vmax: 100, Km: KM, Kiu: KI },
-  noncompetitive: { Vmax: 100, Km: KM, Ki: KI },
-  mixed: { Vmax: 100, Km: KM, Ki: KI, Kiu: 4 * KI },
-};
-const SUBSTRATE = Array.from({ length: 8 }, (_, k) => 0.2 * KM * 50 ** (k / 7));
-const INHIBITOR = [0, 0.5, 1, 2, 4].map((x) => x * KI);
 
 function rateTable(points) {
   return tableFromPoints(points, { source: '<simulated>' });
@@ -47,16 +36,7 @@ MECHANISMS.forEach((mechanism, m) => {
   const firsts = Object.fromEntries(MECHANISMS.map((x) => [x, 0]));
   let worstNoneDelta = 0;
   for (let k = 0; k < PER_MECHANISM; k++) {
-    const points = simulateRates({
-      mechanism,
-      params: TRUTH[mechanism],
-      substrate: SUBSTRATE,
-      inhibitor: INHIBITOR,
-      replicates: 3,
-      noise: 'proportional',
-      noiseLevel: 0.05,
-      seed: seedFor(m, k),
-    });
+    const points = simulateReferenceDesign(mechanism, seedFor(m, k));
     // profile intervals play no part in the AICc ranking: switched off for speed
     const result = analyzeTable(rateTable(points), { errorModel: 'proportional', profile: false });
     firsts[result.models[0].mechanism]++;
@@ -68,7 +48,7 @@ const seconds = (performance.now() - started) / 1000;
 
 const pct = (x) => `${(100 * x).toFixed(1)}%`;
 console.log(`recovery: ${PER_MECHANISM} datasets per mechanism, 5% proportional noise, proportional error model, ranked by AICc`);
-console.log(`design: [S] ${SUBSTRATE.map((s) => s.toPrecision(3)).join(', ')} (Km ${KM}); [I] ${INHIBITOR.join(', ')} (Ki ${KI}); 3 replicates`);
+console.log(`design: [S] ${REFERENCE_SUBSTRATE.map((s) => s.toPrecision(3)).join(', ')} (Km ${REFERENCE_KM}); [I] ${REFERENCE_INHIBITOR.join(', ')} (Ki ${REFERENCE_K}); 3 replicates`);
 console.log('');
 console.log(`| truth | ranked first: ${MECHANISMS.join(' | ')} | true first | 95% interval (Wilson) |`);
 console.log(`|---|${MECHANISMS.map(() => '---:').join('|')}|---:|---|`);

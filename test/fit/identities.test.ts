@@ -12,32 +12,15 @@ import { fitDataFromArrays, type FitData } from '../../src/fit/fit-data.js';
 import type { ErrorModel } from '../../src/fit/error-models.js';
 import type { MechanismFit } from '../../src/fit/fit-mechanism.js';
 import { detectionBound } from '../../src/evidence/detection-bound.js';
-import { simulateRates } from '../../src/simulate/simulate-rates.js';
+import { REFERENCE_INHIBITOR, REFERENCE_KM, REFERENCE_TRUTH, simulateReferenceDesign } from '../../src/simulate/reference-design.js';
 
-const KM = 2;
-const SUBSTRATE = Array.from({ length: 8 }, (_, k) => 0.2 * KM * 50 ** (k / 7));
-const INHIBITOR = [0, 0.5, 1, 2, 4];
-const MAX_I = 4;
-const TRUTH: Record<Mechanism, Partial<Record<ParamName, number>>> = {
-  none: { Vmax: 100, Km: KM },
-  competitive: { Vmax: 100, Km: KM, Ki: 1 },
-  uncompetitive: { Vmax: 100, Km: KM, Kiu: 1 },
-  noncompetitive: { Vmax: 100, Km: KM, Ki: 1 },
-  mixed: { Vmax: 100, Km: KM, Ki: 1, Kiu: 4 },
-};
+const KM = REFERENCE_KM;
+const MAX_I = Math.max(...REFERENCE_INHIBITOR);
+const TRUTH = REFERENCE_TRUTH;
 const NESTED: Mechanism[] = ['none', 'competitive', 'uncompetitive', 'noncompetitive'];
 
 function simulate(mechanism: Mechanism, noiseLevel: number, seed: number): FitData {
-  const points = simulateRates({
-    mechanism,
-    params: TRUTH[mechanism],
-    substrate: SUBSTRATE,
-    inhibitor: INHIBITOR,
-    replicates: 3,
-    noise: 'proportional',
-    noiseLevel,
-    seed,
-  });
+  const points = simulateReferenceDesign(mechanism, seed, noiseLevel);
   return fitDataFromArrays(points.map((p) => p.substrate), points.map((p) => p.inhibitor), points.map((p) => p.rate));
 }
 

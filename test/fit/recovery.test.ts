@@ -29,23 +29,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeTable } from '../../src/analysis/analyze-table.js';
-import type { Mechanism, ParamName } from '../../src/models/types.js';
+import type { Mechanism } from '../../src/models/types.js';
 import type { RateTable, RatePoint } from '../../src/input/types.js';
-import { simulateRates } from '../../src/simulate/simulate-rates.js';
+import { simulateReferenceDesign } from '../../src/simulate/reference-design.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 
 const PER_MECHANISM = 30;
-const KM = 2;
-const KI = 1;
-const SUBSTRATE = Array.from({ length: 8 }, (_, k) => 0.2 * KM * 50 ** (k / 7));
-const INHIBITOR = [0, 0.5, 1, 2, 4].map((x) => x * KI);
-const TRUTH: Record<Mechanism, Partial<Record<ParamName, number>>> = {
-  none: { Vmax: 100, Km: KM },
-  competitive: { Vmax: 100, Km: KM, Ki: KI },
-  uncompetitive: { Vmax: 100, Km: KM, Kiu: KI },
-  noncompetitive: { Vmax: 100, Km: KM, Ki: KI },
-  mixed: { Vmax: 100, Km: KM, Ki: KI, Kiu: 4 * KI },
-};
 
 function rateTable(points: RatePoint[]): RateTable {
   return tableFromPoints(points, { source: '<simulated>' });
@@ -60,16 +49,7 @@ function recovery(mechanism: Mechanism, m: number) {
   let first = 0;
   let worstNoneDelta = 0;
   for (let k = 0; k < PER_MECHANISM; k++) {
-    const points = simulateRates({
-      mechanism,
-      params: TRUTH[mechanism],
-      substrate: SUBSTRATE,
-      inhibitor: INHIBITOR,
-      replicates: 3,
-      noise: 'proportional',
-      noiseLevel: 0.05,
-      seed: seedFor(m, k),
-    });
+    const points = simulateReferenceDesign(mechanism, seedFor(m, k));
     // profile intervals play no part in the AICc ranking; they are switched off to keep the test fast
     const result = analyzeTable(rateTable(points), { errorModel: 'proportional', profile: false } as Parameters<typeof analyzeTable>[1]);
     if (result.models[0].mechanism === mechanism) first++;
