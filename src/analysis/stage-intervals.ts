@@ -108,7 +108,11 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
   for (const model of models) {
     if (!usable(model.fit)) continue;
     const { definitions, skipped } = derivedDefinitions(model.fit.model, levels, units, options.atSubstrate);
-    const derived = definitions.map((d) => derivedQuantity(model, d, profiles.get(model), run, level, maxI));
+    const waldBasis: WaldBasis = {
+      logCovariance: waldEstimates(model.fit, maxI, level).logCovariance,
+      t: tQuantile(1 - (1 - level) / 2, model.fit.df),
+    };
+    const derived = definitions.map((d) => derivedQuantity(model, d, profiles.get(model), run, level, maxI, waldBasis));
     model.derived = [
       ...derived,
       ...skipped.map((note): DerivedQuantity => ({ name: note.startsWith('pKiu') ? 'pKiu' : 'pKi', unit: null, value: null, se: null, wald: null, note })),
@@ -142,6 +146,14 @@ function addBootstrapToEstimates(model: ModelResult, run: BootstrapRun, level: n
   }
 }
 
+/** What every Wald interval of one model's derived quantities shares. */
+interface WaldBasis {
+  /** covariance of theta = ln p */
+  logCovariance: Float64Array;
+  /** two-sided t quantile at the interval level, with the fit's residual df */
+  t: number;
+}
+
 function derivedQuantity(
   model: ModelResult,
   d: DerivedDefinition,
@@ -149,6 +161,7 @@ function derivedQuantity(
   run: BootstrapRun | undefined,
   level: number,
   maxI: number,
+  wald: WaldBasis,
 ): DerivedQuantity {
   const fit = model.fit;
   const base: DerivedQuantity = {
@@ -177,12 +190,10 @@ function derivedQuantity(
     return base;
   }
   base.value = value;
-  const cov = waldEstimates(fit, maxI, level).logCovariance;
-  const se = deltaMethodSe(logScaleGradient(d.evaluate, fit.theta), cov, value);
-  const t = tQuantile(1 - (1 - level) / 2, fit.df);
+  const se = deltaMethodSe(logScaleGradient(d.evaluate, fit.theta), wald.logCovariance, value);
   if (Number.isFinite(se)) {
     base.se = se;
-    base.wald = [value - t * se, value + t * se];
+    base.wald = [value - wald.t * se, value + wald.t * se];
   }
   if (run) {
     const b = bootstrapIntervalsOf(run, model.mechanism, (p) => d.evaluate(p), value, level);
