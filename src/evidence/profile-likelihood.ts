@@ -8,9 +8,9 @@
  * The interval at level 1 - a is {c : |tau(c)| <= t(1 - a/2, n - p)}. It does not depend on the
  * parametrisation (ln Ki or Ki give the same ends), unlike a Wald interval.
  *
- * Search, for each end: step outward from the estimate (first step a quarter of the Wald half-width,
- * doubled whenever |tau| grows by less than an eighth of the cutoff per step, so a flat profile is
- * crossed quickly), re-optimising the free parameters by Levenberg-Marquardt from the previous
+ * Search, for each end: step outward from the estimate (first step 90% of the Wald half-width on the
+ * log scale, at most 1; doubled whenever |tau| grows by less than an eighth of the cutoff per step,
+ * so a flat profile is crossed quickly), re-optimising the free parameters by Levenberg-Marquardt from the previous
  * point (warm start); once |tau| passes the cutoff, the end is the root of |tau| - cutoff, found by
  * Brent's method in the last step (find-root.ts). An end not reached inside the data's support
  * (profile-support.ts) is open (null): the search never reports the edge of its box as an end.
