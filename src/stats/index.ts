@@ -3,10 +3,8 @@ export * from './distributions.js';
 export { countSignRuns, type SignRunCount } from './sign-runs.js';
 export { runsDistribution, runsMoments, logBinomial, type RunsMoments } from './runs-distribution.js';
 export { exactRunsTails, normalRunsTails, type RunsTailProbabilities } from './runs-p-values.js';
-export {
-  runsTest, chooseRunsMethod, DEFAULT_EXACT_MAX_TOTAL,
-  type RunsTestOptions, type RunsTestResult, type RunsMethodChoice,
-} from './runs-test.js';
+export { chooseRunsMethod, DEFAULT_EXACT_MAX_TOTAL, type RunsTestOptions, type RunsMethodChoice } from './runs-method.js';
+export { runsTest, type RunsTestResult } from './runs-test.js';
 export { pooledRunsTest, convolvedRunsDistribution, type PooledRunsTestResult } from './pooled-runs-test.js';
 export { shapiroWilk, shapiroWilkCoefficients, type ShapiroWilkResult } from './shapiro-wilk.js';
 export { averageRanks } from './average-ranks.js';

@@ -11,7 +11,7 @@
  * 147-162 applied to a sum of independent statistics; pooling this way is common practice.
  *
  * With `method: 'auto'` the exact convolution is used when every series has n+ + n- <=
- * `exactMaxTotal` (default 50), otherwise the normal approximation.
+ * `exactMaxTotal` (default 50, see runs-method.ts), otherwise the normal approximation.
  * A series whose nonzero residuals all share one sign contributes R = 1 with certainty (no
  * information but no distortion); the pooled test is 'not-applicable' (NaN p-values) only when
  * every series is like that. Zeros are dropped within each series.
@@ -19,7 +19,7 @@
 import { countSignRuns, type SignRunCount } from './sign-runs.js';
 import { runsDistribution, runsMoments } from './runs-distribution.js';
 import { exactRunsTails, normalRunsTails } from './runs-p-values.js';
-import { chooseRunsMethod, type RunsTestOptions } from './runs-test.js';
+import { chooseRunsMethod, type RunsTestOptions } from './runs-method.js';
 
 export interface PooledRunsTestResult {
   /** total runs over all series */

@@ -4,23 +4,16 @@
  *
  * Zeros are dropped (see sign-runs.ts). Method choice with `method: 'auto'` (the default): exact
  * probabilities from the combinatorial distribution of runs when n+ + n- <= `exactMaxTotal`
- * (default 50, which covers every case with n+ and n- both <= 20, the range of the
- * Swed-Eisenhart (1943) tables); otherwise the normal approximation with continuity correction.
+ * (default 50, see runs-method.ts); otherwise the normal approximation with continuity correction.
  * When every nonzero residual has the same sign, the conditional test carries no information:
  * `method` is 'not-applicable' and the p-values are NaN (the caller should report the one-signed
  * series itself, which is a strong sign of misfit).
+ *
+ * One series is the pooled test (pooled-runs-test.ts) over a list of one: the convolution of a
+ * single pmf is that pmf, and the summed moments are its own.
  */
-import { countSignRuns } from './sign-runs.js';
-import { runsDistribution, runsMoments } from './runs-distribution.js';
-import { exactRunsTails, normalRunsTails } from './runs-p-values.js';
-
-export type RunsMethodChoice = 'auto' | 'exact' | 'normal';
-
-export interface RunsTestOptions {
-  method?: RunsMethodChoice;
-  /** largest n+ + n- for which 'auto' uses exact probabilities; default 50 */
-  exactMaxTotal?: number;
-}
+import { pooledRunsTest } from './pooled-runs-test.js';
+import type { RunsTestOptions } from './runs-method.js';
 
 export interface RunsTestResult {
   runs: number;
@@ -39,32 +32,20 @@ export interface RunsTestResult {
   pTwoSided: number;
 }
 
-export const DEFAULT_EXACT_MAX_TOTAL = 50;
-
 export function runsTest(residuals: ArrayLike<number>, options: RunsTestOptions = {}): RunsTestResult {
-  const count = countSignRuns(residuals);
-  const { mean, variance } = runsMoments(count.nPositive, count.nNegative);
-  const base = {
-    ...count,
-    expectedRuns: mean,
-    varianceRuns: variance,
-    z: variance > 0 ? (count.runs - mean) / Math.sqrt(variance) : NaN,
+  const pooled = pooledRunsTest([residuals], options);
+  const { nPositive, nNegative, zerosDropped } = pooled.series[0];
+  return {
+    runs: pooled.runs,
+    nPositive,
+    nNegative,
+    zerosDropped,
+    expectedRuns: pooled.expectedRuns,
+    varianceRuns: pooled.varianceRuns,
+    z: pooled.z,
+    method: pooled.method,
+    pTooFew: pooled.pTooFew,
+    pTooMany: pooled.pTooMany,
+    pTwoSided: pooled.pTwoSided,
   };
-  if (count.nPositive === 0 || count.nNegative === 0) {
-    return { ...base, method: 'not-applicable', pTooFew: NaN, pTooMany: NaN, pTwoSided: NaN };
-  }
-  const total = count.nPositive + count.nNegative;
-  const method = chooseRunsMethod(options, [total]);
-  const tails = method === 'exact'
-    ? exactRunsTails(runsDistribution(count.nPositive, count.nNegative), count.runs)
-    : normalRunsTails(count.runs, mean, variance);
-  return { ...base, method, ...tails };
-}
-
-/** Resolves 'auto' to 'exact' when every series total is within the exact limit. */
-export function chooseRunsMethod(options: RunsTestOptions, seriesTotals: number[]): 'exact' | 'normal' {
-  const choice = options.method ?? 'auto';
-  if (choice !== 'auto') return choice;
-  const limit = options.exactMaxTotal ?? DEFAULT_EXACT_MAX_TOTAL;
-  return seriesTotals.every((t) => t <= limit) ? 'exact' : 'normal';
 }
