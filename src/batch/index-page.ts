@@ -6,6 +6,7 @@
  * only (summary.csv and summary.json carry no dates).
  */
 import { interval, sig } from '../report/format-number.js';
+import { escapeHtml } from '../report/html/escape.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { summaryCounts, type BatchSettings } from './summary-files.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
@@ -14,10 +15,6 @@ export interface IndexPageContext {
   settings: BatchSettings;
   /** when the run finished (shown on the page) */
   finishedAt: Date;
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 }
 
 interface PageCell {
