@@ -8,7 +8,7 @@
  * The ModelResults are completed in place; the bootstrap summary is returned.
  */
 import { MECHANISMS } from '../models/index.js';
-import type { FitData } from '../fit/fit-data.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
 import { jointRegionKiKiu } from '../evidence/joint-region.js';
@@ -52,12 +52,6 @@ export interface IntervalOptions {
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
   onProgress?: (done: number, total: number) => void;
-}
-
-function maxOf(xs: Float64Array): number {
-  let m = 0;
-  for (const x of xs) if (x > m) m = x;
-  return m;
 }
 
 function distinctLevels(xs: Float64Array): number[] {
@@ -104,7 +98,7 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
   }
 
   const levels = distinctLevels(data.i);
-  const maxI = maxOf(data.i);
+  const maxI = maxInhibitor(data);
   for (const model of models) {
     if (!usable(model.fit)) continue;
     const { definitions, skipped } = derivedDefinitions(model.fit.model, levels, units, options.atSubstrate);

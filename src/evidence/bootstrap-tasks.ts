@@ -22,7 +22,7 @@ import { modelFor } from '../models/index.js';
 import type { Mechanism } from '../models/types.js';
 import { refitFromStarts, type Refit } from './bootstrap-refit.js';
 import type { ErrorModel } from '../fit/error-models.js';
-import type { FitData } from '../fit/fit-data.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
 import { aicc } from './information-criteria.js';
 import { seededRandom } from '../simulate/random.js';
 
@@ -82,9 +82,7 @@ export function wildResample(plan: BootstrapPlan, index: number, out: Float64Arr
 
 /** A constant far above the tested [I] range, to start an arm switched off (as fit-all-mechanisms does). */
 function farConstant(data: FitData): number {
-  let imax = 0;
-  for (const x of data.i) imax = Math.max(imax, x);
-  return 100 * (imax || 1);
+  return 100 * (maxInhibitor(data) || 1);
 }
 
 /**
