@@ -45,7 +45,7 @@ export interface BootstrapRun {
   failures: Record<string, number>;
 }
 
-/** The model that generates the resamples: most parameters, then lowest SSE-based AICc order given. */
+/** The model that generates the resamples: the one with most parameters (the lower SSE on a tie). */
 function generatingFit(fits: readonly MechanismFit[]): MechanismFit {
   let best = fits[0];
   for (const f of fits) if (f.p > best.p || (f.p === best.p && f.sse < best.sse)) best = f;
