@@ -59,12 +59,15 @@ describe('bootstrap reproducibility', () => {
       expect(Math.abs(Math.abs(x - plan.fitted[k]) - Math.abs(plan.scaledResiduals[k]))).toBeLessThan(1e-12);
       if ((x - plan.fitted[k]) * plan.scaledResiduals[k] > 0) ups++;
     });
+    // derived in the test: 60 points, each up with probability 1/2, so ups ~ Binomial(60, 1/2)
+    // (mean 30, SD 3.9); 16..44 is about +/- 3.6 SD, false alarm under 1 in 1000
     expect(ups).toBeGreaterThan(15);
     expect(ups).toBeLessThan(45);
   });
   it('the mixed data are recognised as mixed in most resamples, and the Ki interval holds the estimate', () => {
     const run = runBootstrap(fits, data, { resamples: 60, seed: 1 });
     expect(run.generatingModel).toBe('mixed');
+    // this test's choice (no source): data simulated from mixed with Kiu/Ki = 4 should pick mixed in a majority
     expect(run.selection.mixed).toBeGreaterThan(0.5);
     const ki = fits[4].params[2];
     const b = bootstrapIntervalsOf(run, 'mixed', (p) => p[2], ki, 0.95);
