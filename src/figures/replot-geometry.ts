@@ -24,6 +24,7 @@
  * (2012) Fundamentals of Enzyme Kinetics, 4th ed.)
  */
 import type { ModelResult } from '../analysis/types.js';
+import { inhibitionArms } from '../evidence/apparent-constants.js';
 
 /** The rate constants of a global fit, an absent arm at +Infinity. */
 export interface RateConstants {
@@ -44,27 +45,12 @@ export interface Point {
   y: number;
 }
 
-/** The constants of a fitted model, in the mixed form (see the file comment). */
+/** The constants of a fitted model, in the mixed form (see the file comment and inhibitionArms). */
 export function rateConstants(model: Pick<ModelResult, 'mechanism' | 'fit'>): RateConstants {
   const names = model.fit.model.params;
-  const get = (name: string): number => {
-    const j = names.indexOf(name as never);
-    return j < 0 ? Infinity : model.fit.params[j];
-  };
-  const Vmax = get('Vmax');
-  const Km = get('Km');
-  switch (model.mechanism) {
-    case 'none':
-      return { Vmax, Km, Ki: Infinity, Kiu: Infinity };
-    case 'competitive':
-      return { Vmax, Km, Ki: get('Ki'), Kiu: Infinity };
-    case 'uncompetitive':
-      return { Vmax, Km, Ki: Infinity, Kiu: get('Kiu') };
-    case 'noncompetitive':
-      return { Vmax, Km, Ki: get('Ki'), Kiu: get('Ki') };
-    case 'mixed':
-      return { Vmax, Km, Ki: get('Ki'), Kiu: get('Kiu') };
-  }
+  const p = model.fit.params;
+  const { ki, kiu } = inhibitionArms(model.mechanism, names, p);
+  return { Vmax: p[names.indexOf('Vmax')], Km: p[names.indexOf('Km')], Ki: ki, Kiu: kiu };
 }
 
 /** The global-fit rate at (S, I). */
@@ -72,8 +58,11 @@ export function modelRate(c: RateConstants, s: number, i: number): number {
   return (c.Vmax * s) / (c.Km * (1 + i / c.Ki) + s * (1 + i / c.Kiu));
 }
 
-/** Apparent Michaelis-Menten constants at inhibitor level I. */
-export function apparentConstants(c: RateConstants, i: number): { Vmax: number; Km: number } {
+/**
+ * Apparent Michaelis-Menten constants at inhibitor level I, from constants already in the mixed
+ * form (src/evidence/apparent-constants.ts computes the same from a fit's parameter vector).
+ */
+function apparentAtLevel(c: RateConstants, i: number): { Vmax: number; Km: number } {
   const u = 1 + i / c.Kiu;
   return { Vmax: c.Vmax / u, Km: (c.Km * (1 + i / c.Ki)) / u };
 }
@@ -100,7 +89,7 @@ export function hanesWoolfLine(c: RateConstants, i: number): Line {
 
 /** v against v/[S] at inhibitor level I. */
 export function eadieHofsteeLine(c: RateConstants, i: number): Line {
-  const app = apparentConstants(c, i);
+  const app = apparentAtLevel(c, i);
   return { slope: -app.Km, intercept: app.Vmax };
 }
 
