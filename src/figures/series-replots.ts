@@ -6,7 +6,7 @@
  * analysis carries per-series fits.
  */
 import type { SeriesFit } from '../analysis/types.js';
-import type { FigureContext } from './figure-context.js';
+import { concentrationText, type FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';
 import { paddedExtent } from './axes.js';
@@ -15,7 +15,6 @@ import { drawMarkers, drawPolyline, BEST_LINE_WIDTH } from './model-lines.js';
 import { INK } from './palette.js';
 import { interceptReplotLine, slopeReplotLine, xIntercept, type Line, type RateConstants } from './replot-geometry.js';
 import { lineExtent, QUALITATIVE_BADGE } from './replot-figures.js';
-import { sig } from '../report/format-number.js';
 
 interface SeriesReplotSpec {
   id: string;
@@ -41,7 +40,7 @@ function renderSeriesReplot(ctx: FigureContext, fits: readonly SeriesFit[], spec
   const crossText =
     cross === null
       ? `The global line is flat: ${spec.constant} is not part of the ${ctx.best.mechanism} model.`
-      : `The global line crosses zero at [I] = ${sig(cross, 3)}${ctx.units.inhibitor ? ' ' + ctx.units.inhibitor : ''} (= -${spec.constant})${extent.meetShown ? '' : ', outside the drawn range'}.`;
+      : `The global line crosses zero at [I] = ${concentrationText(cross, ctx.units.inhibitor)} (= -${spec.constant})${extent.meetShown ? '' : ', outside the drawn range'}.`;
   const notes = [`Points: each [I] series fitted alone (diagnostic). Line: global ${ctx.best.mechanism} fit. ${crossText}`];
   const svg = renderXYFigure({
     id: spec.id,
