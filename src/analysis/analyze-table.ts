@@ -7,7 +7,7 @@ import { MECHANISMS } from '../models/index.js';
 import type { Mechanism, MechanismModel } from '../models/types.js';
 import { fitAllMechanisms } from '../fit/fit-all-mechanisms.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
-import { fitDataFromTable, type FitData } from '../fit/fit-data.js';
+import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
@@ -15,9 +15,9 @@ import { waldEstimates, type ParameterEstimate } from '../evidence/wald-estimate
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
 import { addIntervals, type BootstrapRequest } from './stage-intervals.js';
 import { decideVerdict, type Caveat, type Verdict } from '../evidence/verdict.js';
-import { candidateErrorModels } from '../evidence/error-model-check.js';
+import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-check.js';
 import { robustRefit } from '../evidence/robust-refit.js';
-import { caveatsFor, checkErrorModel, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
+import { caveatsFor, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
 import { noInhibitionReason } from '../evidence/detection-limit.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
 
@@ -184,15 +184,10 @@ function bestAiccOf(fits: readonly MechanismFit[]): number {
   return Math.min(...fits.map((f) => aicc(f.logLik, f.p + 1, f.n)));
 }
 
-function maxOf(xs: Float64Array): number {
-  let m = 0;
-  for (const x of xs) if (x > m) m = x;
-  return m;
-}
 
 /** Criteria, weights and estimates for each fit; sorted by AICc, best first. */
 export function rankModels(fits: readonly MechanismFit[], data: FitData, level: number): ModelResult[] {
-  const maxI = maxOf(data.i);
+  const maxI = maxInhibitor(data);
   const k = fits.map((f) => f.p + 1);
   const a = fits.map((f, j) => (Number.isFinite(f.sse) ? aicc(f.logLik, k[j], f.n) : Infinity));
   const b = fits.map((f, j) => bic(f.logLik, k[j], f.n));

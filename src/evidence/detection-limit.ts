@@ -6,12 +6,11 @@
  * been missed.
  */
 import type { ModelResult } from '../analysis/types.js';
-import type { FitData } from '../fit/fit-data.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
 import { sig } from '../report/format-number.js';
 
 export function noInhibitionReason(models: readonly ModelResult[], data: FitData): string {
-  let imax = 0;
-  for (const x of data.i) imax = Math.max(imax, x);
+  const imax = maxInhibitor(data);
   const inhibited = models.find((m) => m.mechanism !== 'none' && m.p === 3);
   const est = inhibited?.estimates.find((e) => e.name === 'Ki' || e.name === 'Kiu');
   if (!inhibited || !est) return `highest [I] tested: ${sig(imax, 3)}`;

@@ -15,7 +15,8 @@ import type { Mechanism } from '../models/types.js';
 import { fitMechanism, type MechanismFit } from '../fit/fit-mechanism.js';
 import { fitAllMechanisms } from '../fit/fit-all-mechanisms.js';
 import type { ErrorModel } from '../fit/error-models.js';
-import type { FitData } from '../fit/fit-data.js';
+import { subsetFitData, type FitData } from '../fit/fit-data.js';
+import { median } from '../stats/median.js';
 
 export const BISQUARE_C = 4.685;
 
@@ -37,11 +38,6 @@ export interface RobustRefit {
   kept: number[];
 }
 
-function median(xs: number[]): number {
-  const a = [...xs].sort((x, y) => x - y);
-  const m = a.length >> 1;
-  return a.length % 2 ? a[m] : 0.5 * (a[m - 1] + a[m]);
-}
 
 /** Tukey bisquare weights for residuals r at scale s. */
 export function bisquareWeights(r: ArrayLike<number>, scale: number, c = BISQUARE_C): Float64Array {
@@ -58,10 +54,6 @@ export function madScale(r: ArrayLike<number>): number {
   return median(Array.from(r, Math.abs)) / 0.6745;
 }
 
-function subset(data: FitData, idx: number[]): FitData {
-  const pick = (a: Float64Array) => Float64Array.from(idx, (k) => a[k]);
-  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
-}
 
 export function robustRefit(data: FitData, errorModel: ErrorModel, start: MechanismFit, maxPasses = 50): RobustRefit {
   const n = data.v.length;
@@ -86,7 +78,7 @@ export function robustRefit(data: FitData, errorModel: ErrorModel, start: Mechan
   }
   const kept: number[] = [];
   for (let k = 0; k < n; k++) if (weights[k] > 0) kept.push(k);
-  const robustData = subset(data, kept);
+  const robustData = subsetFitData(data, kept);
   const keptWeights = Float64Array.from(kept, (k) => weights[k]);
   const fits = fitAllMechanisms(robustData, errorModel, MECHANISMS, { weightMultipliers: keptWeights });
   const downWeighted: DownWeightedPoint[] = [];

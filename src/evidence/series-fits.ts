@@ -9,16 +9,16 @@ import { noInhibition } from '../models/no-inhibition.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitMechanism } from '../fit/fit-mechanism.js';
 import type { ErrorModel } from '../fit/error-models.js';
-import type { FitData } from '../fit/fit-data.js';
+import { subsetFitData, type FitData } from '../fit/fit-data.js';
 import type { SeriesFit } from '../analysis/types.js';
 import { waldEstimates } from './wald-estimates.js';
 import { apparentConstants } from './apparent-constants.js';
 
-function subset(data: FitData, keep: (k: number) => boolean): FitData {
-  const idx: number[] = [];
-  for (let k = 0; k < data.v.length; k++) if (keep(k)) idx.push(k);
-  const pick = (a: Float64Array) => Float64Array.from(idx, (k) => a[k]);
-  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
+/** Indices of the points tested at inhibitor concentration `level`. */
+function seriesIndices(inhibitor: Float64Array, level: number): number[] {
+  const out: number[] = [];
+  for (let k = 0; k < inhibitor.length; k++) if (inhibitor[k] === level) out.push(k);
+  return out;
 }
 
 /** Michaelis-Menten fit of each [I] series with at least 3 distinct [S] levels. */
@@ -26,7 +26,7 @@ export function seriesFits(data: FitData, errorModel: ErrorModel): SeriesFit[] {
   const levels = [...new Set(data.i)].sort((a, b) => a - b);
   const out: SeriesFit[] = [];
   for (const level of levels) {
-    const series = subset(data, (k) => data.i[k] === level);
+    const series = subsetFitData(data, seriesIndices(data.i, level));
     if (new Set(series.s).size < 3) continue;
     const fit = fitMechanism(noInhibition, series, errorModel);
     const est = waldEstimates(fit, 0).estimates;

@@ -8,14 +8,12 @@
 import { MECHANISMS } from '../models/index.js';
 import type { Mechanism, MechanismModel } from '../models/types.js';
 import type { ErrorModel } from './error-models.js';
-import type { FitData } from './fit-data.js';
+import { maxInhibitor, type FitData } from './fit-data.js';
 import { domainEdge, fitAtParams, fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
 
 /** A constant far above the tested inhibitor range, used to start an arm "switched off". */
 function farConstant(data: FitData): number {
-  let imax = 0;
-  for (const x of data.i) imax = Math.max(imax, x);
-  return 100 * (imax || 1);
+  return 100 * (maxInhibitor(data) || 1);
 }
 
 /**

@@ -34,3 +34,16 @@ export function fitDataFromArrays(s: ArrayLike<number>, i: ArrayLike<number>, v:
   if (sd) data.sd = Float64Array.from(sd);
   return data;
 }
+
+/** The highest inhibitor concentration tested (0 for a table without inhibitor). */
+export function maxInhibitor(data: FitData): number {
+  let imax = 0;
+  for (const x of data.i) if (x > imax) imax = x;
+  return imax;
+}
+
+/** The points at the given indices, in that order. */
+export function subsetFitData(data: FitData, indices: readonly number[]): FitData {
+  const pick = (a: Float64Array) => Float64Array.from(indices, (k) => a[k]);
+  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
+}

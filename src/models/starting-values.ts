@@ -4,6 +4,7 @@
  * nonlinear fit). Common practice, no single published source.
  */
 import type { KineticData } from './types.js';
+import { median } from '../stats/median.js';
 
 export interface RoughScales {
   /** a little above the largest rate seen without inhibitor (or overall) */
@@ -44,12 +45,6 @@ export function roughScales(data: KineticData): RoughScales {
   return { vmax, km, inhibitorLevels: levels, inhibitorMiddle };
 }
 
-function median(xs: number[]): number {
-  if (xs.length === 0) return NaN;
-  const sorted = [...xs].sort((a, b) => a - b);
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid] : 0.5 * (sorted[mid - 1] + sorted[mid]);
-}
 
 /** Inhibition-constant guesses spanning the tested inhibitor range (a small log grid). */
 export function inhibitionConstantGuesses(scales: RoughScales): number[] {
