@@ -14,11 +14,11 @@ import type { FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import { seriesDisagreements, seriesFits, type SeriesDisagreement } from '../evidence/series-fits.js';
-import { checkErrorModel, type ErrorModelCheck } from '../evidence/error-model-check.js';
+import type { ErrorModelCheck } from '../evidence/error-model-check.js';
 import { designCaveats } from '../evidence/design-caveats.js';
 import type { Caveat } from '../evidence/verdict.js';
 import type { ModelResult, SeriesFit } from './types.js';
-import { pValue } from '../report/format-number.js';
+import { pPhrase } from '../report/format-number.js';
 
 export const DIAGNOSTIC_LEVEL = 0.01;
 
@@ -54,26 +54,26 @@ export function caveatsFor(winner: ModelResult, stage: DiagnosticsStage, data: F
     if (d.runs.pTooFew < DIAGNOSTIC_LEVEL)
       out.push({
         code: 'residual-runs',
-        message: `the ${name} residuals run in long same-sign stretches along [S] (runs test p ${pValue(d.runs.pTooFew)}): the model misses systematically`,
+        message: `the ${name} residuals run in long same-sign stretches along [S] (runs test ${pPhrase(d.runs.pTooFew)}): the model misses systematically`,
         blocking: true,
         suggestion: 'look at the residual panels; consider a mechanism outside the five (partial or tight-binding inhibition) or a data problem',
       });
     if (d.lackOfFit.applicable && d.lackOfFit.p < DIAGNOSTIC_LEVEL)
       out.push({
         code: 'lack-of-fit',
-        message: `the ${name} fit departs from the replicate means more than replicate scatter allows (lack-of-fit p ${pValue(d.lackOfFit.p)})`,
+        message: `the ${name} fit departs from the replicate means more than replicate scatter allows (lack-of-fit ${pPhrase(d.lackOfFit.p)})`,
         blocking: true,
         suggestion: 'check for outliers, drift across the plate, or a mechanism outside the five',
       });
     for (const [key, label] of [['substrate', '[S]'], ['inhibitor', '[I]'], ['fitted', 'the fitted rate']] as const) {
       const t = d.trends[key];
       if (t.p < DIAGNOSTIC_LEVEL)
-        out.push({ code: `trend-${key}`, message: `the ${name} residuals drift with ${label} (Spearman rho ${t.rho.toFixed(2)}, p ${pValue(t.p)})`, blocking: false });
+        out.push({ code: `trend-${key}`, message: `the ${name} residuals drift with ${label} (Spearman rho ${t.rho.toFixed(2)}, ${pPhrase(t.p)})`, blocking: false });
     }
     if (d.normality && d.normality.p < DIAGNOSTIC_LEVEL)
       out.push({
         code: 'non-normal',
-        message: `the ${name} residuals are not normal (Shapiro-Wilk p ${pValue(d.normality.p)}): intervals may be off`,
+        message: `the ${name} residuals are not normal (Shapiro-Wilk ${pPhrase(d.normality.p)}): intervals may be off`,
         blocking: false,
         suggestion: 'check the error model and look for outliers (--robust)',
       });
@@ -121,4 +121,3 @@ export function errorModelCaveat(check: ErrorModelCheck, callChangesUnderBest: M
       };
 }
 
-export { checkErrorModel };

@@ -23,6 +23,7 @@
  */
 import type { Mechanism } from '../models/types.js';
 import type { NestedComparison } from './nested-comparisons.js';
+import { pPhrase } from '../report/format-number.js';
 
 export type VerdictOutcome = 'decisive' | 'mixed-lean' | 'undecided' | 'no-inhibition';
 
@@ -90,10 +91,6 @@ function pairKey(a: Mechanism, b: Mechanism): string {
   return [a, b].sort().join('|');
 }
 
-function fmtP(p: number): string {
-  if (!Number.isFinite(p)) return 'not available';
-  return p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`;
-}
 
 function fmtD(d: number): string {
   return d.toFixed(1);
@@ -130,7 +127,7 @@ export function decideVerdict(input: VerdictInput): Verdict {
     reasons.push(
       bestOverall.mechanism === 'none'
         ? 'the model without inhibition has the lowest AICc'
-        : `no inhibited model improves significantly on the model without inhibition (best: ${strongest!.fuller}, ${fmtP(strongest!.p)})`,
+        : `no inhibited model improves significantly on the model without inhibition (best: ${strongest!.fuller}, ${pPhrase(strongest!.p)})`,
     );
     suggestions.push('test higher inhibitor concentrations (several times the expected Ki or the IC50)');
     addCaveats(caveats, reasons, suggestions, false);
@@ -157,12 +154,12 @@ export function decideVerdict(input: VerdictInput): Verdict {
     if (mixedFit && vsMixed && mixedFit.aicc < best3.aicc && vsMixed.p < mixedLevel) {
       winner = mixedFit;
       reasons.push(
-        `mixed improves on the best three-parameter model, ${best3.mechanism} (${fmtP(vsMixed.p)}, AICc lower by ${fmtD(best3.aicc - mixedFit.aicc)})`,
+        `mixed improves on the best three-parameter model, ${best3.mechanism} (${pPhrase(vsMixed.p)}, AICc lower by ${fmtD(best3.aicc - mixedFit.aicc)})`,
       );
     } else {
       winner = best3;
       if (mixedFit && vsMixed)
-        reasons.push(`the extra constant of mixed is not supported against ${best3.mechanism} (${fmtP(vsMixed.p)})`);
+        reasons.push(`the extra constant of mixed is not supported against ${best3.mechanism} (${pPhrase(vsMixed.p)})`);
     }
   }
 
@@ -211,7 +208,7 @@ export function decideVerdict(input: VerdictInput): Verdict {
     reasons.push(`the ${winner.mechanism} fit did not converge`);
   }
   const detection = test('none', winner.mechanism);
-  if (none && detection) reasons.unshift(`inhibition is detected: ${winner.mechanism} improves on no inhibition (${fmtP(detection.p)})`);
+  if (none && detection) reasons.unshift(`inhibition is detected: ${winner.mechanism} improves on no inhibition (${pPhrase(detection.p)})`);
   const blocked = addCaveats(caveats, reasons, suggestions, true);
   if (blocked && (outcome === 'decisive' || outcome === 'mixed-lean')) outcome = 'undecided';
 

@@ -1,20 +1,20 @@
 /** The "checks" block of the text summary: the main diagnostic flags of the winning model. */
 import type { AnalysisResult } from '../analysis/types.js';
-import { pValue, sig } from './format-number.js';
+import { pPhrase, sig } from './format-number.js';
 
 export function diagnosticLines(result: AnalysisResult): string[] {
   const mech = result.verdict.mechanism;
   const d = mech ? result.residualChecks?.[mech] : undefined;
   const lines: string[] = [];
   if (d) {
-    lines.push(`  runs of residual signs along [S]: ${d.runs.runs} (expected ${sig(d.runs.expectedRuns, 3)}), too-few-runs p ${pValue(d.runs.pTooFew)}`);
+    lines.push(`  runs of residual signs along [S]: ${d.runs.runs} (expected ${sig(d.runs.expectedRuns, 3)}), too-few-runs ${pPhrase(d.runs.pTooFew)}`);
     lines.push(
       d.lackOfFit.applicable
-        ? `  lack of fit against replicate scatter: F = ${sig(d.lackOfFit.F, 3)}, p ${pValue(d.lackOfFit.p)}`
+        ? `  lack of fit against replicate scatter: F = ${sig(d.lackOfFit.F, 3)}, ${pPhrase(d.lackOfFit.p)}`
         : `  lack of fit: not tested (${d.lackOfFit.reason})`,
     );
-    lines.push(`  residual trend vs [S] p ${pValue(d.trends.substrate.p)}, vs [I] p ${pValue(d.trends.inhibitor.p)}, vs fitted p ${pValue(d.trends.fitted.p)}`);
-    if (d.normality) lines.push(`  normality of studentised residuals (Shapiro-Wilk): W = ${d.normality.W.toFixed(3)}, p ${pValue(d.normality.p)}`);
+    lines.push(`  residual trend vs [S] ${pPhrase(d.trends.substrate.p)}, vs [I] ${pPhrase(d.trends.inhibitor.p)}, vs fitted ${pPhrase(d.trends.fitted.p)}`);
+    if (d.normality) lines.push(`  normality of studentised residuals (Shapiro-Wilk): W = ${d.normality.W.toFixed(3)}, ${pPhrase(d.normality.p)}`);
     for (const s of d.suspects) {
       const line = result.table.points[s.index]?.line;
       lines.push(`  ! suspect point, line ${line ?? '?'} ([S] ${sig(s.substrate)}, [I] ${sig(s.inhibitor)}, rate ${sig(s.rate)}): ${s.why}, studentised ${sig(s.studentised, 3)}, leverage ${sig(s.leverage, 2)}`);

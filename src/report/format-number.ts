@@ -15,6 +15,12 @@ export function pValue(p: number | null | undefined): string {
   return p < 0.001 ? '< 0.001' : p.toFixed(3);
 }
 
+/** A p value as a phrase: "p < 0.001" or "p = 0.123". */
+export function pPhrase(p: number | null | undefined): string {
+  const text = pValue(p);
+  return text.startsWith('<') ? `p ${text}` : text === '–' ? 'p not available' : `p = ${text}`;
+}
+
 /** An interval as "[lo, hi]"; an open end shows as "…" with the side named by the caller. */
 export function interval(lo: number | null | undefined, hi: number | null | undefined, digits = 4): string {
   const a = lo === null || lo === undefined ? '…' : sig(lo, digits);
