@@ -1,7 +1,9 @@
 /**
  * Every figure of an analysis is well-formed standalone SVG (parsed as XML by jsdom with no
  * parsererror), has a <title> and <desc>, a viewBox 85 mm (241 pt) wide, no text below 8 pt, and
- * escapes user text. Figures whose inputs are absent are left out. Data: the shipped demo table
+ * escapes user text (85 mm for one journal column and 8 pt as the smallest printed text are common
+ * practice in journal figure guidelines, no single source; 85 mm = 85/25.4·72 = 240.9 pt).
+ * Figures whose inputs are absent are left out. Data: the shipped demo table
  * (invented, data/demo/) and simulated tables (test/helpers/sim-table.ts).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
