@@ -39,11 +39,6 @@ export function parseConcentrationUnit(
   );
 }
 
-/** True when `text` is one of the accepted unit spellings. */
-export function isConcentrationUnit(text: string): boolean {
-  return UNIT_SPELLINGS[text.trim()] !== undefined;
-}
-
 /** The power of ten that takes a value in `from` to a value in `to` (uM -> nM is +3). */
 export function unitShift(from: ConcentrationUnit, to: ConcentrationUnit): number {
   return DECIMAL_EXPONENT[from] - DECIMAL_EXPONENT[to];
