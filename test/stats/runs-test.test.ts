@@ -76,7 +76,7 @@ describe('runsTest', () => {
     expect(res.pTooMany).toBeCloseTo(c.pTooMany, 12);
     expect(res.pTwoSided).toBeCloseTo(c.pTwoSided, 12);
   });
-  it('normal approximation is close to exact at n1 = n2 = 20 (both computed here)', () => {
+  it('normal approximation is close to exact at n1 = n2 = 20 (both computed here; the 0.01 bound is chosen here, no source)', () => {
     const seq = [...Array(20).fill(1), ...Array(20).fill(-1)];
     for (let i = 0; i < 40; i += 7) seq.push(seq.splice(i, 1)[0]);
     const exact = runsTest(seq, { method: 'exact' });
@@ -114,8 +114,11 @@ describe('pooledRunsTest vs enumeration of all joint arrangements', () => {
   it('normal option uses summed means and variances', () => {
     const series = [[1, 1, -1, -1, 1], [-1, 1, 1, -1, -1, -1], [1, -1]];
     const res = pooledRunsTest(series, { method: 'normal' });
-    const sumMean = [[3, 2], [2, 4], [1, 1]].reduce((a, [p, q]) => a + runsMoments(p, q).mean, 0);
+    const counts = [[3, 2], [2, 4], [1, 1]];
+    const sumMean = counts.reduce((a, [p, q]) => a + runsMoments(p, q).mean, 0);
+    const sumVariance = counts.reduce((a, [p, q]) => a + runsMoments(p, q).variance, 0);
     expect(res.expectedRuns).toBeCloseTo(sumMean, 14);
+    expect(res.varianceRuns).toBeCloseTo(sumVariance, 14);
     expect(res.runs).toBe(3 + 3 + 2);
     expect(res.method).toBe('normal');
   });
