@@ -3,7 +3,7 @@
  * options), its report folder when asked for (writeResultFiles), and its summary row. Runs in a
  * worker thread or in the calling thread; never throws for a bad compound, the row says why.
  */
-import { join, relative, sep } from 'node:path';
+import { basename, join, relative, sep } from 'node:path';
 import { analyzeTable, AnalysisError, type AnalysisOptions } from '../analysis/analyze-table.js';
 import { modelFor } from '../models/index.js';
 import type { Mechanism } from '../models/types.js';
@@ -72,7 +72,7 @@ function failureText(error: unknown): string {
 
 function reportLink(written: string[], root: string): string | null {
   for (const name of REPORT_ENTRY_FILES) {
-    const path = written.find((p) => p.endsWith(`${sep}${name}`) || p.endsWith(`/${name}`));
+    const path = written.find((p) => basename(p) === name);
     if (path) return relative(root, path).split(sep).join('/');
   }
   return null;
