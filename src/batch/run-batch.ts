@@ -15,7 +15,7 @@ import type { Json } from '../report/results-json.js';
 import { writeFileAtomic } from '../report/write-atomic.js';
 import { collectInputFiles } from './collect-inputs.js';
 import { planCompounds } from './plan-compounds.js';
-import { toPortableOptions } from './analyze-compound.js';
+import { toPortableOptions, type PortableAnalysisOptions } from './analyze-compound.js';
 import { runCompoundJobs } from './worker-pool.js';
 import { summaryCounts, summaryCsv, summaryJson, type BatchSettings } from './summary-files.js';
 import { indexPage } from './index-page.js';
@@ -62,8 +62,8 @@ export interface BatchResult {
   settings: BatchSettings;
 }
 
-function batchSettings(options: BatchOptions): BatchSettings {
-  const analysis = JSON.parse(JSON.stringify(toPortableOptions(options.analysis ?? {}))) as { [key: string]: Json };
+function batchSettings(options: BatchOptions, portable: PortableAnalysisOptions): BatchSettings {
+  const analysis = JSON.parse(JSON.stringify(portable)) as { [key: string]: Json };
   return {
     errorModel: options.analysis?.errorModel ?? 'constant',
     level: options.analysis?.level ?? 0.95,
@@ -89,12 +89,13 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
   const jobs = await planCompounds(files, options.parse ?? {});
   options.onPlan?.(jobs.length);
   const out = options.out ? resolve(cwd, options.out) : null;
-  const settings = batchSettings(options);
+  const portable = toPortableOptions(options.analysis ?? {});
+  const settings = batchSettings(options, portable);
   let done = 0;
   const { rows, threadsUsed, workerProblem } = await runCompoundJobs(jobs, {
     threads: options.jobs ?? availableParallelism(),
     settings: {
-      analysis: toPortableOptions(options.analysis ?? {}),
+      analysis: portable,
       reportRoot: options.reports ? out : null,
       command: options.command ?? 'mechanist batch',
       startedAt,
