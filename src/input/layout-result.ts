@@ -67,6 +67,11 @@ function problemReason(problem: CellProblem, cell: string, what: string, context
   }
 }
 
+/** The error for a file that holds no cells at all (only blank lines, spaces or separators). */
+export function emptyFileError(source: string): InputError {
+  return new InputError(`${locate(source, { line: 1 })}the file is empty; it needs a header line and data rows`, source, 1);
+}
+
 /** Reason text for a row or cell at [S] = 0. */
 export const ZERO_SUBSTRATE_REASON =
   '[S] = 0: a rate without substrate is a blank (background), not a point on the curve';

@@ -14,6 +14,7 @@ import { EXCLUDE_YES_WORDS, readExcludeFlag } from './exclude-flag.js';
 import { parseConcentrationUnit } from './units.js';
 import { readNumberCell } from './numbers.js';
 import {
+  emptyFileError,
   readConcentrationCell,
   readRateCell,
   ZERO_SUBSTRATE_REASON,
@@ -101,7 +102,7 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
   const { source } = context;
   const firstIndex = rows.findIndex((row) => !isBlankRow(row));
   if (firstIndex < 0) {
-    throw new InputError(`${locate(source, { line: 1 })}the file is empty; it needs a header line and data rows`, source, 1);
+    throw emptyFileError(source);
   }
   const header = rows[firstIndex];
   const dataRows = rows.slice(firstIndex + 1).filter((row) => !isBlankRow(row));

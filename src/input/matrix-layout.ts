@@ -25,6 +25,7 @@ import { splitHeaderName } from './header.js';
 import { parseConcentrationUnit } from './units.js';
 import { readNumberCell } from './numbers.js';
 import {
+  emptyFileError,
   readConcentrationCell,
   readRateCell,
   ZERO_SUBSTRATE_REASON,
@@ -109,7 +110,7 @@ function splitBlocks(rows: TextRow[], source: string): Block[] {
     );
   }
   if (blocks.length === 0) {
-    throw new InputError(`${locate(source, { line: 1 })}the file is empty; it needs a header line and data rows`, source, 1);
+    throw emptyFileError(source);
   }
   return blocks;
 }

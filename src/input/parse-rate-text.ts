@@ -13,7 +13,7 @@ import { readMatrixLayout } from './matrix-layout.js';
 import { parseConcentrationUnit } from './units.js';
 import { convertUnits } from './convert-units.js';
 import { checkUsableDesign, dataWarnings } from './table-checks.js';
-import type { CompoundRows, LayoutResult } from './layout-result.js';
+import { emptyFileError, type CompoundRows, type LayoutResult } from './layout-result.js';
 
 const SEPARATORS = [',', '\t', ';'] as const;
 
@@ -27,7 +27,7 @@ export function parseRateText(text: string, options: ParseOptions & { source: st
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   refuseBinaryText(body, source);
   if (body.trim() === '') {
-    throw new InputError(`${locate(source, { line: 1 })}the file is empty; it needs a header line and data rows`, source, 1);
+    throw emptyFileError(source);
   }
   if (options.separator !== undefined && !SEPARATORS.includes(options.separator)) {
     throw new InputError(`${locate(source)}separator option ${quoteText(String(options.separator))} not supported; use ",", ";" or a tab`, source);

@@ -36,6 +36,12 @@ describe('input errors', () => {
     expect(inputErrorOf(() => parseRateText('\n\n', { source: 'e.csv' })).message).toBe(
       'e.csv:1: the file is empty; it needs a header line and data rows',
     );
+    // lines of separators and spaces only: empty too, for either layout
+    for (const layout of ['long', 'matrix'] as const) {
+      expect(inputErrorOf(() => parseRateText(',,\n , \n', { source: 's.csv', layout })).message).toBe(
+        's.csv:1: the file is empty; it needs a header line and data rows',
+      );
+    }
   });
 
   it('missing required column names the columns found', () => {
