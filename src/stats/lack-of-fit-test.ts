@@ -77,23 +77,20 @@ export function lackOfFitTest(
     return notApplicable(`only ${groups} distinct conditions for ${parameterCount} parameters, so no lack-of-fit degrees of freedom`);
   }
 
+  const weightOf = (i: number): number => (weights ? weights[i] : 1);
+  /** e_i = r_i / sqrt(w_i), the unweighted residual */
+  const residualOf = (i: number): number => (weights ? weightedResiduals[i] / Math.sqrt(weights[i]) : weightedResiduals[i]);
   let pureErrorSS = 0;
   for (const idx of members.values()) {
     if (idx.length < 2) continue;
     let sumW = 0;
     let sumWe = 0;
     for (const i of idx) {
-      const w = weights ? weights[i] : 1;
-      const e = weights ? weightedResiduals[i] / Math.sqrt(w) : weightedResiduals[i];
-      sumW += w;
-      sumWe += w * e;
+      sumW += weightOf(i);
+      sumWe += weightOf(i) * residualOf(i);
     }
     const meanE = sumWe / sumW;
-    for (const i of idx) {
-      const w = weights ? weights[i] : 1;
-      const e = weights ? weightedResiduals[i] / Math.sqrt(w) : weightedResiduals[i];
-      pureErrorSS += w * (e - meanE) ** 2;
-    }
+    for (const i of idx) pureErrorSS += weightOf(i) * (residualOf(i) - meanE) ** 2;
   }
   if (!(pureErrorSS > 0)) return notApplicable('replicates agree exactly, so the pure-error sum of squares is zero');
   // SSE >= SS_pe in exact arithmetic; clamp rounding below zero
