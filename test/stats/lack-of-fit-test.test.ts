@@ -46,6 +46,7 @@ describe('lackOfFitTest not applicable', () => {
   it('zero pure error', () => {
     const res = lackOfFitTest([0.1, 0.1, 0.3, 0.3, -0.2], [1, 1, 2, 2, 3], 1);
     expect(res.applicable).toBe(false);
+    if (!res.applicable) expect(res.reason).toMatch(/pure-error sum of squares is zero/);
   });
   it('bad input is an error', () => {
     expect(() => lackOfFitTest([0.1, NaN], [1, 1], 1)).toThrow(/index 1/);
