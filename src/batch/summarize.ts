@@ -39,7 +39,7 @@ export function constantSummary(e: ParameterEstimate): ConstantSummary {
 }
 
 /** Input warnings and fits that did not converge, one plain line each. */
-export function analysisFlags(result: AnalysisResult): string[] {
+function analysisFlags(result: AnalysisResult): string[] {
   const flags = result.input.warnings.map((w) => w.message);
   for (const m of result.models) if (!m.converged) flags.push(`the ${m.label} fit did not converge: ${m.message}`);
   return flags;

@@ -37,7 +37,7 @@ export interface PoolOutcome {
 }
 
 /** The compiled worker script beside this module (dist/batch/worker.js), or null when absent. */
-export function workerScriptPath(): string | null {
+function workerScriptPath(): string | null {
   const path = fileURLToPath(new URL('./worker.js', import.meta.url));
   return existsSync(path) ? path : null;
 }
@@ -63,7 +63,7 @@ function runInThread(jobs: readonly CompoundJob[], options: PoolOptions, writeRe
  * Node options for the workers: the parent's, less those that only make sense for a main script
  * (--input-type, --eval, --print and their values), which a worker refuses.
  */
-export function workerExecArgv(argv: readonly string[] = process.execArgv): string[] {
+function workerExecArgv(argv: readonly string[] = process.execArgv): string[] {
   const kept: string[] = [];
   for (let k = 0; k < argv.length; k++) {
     const arg = argv[k];

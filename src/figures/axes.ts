@@ -42,7 +42,7 @@ export function createScale(spec: AxisSpec, range: [number, number]): NumericSca
 }
 
 /** A domain that a scale can take: positive for log, and never empty. */
-export function safeDomain(spec: AxisSpec): [number, number] {
+function safeDomain(spec: AxisSpec): [number, number] {
   let [lo, hi] = spec.domain;
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) [lo, hi] = [0, 1];
   if (spec.kind === 'log') {

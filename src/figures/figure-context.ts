@@ -43,7 +43,7 @@ export function drawnModel(result: AnalysisResult): ModelResult {
 }
 
 /** The next model by AICc after the drawn one, when it converged. */
-export function runnerUpModel(result: AnalysisResult, best: ModelResult): ModelResult | null {
+function runnerUpModel(result: AnalysisResult, best: ModelResult): ModelResult | null {
   return result.models.find((m) => m !== best && m.converged && Number.isFinite(m.aicc)) ?? null;
 }
 

@@ -34,7 +34,7 @@ function itemWidth(item: LegendItem): number {
 }
 
 /** Rows the legend needs at this width (for layout before drawing). */
-export function legendRows(items: readonly LegendItem[], width: number, heading?: string): LegendItem[][] {
+function legendRows(items: readonly LegendItem[], width: number, heading?: string): LegendItem[][] {
   const rows: LegendItem[][] = [];
   let row: LegendItem[] = [];
   let used = heading ? textWidth(heading, FONT.legend) + GAP : 0;

@@ -103,7 +103,7 @@ function seriesOf(ctx: FigureContext, per: LineFamilyReplot['per']): SeriesLevel
   return per === 'inhibitor' ? ctx.inhibitor : ctx.substrate;
 }
 
-export function renderLineFamilyReplot(ctx: FigureContext, spec: LineFamilyReplot): FigureOutput {
+function renderLineFamilyReplot(ctx: FigureContext, spec: LineFamilyReplot): FigureOutput {
   const { data } = ctx.result;
   const c = ctx.bestConstants;
   const series = seriesOf(ctx, spec.per);
@@ -175,7 +175,7 @@ export function renderLineFamilyReplot(ctx: FigureContext, spec: LineFamilyReplo
 }
 
 /** The five line-family replots of the brief, with their axis titles in the table's units. */
-export function lineFamilyReplots(ctx: FigureContext): LineFamilyReplot[] {
+function lineFamilyReplots(ctx: FigureContext): LineFamilyReplot[] {
   const u = ctx.units;
   const invV = reciprocalUnit(u.rate);
   const sOverV = quotientUnit(u.substrate, u.rate);

@@ -59,7 +59,7 @@ export function startFigure(spec: { id: string; title: string; desc: string; hei
 export const BADGE_HEIGHT = FONT.note + 7;
 
 /** Draws a framed badge (e.g. "qualitative") with its top-left at (x, y). */
-export function drawBadge(g: Group, text: string, x: number, y: number): void {
+function drawBadge(g: Group, text: string, x: number, y: number): void {
   const w = textWidth(text, FONT.note) + 8;
   g.append('rect')
     .attr('class', 'badge')
@@ -106,7 +106,7 @@ export function notesHeight(notes: readonly string[], width: number): number {
 }
 
 /** Room needed right of the plot so the last x tick label is not cut. */
-export function rightGutter(x: NumericScale, spec: AxisSpec): number {
+function rightGutter(x: NumericScale, spec: AxisSpec): number {
   const ticks = ticksOf(x, spec);
   const last = ticks.length ? ticks[ticks.length - 1] : 0;
   const [, d1] = x.domain();

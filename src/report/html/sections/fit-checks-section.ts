@@ -31,7 +31,7 @@ function flaggedBelow(p: number | null): boolean {
 }
 
 /** The residual tests of one mechanism, in a fixed order. */
-export function residualTestRows(d: ResidualDiagnostics): TestRow[] {
+function residualTestRows(d: ResidualDiagnostics): TestRow[] {
   const rows: TestRow[] = [];
   const runs = d.runs;
   if (runs.method === 'not-applicable') {
