@@ -7,8 +7,10 @@ import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { diagnosticsJson } from './diagnostics-json.js';
+import { jsonNumber, jsonPair, type Json } from './json-values.js';
 
-export type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
+export type { Json } from './json-values.js';
+
 
 /** "ci95" for level 0.95, "ci99" for 0.99, "ci90" for 0.9 (key named for the level). */
 export function levelKey(prefix: string, level: number): string {
@@ -16,22 +18,16 @@ export function levelKey(prefix: string, level: number): string {
   return `${prefix}${String(pct).replace('.', '_')}`;
 }
 
-function num(x: number | null | undefined): number | null {
-  return x === null || x === undefined || !Number.isFinite(x) ? null : x;
-}
 
-function pair(x: [number, number] | null | undefined): [number | null, number | null] | null {
-  return x ? [num(x[0]), num(x[1])] : null;
-}
 
 export function estimateJson(e: ParameterEstimate, level: number): { [key: string]: Json } {
   const out: { [key: string]: Json } = {
-    value: num(e.value),
-    se: num(e.se),
-    [levelKey('ci', level)]: pair(e.wald),
+    value: jsonNumber(e.value),
+    se: jsonNumber(e.se),
+    [levelKey('ci', level)]: jsonPair(e.wald),
     detected: e.detected,
   };
-  if (e.exceeds !== undefined) out.exceeds = num(e.exceeds);
+  if (e.exceeds !== undefined) out.exceeds = jsonNumber(e.exceeds);
   if (e.note) out.note = e.note;
   addIntervalFields(out, e, level);
   return out;
@@ -43,9 +39,9 @@ function addIntervalFields(
   e: Pick<ParameterEstimate, 'profile' | 'bootstrapPercentile' | 'bootstrapBca'>,
   level: number,
 ): void {
-  if (e.profile) out[levelKey('profile', level)] = [num(e.profile[0]), num(e.profile[1])];
-  if (e.bootstrapPercentile) out[levelKey('bootPercentile', level)] = pair(e.bootstrapPercentile);
-  if (e.bootstrapBca) out[levelKey('bootBca', level)] = pair(e.bootstrapBca);
+  if (e.profile) out[levelKey('profile', level)] = [jsonNumber(e.profile[0]), jsonNumber(e.profile[1])];
+  if (e.bootstrapPercentile) out[levelKey('bootPercentile', level)] = jsonPair(e.bootstrapPercentile);
+  if (e.bootstrapBca) out[levelKey('bootBca', level)] = jsonPair(e.bootstrapBca);
 }
 
 function derivedJson(d: DerivedQuantity, level: number): { [key: string]: Json } {
@@ -54,9 +50,9 @@ function derivedJson(d: DerivedQuantity, level: number): { [key: string]: Json }
     ...(d.inhibitor !== undefined ? { inhibitor: d.inhibitor } : {}),
     ...(d.substrate !== undefined ? { substrate: d.substrate } : {}),
     unit: d.unit,
-    value: num(d.value),
-    se: num(d.se),
-    [levelKey('ci', level)]: pair(d.wald),
+    value: jsonNumber(d.value),
+    se: jsonNumber(d.se),
+    [levelKey('ci', level)]: jsonPair(d.wald),
   };
   addIntervalFields(out, d, level);
   if (d.note) out.note = d.note;
@@ -74,19 +70,19 @@ export function modelJson(m: ModelResult, level: number): { [key: string]: Json 
     n: m.n,
     nParams: m.p,
     df: m.df,
-    sse: num(m.sse),
-    logLik: num(m.logLik),
-    aicc: num(m.aicc),
-    bic: num(m.bic),
-    deltaAicc: num(m.deltaAicc),
-    weight: num(m.weight),
-    bicWeight: num(m.bicWeight),
-    residualSd: num(Math.sqrt(m.residualVariance)),
+    sse: jsonNumber(m.sse),
+    logLik: jsonNumber(m.logLik),
+    aicc: jsonNumber(m.aicc),
+    bic: jsonNumber(m.bic),
+    deltaAicc: jsonNumber(m.deltaAicc),
+    weight: jsonNumber(m.weight),
+    bicWeight: jsonNumber(m.bicWeight),
+    residualSd: jsonNumber(Math.sqrt(m.residualVariance)),
     params,
     ...(m.derived ? { derived: m.derived.map((d) => derivedJson(d, level)) } : {}),
-    ...(m.profiles ? { profiles: m.profiles.map((c) => ({ parameter: c.parameter, cutoff: num(c.cutoff), values: c.values.map(num), tau: c.tau.map(num) })) } : {}),
+    ...(m.profiles ? { profiles: m.profiles.map((c) => ({ parameter: c.parameter, cutoff: jsonNumber(c.cutoff), values: c.values.map((x) => jsonNumber(x)), tau: c.tau.map((x) => jsonNumber(x)) })) } : {}),
     ...(m.jointRegion
-      ? { jointRegion: { level: m.jointRegion.level, open: m.jointRegion.open, Ki: m.jointRegion.ki.map(num), Kiu: m.jointRegion.kiu.map(num) } }
+      ? { jointRegion: { level: m.jointRegion.level, open: m.jointRegion.open, Ki: m.jointRegion.ki.map((x) => jsonNumber(x)), Kiu: m.jointRegion.kiu.map((x) => jsonNumber(x)) } }
       : {}),
   };
 }
@@ -116,13 +112,13 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
     nested: result.nested.map((c) => ({
       simpler: c.simpler,
       fuller: c.fuller,
-      f: num(c.f),
+      f: jsonNumber(c.f),
       fDf: c.fDf,
-      fP: num(c.fP),
-      lr: num(c.lr),
-      lrP: num(c.lrP),
+      fP: jsonNumber(c.fP),
+      lr: jsonNumber(c.lr),
+      lrP: jsonNumber(c.lrP),
       primary: c.primary,
-      p: num(c.p),
+      p: jsonNumber(c.p),
     })),
     ...(result.bootstrap
       ? {
