@@ -17,7 +17,7 @@ import { sha256Hex } from '../report/html/provenance.js';
 import { readRateFile } from '../input/read-rate-file.js';
 import type { ParseOptions } from '../input/options.js';
 import { InputError, type RateTable } from '../input/types.js';
-import { safeName } from '../cli/commands/analyze.js';
+import { safeName } from '../report/safe-name.js';
 import type { InputFile } from './collect-inputs.js';
 import type { CompoundJob } from './types.js';
 

@@ -13,6 +13,7 @@ import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { writeResultFiles } from '../write-results.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
+import { safeName } from '../../report/safe-name.js';
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
@@ -36,9 +37,6 @@ export function outputFolderFor(out: string, table: RateTable, many: boolean): s
   return many && table.compound !== undefined ? resolve(out, safeName(table.compound)) : resolve(out);
 }
 
-export function safeName(name: string): string {
-  return name.replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^\.+/, '_') || '_';
-}
 
 /**
  * Reads the file's bytes once, for both the tables and the SHA-256 in the report footer. When the
