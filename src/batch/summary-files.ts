@@ -4,8 +4,9 @@
  */
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import type { Json } from '../report/results-json.js';
-import { summaryColumns, type Cell } from './summary-columns.js';
+import { summaryColumns } from './summary-columns.js';
 import type { CompoundSummary } from './types.js';
+import { csvCell } from '../report/csv-cell.js';
 
 /** What the run was asked to do, as written into summary.json. */
 export interface BatchSettings {
@@ -16,12 +17,6 @@ export interface BatchSettings {
   analysis: { [key: string]: Json };
 }
 
-function csvCell(x: Cell): string {
-  if (x === null) return '';
-  if (typeof x === 'boolean') return x ? 'yes' : 'no';
-  if (typeof x === 'number') return Number.isFinite(x) ? String(x) : '';
-  return /[",\n\r]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x;
-}
 
 export function summaryCsv(rows: readonly CompoundSummary[], level: number): string {
   const columns = summaryColumns(level);

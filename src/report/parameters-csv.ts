@@ -1,11 +1,7 @@
 /** parameters.csv: one row per model and parameter, for spreadsheets. */
 import type { AnalysisResult } from '../analysis/types.js';
+import { csvCell } from './csv-cell.js';
 
-function cell(x: number | string | null | undefined): string {
-  if (x === null || x === undefined) return '';
-  if (typeof x === 'number') return Number.isFinite(x) ? String(x) : '';
-  return /[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x;
-}
 
 /** A profile end: the number, "open" for an end not reached, blank when no profile was computed. */
 function profileEnd(profile: [number | null, number | null] | undefined, side: 0 | 1): number | string | null {
@@ -27,7 +23,7 @@ export function parametersCsv(result: AnalysisResult): string {
           m.mechanism, rank + 1, m.weight, e.name, e.value, e.se, e.wald?.[0], e.wald?.[1],
           profileEnd(e.profile, 0), profileEnd(e.profile, 1), e.detected ? 'yes' : 'no', e.note ?? '',
         ]
-          .map(cell)
+          .map(csvCell)
           .join(','),
       );
     }

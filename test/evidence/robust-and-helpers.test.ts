@@ -58,3 +58,22 @@ describe('small shared helpers', () => {
     expect(pPhrase(NaN)).toBe('p not available');
   });
 });
+
+describe('CSV cells (RFC 4180 quoting) and folder names', () => {
+  it('quote commas, quotes and both kinds of line break; blank for null and non-finite', async () => {
+    const { csvCell } = await import('../../src/report/csv-cell.js');
+    expect(csvCell('a,b')).toBe('"a,b"');
+    expect(csvCell('say "x"')).toBe('"say ""x"""');
+    expect(csvCell('one\rtwo')).toBe('"one\rtwo"');
+    expect(csvCell(NaN)).toBe('');
+    expect(csvCell(null)).toBe('');
+    expect(csvCell(true)).toBe('yes');
+    expect(csvCell(1.5)).toBe('1.5');
+  });
+  it('safe folder names', async () => {
+    const { safeName } = await import('../../src/report/safe-name.js');
+    expect(safeName('CPD 7/b')).toBe('CPD_7_b');
+    expect(safeName('..hidden')).toBe('_hidden');
+    expect(safeName('')).toBe('_');
+  });
+});
