@@ -19,10 +19,11 @@ import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-c
 import { robustRefit } from '../evidence/robust-refit.js';
 import { caveatsFor, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
 import { noInhibitionReason } from '../evidence/detection-limit.js';
+import { alphaExclusions, type AlphaExclusions } from '../evidence/alpha-exclusion.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
 
 export interface AnalysisOptions {
-  /** error model, or 'auto' to choose by likelihood; default 'constant' */
+  /** error model, or 'auto' (the default) to choose by likelihood among those the rates allow */
   errorModel?: ErrorModel | 'auto';
   /** confidence level for intervals; default 0.95 */
   level?: number;
@@ -61,7 +62,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   if (!(level > 0 && level < 1)) throw new AnalysisError(`confidence level must lie between 0 and 1 (got ${level})`);
   const data = fitDataFromTable(table);
   const mechanisms = options.models ?? MECHANISMS;
-  const requested = options.errorModel ?? 'constant';
+  const requested = options.errorModel ?? 'auto';
   checkErrorModelApplies(requested, data);
 
   const choice = chooseErrorModel(requested, data, mechanisms);
@@ -78,15 +79,17 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     onProgress: options.onProgress,
   });
   const nested = nestedComparisons(fits);
+  const exclusions = exclusionsOf(models, data);
 
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
-  const preliminary = verdictFrom(models, nested, []);
+  const preliminary = verdictFrom(models, nested, [], exclusions);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
   const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
   const caveats: Caveat[] = caveatsFor(winner, diagnostics, data);
 
   const emCheck = winner.fit.df > 0 ? checkErrorModel(winner.fit, data) : null;
-  if (emCheck?.clearlyWorse) {
+  // Under 'auto' the error model was already chosen by likelihood; the check is kept for the record.
+  if (emCheck?.clearlyWorse && !choice.automatic) {
     const alternative = fitAllMechanisms(data, emCheck.best, mechanisms);
     const altModels = rankModels(alternative, data, level);
     const altCall = verdictFrom(altModels, nestedComparisons(alternative), []).mechanism;
@@ -108,7 +111,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
       });
   }
 
-  const verdict = verdictFrom(models, nested, caveats);
+  const verdict = verdictFrom(models, nested, caveats, exclusions);
   if (verdict.outcome === 'no-inhibition') verdict.reasons.push(noInhibitionReason(models, data));
   if (choice.automatic) verdict.reasons.unshift(choice.reason);
 
@@ -230,8 +233,20 @@ export function alphaInterval(models: readonly ModelResult[]): [number | null, n
   return alpha.wald ? [alpha.wald[0], alpha.wald[1]] : null;
 }
 
-export function verdictFrom(models: readonly ModelResult[], nested: readonly NestedComparison[], caveats: readonly Caveat[]): Verdict {
-  return decideVerdict({ models, nested, alphaInterval: alphaInterval(models), caveats });
+export function verdictFrom(
+  models: readonly ModelResult[],
+  nested: readonly NestedComparison[],
+  caveats: readonly Caveat[],
+  exclusions: AlphaExclusions | null = null,
+): Verdict {
+  return decideVerdict({ models, nested, alphaInterval: alphaInterval(models), caveats, exclusions });
+}
+
+/** The one-sided alpha tests of the mixed fit that a firm three-parameter call rests on. */
+export function exclusionsOf(models: readonly ModelResult[], data: FitData): AlphaExclusions | null {
+  const mixed = models.find((m) => m.mechanism === 'mixed');
+  if (!mixed || !mixed.converged || !(mixed.fit.df > 0) || !Number.isFinite(mixed.sse)) return null;
+  return alphaExclusions(mixed.fit, data);
 }
 
 function robustSummary(

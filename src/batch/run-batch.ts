@@ -65,7 +65,7 @@ export interface BatchResult {
 function batchSettings(options: BatchOptions, portable: PortableAnalysisOptions): BatchSettings {
   const analysis = JSON.parse(JSON.stringify(portable)) as { [key: string]: Json };
   return {
-    errorModel: options.analysis?.errorModel ?? 'constant',
+    errorModel: options.analysis?.errorModel ?? 'auto',
     level: options.analysis?.level ?? 0.95,
     reports: Boolean(options.reports),
     analysis,

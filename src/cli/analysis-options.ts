@@ -31,7 +31,7 @@ export interface SharedCliOptions {
 
 export function addSharedOptions(cmd: Command): Command {
   return cmd
-    .option('--error <model>', 'error model: constant | proportional | sqrt | column (the sd column) | auto', 'constant')
+    .option('--error <model>', 'error model: constant | proportional | sqrt | column (the sd column) | auto (chosen by likelihood)', 'auto')
     .option('--robust', 'add a bounded-influence (bisquare) refit and say whether the call depends on a few points')
     .option('--level <p>', 'confidence level of the intervals', '0.95')
     .option('--layout <kind>', 'table layout: long | matrix (default: detected)')
@@ -76,7 +76,7 @@ export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
 
 export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
   return {
-    errorModel: o.error === 'auto' ? 'auto' : errorModelOption(o.error ?? 'constant'),
+    errorModel: o.error === undefined || o.error === 'auto' ? 'auto' : errorModelOption(o.error),
     ...(o.robust ? { robust: true } : {}),
     level: numberOption('--level', o.level ?? '0.95', (x) => x > 0 && x < 1, 'a number between 0 and 1'),
     ...intervalOptionsFrom(o),

@@ -117,14 +117,29 @@ export function profileAllOfFit(fit: MechanismFit, data: FitData, options: Profi
   return names.map((name) => profileWithContext(ctx, name));
 }
 
-function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfile {
+/**
+ * The constrained refit of a profile at one fixed value c of the quantity (log scale), with the
+ * re-entry starts an undetected arm needs. Shared by the interval search and the point tests.
+ */
+interface ProfileEvaluator {
+  q: ProfiledQuantity;
+  support: ProfileSupport;
+  cHat: number;
+  zHat: Float64Array;
+  evaluate(c: number, zStart: Float64Array): ProfilePoint;
+  /** constrained fits run so far */
+  evaluations(): number;
+  /** true once a constrained fit found a lower SSE than the fit itself */
+  lowerSseSeen(): boolean;
+}
+
+function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator {
   const { fit } = ctx;
   const q = profiledQuantity(fit.model.params, name);
   const support = profileSupport(ctx.data, name);
   const fixed = { value: 0 };
   const problem = profiledProblem(ctx.full, q, fixed);
   const cHat = quantityAt(q, fit.theta);
-  const notes: string[] = [];
   let evaluations = 0;
   let lowerSseSeen = false;
 
@@ -167,6 +182,26 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
     const tau = Math.sign(c - cHat) * Math.sqrt(Math.max(0, increase) / ctx.s2);
     return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)) };
   };
+  return { q, support, cHat, zHat, evaluate, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
+}
+
+/**
+ * The profile t statistic tau at one natural-scale value of a quantity (Bates & Watts 1988,
+ * sec. 6.1): negative below the estimate, positive above it. With df = n - p it is referred to
+ * Student's t for a one-sided test of "the quantity is at most (or at least) this value".
+ */
+export function profileTauAt(fit: MechanismFit, data: FitData, name: ProfiledName, value: number): { tau: number; df: number } {
+  if (!(fit.df > 0) || !Number.isFinite(fit.sse) || !(value > 0)) return { tau: NaN, df: fit.df };
+  const ev = profileEvaluator(fitContext(fit, data, {}), name);
+  const point = ev.evaluate(Math.log(value), ev.zHat);
+  return { tau: Number.isFinite(point.sse) ? point.tau : NaN, df: fit.df };
+}
+
+function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfile {
+  const { fit } = ctx;
+  const ev = profileEvaluator(ctx, name);
+  const { q, support, cHat, zHat, evaluate } = ev;
+  const notes: string[] = [];
 
   const c0 = Math.min(support.high, Math.max(support.low, cHat));
   const start = c0 === cHat
@@ -180,7 +215,7 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
   const points: ProfilePoint[] = [start];
   const lower = walkToEnd(-1);
   const upper = walkToEnd(+1);
-  if (lowerSseSeen) notes.push(`the ${name} profile reached a lower SSE than the fit: the reported optimum may not be the best one`);
+  if (ev.lowerSseSeen()) notes.push(`the ${name} profile reached a lower SSE than the fit: the reported optimum may not be the best one`);
 
   points.sort((a, b) => a.c - b.c);
   const curve: ProfileCurve = {
@@ -195,7 +230,7 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
     logInterval: [lower, upper],
     curve,
     notes,
-    evaluations,
+    evaluations: ev.evaluations(),
   };
 
   /** The end on one side (log scale), or null when it is open. */

@@ -5,25 +5,39 @@
  *  1. Inhibition detected? If "no inhibition" ranks first by AICc, or no inhibited model improves
  *     on it by the nested test at p < 0.05, the outcome is `no-inhibition`.
  *  2. Parsimony within the nesting: mixed is preferred over the best three-parameter model only if
- *     it has the lower AICc and the nested test rejects that model at p < 0.01. Otherwise the best
- *     three-parameter model stands. The stricter level (against 0.05 for detecting inhibition)
- *     keeps the rate of decisive mixed calls on pure-mechanism data near 1%: measured in
- *     bench/verdict-rates.mjs, where 0.05 gave 5% wrong decisive calls on noncompetitive data.
- *  3. Rivals: a three-parameter model other than the winner whose AICc is within 4 of the winner's
- *     keeps substantial support (Burnham & Anderson 2002, sec. 2.6: a difference of 4-7 means
- *     considerably less support, 0-2 substantial support for both). Any rival makes the outcome
- *     `undecided`, with the rivals named and the experiment that would separate them.
- *  4. A mixed winner is described by its alpha interval: entirely above 1, "mixed, leaning
- *     competitive"; entirely below 1, "mixed, leaning uncompetitive"; containing 1 cannot happen
- *     consistently with a rejected noncompetitive model, and is then reported as undecided.
- *  5. Anything that undermines the fit itself (no convergence, systematic residuals, design
+ *     it has the lower AICc and the nested test rejects that model at p < MIXED_LEVEL. Otherwise the
+ *     best three-parameter model stands.
+ *  3. Rivals: a three-parameter model other than the winner whose AICc is within RIVAL_DELTA of the
+ *     winner's keeps substantial support (Burnham & Anderson 2002, sec. 2.6: a difference of 4-7
+ *     means considerably less support, 0-2 substantial support for both). Any rival makes the
+ *     outcome `undecided`, with the rivals named and the experiment that would separate them.
+ *  4. Exclusion: a three-parameter winner is firm only when the data reject the nearest mixed
+ *     alternative it could hide (src/evidence/alpha-exclusion.ts: for competitive, alpha <= ALPHA_FAR;
+ *     for uncompetitive, alpha >= 1 / ALPHA_FAR; for noncompetitive, alpha outside the band of
+ *     NONCOMPETITIVE_BAND around 1; one-sided profile tests at EXCLUSION_LEVEL). Failing to reject
+ *     mixed is absence of evidence: without the exclusion the outcome is `undecided` and says which
+ *     component is not excluded.
+ *  5. A mixed winner is described by its alpha interval: entirely above 1, "mixed, leaning
+ *     competitive"; entirely below 1, "mixed, leaning uncompetitive"; containing 1 is reported as
+ *     undecided (noncompetitive not excluded).
+ *  6. Anything that undermines the fit itself (no convergence, systematic residuals, design
  *     shortfalls that bear on the distinction, a clearly better error model) is passed in as a
  *     `Caveat`; a caveat marked `blocking` turns a decisive outcome into `undecided`.
+ * The levels were chosen by simulation over sparse and generous designs, well-placed and misplaced
+ * [I] ranges and 2-10% noise (bench/verdict-design-space.mjs; docs/decisions/firm-calls-exclude-alternatives.md).
  * `decisive` is true only for the outcomes `decisive` and `mixed-lean`.
  */
 import type { Mechanism } from '../models/types.js';
 import type { NestedComparison } from './nested-comparisons.js';
 import { pPhrase } from '../report/format-number.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from './alpha-exclusion.js';
+
+/** Level of the test for inhibition against no inhibition (common practice). */
+export const INHIBITION_LEVEL = 0.05;
+/** Level at which mixed must beat the best three-parameter model (chosen by simulation). */
+export const MIXED_LEVEL = 0.001;
+/** AICc difference below which a rival keeps substantial support (Burnham & Anderson 2002). */
+export const RIVAL_DELTA = 4;
 
 export type VerdictOutcome = 'decisive' | 'mixed-lean' | 'undecided' | 'no-inhibition';
 
@@ -48,12 +62,17 @@ export interface VerdictInput {
   nested: readonly NestedComparison[];
   /** interval for alpha of the mixed model (profile if available, else Wald); null if undefined */
   alphaInterval: [number | null, number | null] | null;
+  /**
+   * one-sided profile tests on alpha of the mixed fit (src/evidence/alpha-exclusion.ts); without
+   * them (mixed not fitted) no three-parameter call can be firm
+   */
+  exclusions?: AlphaExclusions | null;
   caveats?: readonly Caveat[];
-  /** significance level of the test for inhibition against none; default 0.05 (common practice) */
+  /** significance level of the test for inhibition against none; default INHIBITION_LEVEL */
   testLevel?: number;
-  /** significance level for preferring mixed over a three-parameter model; default 0.01 */
+  /** significance level for preferring mixed over a three-parameter model; default MIXED_LEVEL */
   mixedLevel?: number;
-  /** AICc difference below which a rival keeps substantial support; default 4 */
+  /** AICc difference below which a rival keeps substantial support; default RIVAL_DELTA */
   rivalDelta?: number;
 }
 
@@ -71,6 +90,17 @@ export interface Verdict {
   reasons: string[];
   /** experiments or checks that would settle what is open */
   suggestions: string[];
+  /** for a three-parameter winner: the test against the mixed alternative it could hide */
+  exclusion?: ExclusionFinding;
+}
+
+/** What the exclusion step found for a three-parameter winner. */
+export interface ExclusionFinding {
+  /** the component that a firm call must exclude */
+  component: 'uncompetitive' | 'competitive' | 'unequal-constants';
+  /** true when every test behind the call rejected the mixed alternative */
+  excluded: boolean;
+  tests: AlphaBoundTest[];
 }
 
 const THREE_PARAM: Mechanism[] = ['competitive', 'uncompetitive', 'noncompetitive'];
@@ -97,9 +127,9 @@ function fmtD(d: number): string {
 }
 
 export function decideVerdict(input: VerdictInput): Verdict {
-  const level = input.testLevel ?? 0.05;
-  const mixedLevel = input.mixedLevel ?? 0.01;
-  const rivalDelta = input.rivalDelta ?? 4;
+  const level = input.testLevel ?? INHIBITION_LEVEL;
+  const mixedLevel = input.mixedLevel ?? MIXED_LEVEL;
+  const rivalDelta = input.rivalDelta ?? RIVAL_DELTA;
   const caveats = input.caveats ?? [];
   const by = new Map(input.models.map((m) => [m.mechanism, m]));
   const test = (a: Mechanism, b: Mechanism) => input.nested.find((c) => c.simpler === a && c.fuller === b);
@@ -184,7 +214,20 @@ export function decideVerdict(input: VerdictInput): Verdict {
     }
   }
 
-  // 4. Mixed: read the lean off alpha.
+  // 4. A three-parameter winner must exclude the mixed alternative it could hide.
+  let exclusion: ExclusionFinding | undefined;
+  if (winner.mechanism !== 'mixed' && THREE_PARAM.includes(winner.mechanism)) {
+    exclusion = exclusionFinding(winner.mechanism, input.exclusions ?? null);
+    const { phrase, hint } = exclusionWords(winner.mechanism, exclusion);
+    reasons.push(phrase);
+    if (!exclusion.excluded) {
+      if (outcome === 'decisive') outcome = 'undecided';
+      if (!candidates.includes('mixed')) candidates.push('mixed');
+      if (hint && !suggestions.includes(hint)) suggestions.push(hint);
+    }
+  }
+
+  // 5. Mixed: read the lean off alpha.
   if (winner.mechanism === 'mixed') {
     const [lo, hi] = input.alphaInterval ?? [null, null];
     if (lo !== null && lo > 1) {
@@ -219,10 +262,51 @@ export function decideVerdict(input: VerdictInput): Verdict {
     ...(lean ? { lean } : {}),
     decisive,
     candidates: [...new Set(candidates)],
-    headline: headline(outcome, winner.mechanism, lean, candidates),
+    headline: headline(outcome, winner.mechanism, lean, candidates, exclusion),
     reasons,
     suggestions,
+    ...(exclusion ? { exclusion } : {}),
   };
+}
+
+function exclusionFinding(winner: Mechanism, exclusions: AlphaExclusions | null): ExclusionFinding {
+  const component = winner === 'competitive' ? 'uncompetitive' : winner === 'uncompetitive' ? 'competitive' : 'unequal-constants';
+  if (!exclusions) return { component, excluded: false, tests: [] };
+  const tests =
+    winner === 'competitive' ? [exclusions.competitive] : winner === 'uncompetitive' ? [exclusions.uncompetitive] : [...exclusions.noncompetitive];
+  return { component, excluded: tests.every((t) => t.excluded), tests };
+}
+
+function bound(x: number): string {
+  return Number(x.toPrecision(3)).toString();
+}
+
+/** The reason sentence for the exclusion step, and the experiment that would settle it. */
+function exclusionWords(winner: Mechanism, e: ExclusionFinding): { phrase: string; hint?: string } {
+  if (e.tests.length === 0)
+    return { phrase: `the mixed model was not fitted, so a hidden component of the ${winner} call cannot be excluded`, hint: undefined };
+  const worst = e.tests.reduce((a, b) => (b.p > a.p ? b : a));
+  const test = `one-sided profile test, ${pPhrase(worst.p)}; needed p < ${EXCLUSION_LEVEL}`;
+  if (winner === 'competitive')
+    return e.excluded
+      ? { phrase: `binding to the enzyme-substrate complex is excluded down to ${ALPHA_FAR}-fold weaker than to free enzyme (alpha > ${ALPHA_FAR}; ${test})` }
+      : {
+          phrase: `a weak uncompetitive component is not excluded: alpha = ${ALPHA_FAR} (Kiu = ${ALPHA_FAR} x Ki) fits about as well (${test})`,
+          hint: SEPARATING_EXPERIMENT['competitive|mixed'],
+        };
+  if (winner === 'uncompetitive')
+    return e.excluded
+      ? { phrase: `binding to free enzyme is excluded down to ${ALPHA_FAR}-fold weaker than to the enzyme-substrate complex (alpha < ${bound(1 / ALPHA_FAR)}; ${test})` }
+      : {
+          phrase: `a weak competitive component is not excluded: alpha = ${bound(1 / ALPHA_FAR)} (Ki = ${ALPHA_FAR} x Kiu) fits about as well (${test})`,
+          hint: SEPARATING_EXPERIMENT['mixed|uncompetitive'],
+        };
+  return e.excluded
+    ? { phrase: `Ki and Kiu agree within a factor of ${NONCOMPETITIVE_BAND} (alpha between ${bound(1 / NONCOMPETITIVE_BAND)} and ${NONCOMPETITIVE_BAND}; ${test})` }
+    : {
+        phrase: `Ki and Kiu may differ by more than a factor of ${NONCOMPETITIVE_BAND}: alpha = ${bound(worst.bound)} is not excluded (${test})`,
+        hint: SEPARATING_EXPERIMENT['mixed|noncompetitive'],
+      };
 }
 
 function addCaveats(caveats: readonly Caveat[], reasons: string[], suggestions: string[], canBlock: boolean): boolean {
@@ -235,7 +319,13 @@ function addCaveats(caveats: readonly Caveat[], reasons: string[], suggestions: 
   return blocked;
 }
 
-function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | undefined, candidates: Mechanism[]): string {
+const HIDDEN_COMPONENT: Record<ExclusionFinding['component'], string> = {
+  uncompetitive: 'a weak uncompetitive component is not excluded',
+  competitive: 'a weak competitive component is not excluded',
+  'unequal-constants': 'Ki and Kiu may differ (mixed) by more than the data resolve',
+};
+
+function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | undefined, candidates: Mechanism[], exclusion?: ExclusionFinding): string {
   switch (outcome) {
     case 'decisive':
       return `The data support ${winner} inhibition.`;
@@ -245,9 +335,15 @@ function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | und
       return 'No inhibition detected in the tested inhibitor range.';
     case 'undecided': {
       const list = [...new Set(candidates)];
+      if (exclusion && !exclusion.excluded && list.length === 2 && list[1] === 'mixed')
+        return `${capitalise(winner)} ranks first, but ${HIDDEN_COMPONENT[exclusion.component]}.`;
       return list.length > 1
         ? `Not decided between ${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}; ${winner} ranks first.`
         : `${winner} ranks first, but the call is not firm (see reasons).`;
     }
   }
+}
+
+function capitalise(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { decideVerdict, type RankedModelEvidence } from '../../src/evidence/verdict.js';
+import { decideVerdict, MIXED_LEVEL, type RankedModelEvidence } from '../../src/evidence/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from '../../src/evidence/alpha-exclusion.js';
 import type { NestedComparison } from '../../src/evidence/nested-comparisons.js';
 import type { Mechanism } from '../../src/models/types.js';
 
@@ -12,6 +13,17 @@ function tests(p: Partial<Record<string, number>>): NestedComparison[] {
     return { simpler, fuller, extraParams: 1, f: 1, fDf: [1, 10], fP: pv!, lr: 1, lrP: pv!, primary: 'F', p: pv! };
   });
 }
+function bt(claim: 'above' | 'below', bound: number, p: number): AlphaBoundTest {
+  return { claim, bound, tau: NaN, p, excluded: p < EXCLUSION_LEVEL };
+}
+/** Exclusion tests with the given one-sided p-values (competitive, uncompetitive, the two noncompetitive sides). */
+function exclusions(pc: number, pu = 1, pn: [number, number] = [1, 1]): AlphaExclusions {
+  return {
+    competitive: bt('above', ALPHA_FAR, pc),
+    uncompetitive: bt('below', 1 / ALPHA_FAR, pu),
+    noncompetitive: [bt('below', NONCOMPETITIVE_BAND, pn[0]), bt('above', 1 / NONCOMPETITIVE_BAND, pn[1])],
+  };
+}
 const inhibited = { 'none>competitive': 1e-9, 'none>uncompetitive': 1e-5, 'none>noncompetitive': 1e-7, 'none>mixed': 1e-9 };
 
 describe('verdict rule (DEVELOPERS.md, "The verdict rule")', () => {
@@ -21,17 +33,46 @@ describe('verdict rule (DEVELOPERS.md, "The verdict rule")', () => {
     expect(v.decisive).toBe(false);
   });
   it('decisive when rivals are 4 or more AICc units behind and mixed is not supported', () => {
-    const v = decideVerdict({ models: models({ competitive: 0, mixed: 2.1, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.8 }), alphaInterval: [3, null] });
+    const v = decideVerdict({ models: models({ competitive: 0, mixed: 2.1, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.8 }), alphaInterval: [3, null], exclusions: exclusions(1e-4) });
     expect(v.outcome).toBe('decisive');
     expect(v.mechanism).toBe('competitive');
     expect(v.decisive).toBe(true);
+    expect(v.exclusion?.excluded).toBe(true);
+  });
+  it('a three-parameter call is not firm when the mixed alternative it could hide is not rejected', () => {
+    const base = { models: models({ competitive: 0, mixed: 2.1, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.8 }), alphaInterval: null };
+    const weak = decideVerdict({ ...base, exclusions: exclusions(0.2) });
+    expect(weak.outcome).toBe('undecided');
+    expect(weak.decisive).toBe(false);
+    expect(weak.mechanism).toBe('competitive');
+    expect(weak.candidates).toEqual(['competitive', 'mixed']);
+    expect(weak.headline).toBe('Competitive ranks first, but a weak uncompetitive component is not excluded.');
+    expect(weak.reasons.join(' ')).toContain(`alpha = ${ALPHA_FAR}`);
+    expect(weak.suggestions.join(' ')).toMatch(/above 5 x Km/);
+    // the p-value must be below the level, not at it
+    expect(decideVerdict({ ...base, exclusions: exclusions(EXCLUSION_LEVEL) }).decisive).toBe(false);
+    // without the mixed fit nothing can be excluded
+    const none = decideVerdict({ ...base });
+    expect(none.decisive).toBe(false);
+    expect(none.reasons.join(' ')).toMatch(/mixed model was not fitted/);
+  });
+  it('uncompetitive needs alpha below 1/ALPHA_FAR excluded; noncompetitive needs both sides of the band', () => {
+    const unc = { models: models({ uncompetitive: 0, mixed: 2.1, noncompetitive: 30, competitive: 50, none: 80 }), nested: tests({ ...inhibited, 'uncompetitive>mixed': 0.8 }), alphaInterval: null };
+    expect(decideVerdict({ ...unc, exclusions: exclusions(1, 1e-4) }).decisive).toBe(true);
+    expect(decideVerdict({ ...unc, exclusions: exclusions(1e-4, 0.1) }).decisive).toBe(false);
+    const nc = { models: models({ noncompetitive: 0, mixed: 2.1, uncompetitive: 30, competitive: 50, none: 80 }), nested: tests({ ...inhibited, 'noncompetitive>mixed': 0.8 }), alphaInterval: null };
+    expect(decideVerdict({ ...nc, exclusions: exclusions(1, 1, [1e-4, 1e-4]) }).decisive).toBe(true);
+    const oneSide = decideVerdict({ ...nc, exclusions: exclusions(1, 1, [1e-4, 0.3]) });
+    expect(oneSide.decisive).toBe(false);
+    expect(oneSide.headline).toMatch(/Ki and Kiu may differ/);
+    expect(oneSide.reasons.join(' ')).toContain(`alpha = ${1 / NONCOMPETITIVE_BAND} is not excluded`);
   });
   it('undecided, with a separating experiment, when a rival is within 4', () => {
     const v = decideVerdict({ models: models({ competitive: 0, noncompetitive: 3, mixed: 2, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.3 }), alphaInterval: null });
     expect(v.outcome).toBe('undecided');
-    expect(v.candidates).toEqual(['competitive', 'noncompetitive']);
+    expect(v.candidates.slice(0, 2)).toEqual(['competitive', 'noncompetitive']);
     expect(v.suggestions.join(' ')).toMatch(/above Km/);
-    expect(v.headline).toMatch(/Not decided between competitive and noncompetitive/);
+    expect(v.headline).toMatch(/^Not decided between competitive, noncompetitive/);
   });
   it('mixed leaning competitive when alpha lies above 1, leaning uncompetitive below', () => {
     const base = { models: models({ mixed: 0, competitive: 20, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 1e-6 }) };
@@ -45,9 +86,10 @@ describe('verdict rule (DEVELOPERS.md, "The verdict rule")', () => {
     expect(across.outcome).toBe('undecided');
     expect(across.candidates).toContain('noncompetitive');
   });
-  it('mixed needs p < 0.01 against the best three-parameter model', () => {
-    const v = decideVerdict({ models: models({ mixed: 0, competitive: 1.5, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.03 }), alphaInterval: [2, 9] });
-    expect(v.mechanism).toBe('competitive');
+  it('mixed needs p < MIXED_LEVEL against the best three-parameter model', () => {
+    const at = (p: number) => decideVerdict({ models: models({ mixed: 0, competitive: 1.5, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': p }), alphaInterval: [2, 9] });
+    expect(at(3 * MIXED_LEVEL).mechanism).toBe('competitive');
+    expect(at(MIXED_LEVEL / 3).mechanism).toBe('mixed');
   });
   it('a blocking caveat turns a decisive call into undecided, and is listed', () => {
     const v = decideVerdict({
