@@ -10,15 +10,20 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
+import { MINIMUM_USABLE_POINTS } from '../input/table-checks.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
-import { waldEstimates, type ParameterEstimate } from '../evidence/wald-estimates.js';
+import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
 import { addIntervals, type BootstrapRequest } from './stage-intervals.js';
-import { decideVerdict, type Caveat, type Verdict } from '../evidence/verdict.js';
+import { decideVerdict, type Caveat, type ExactFitEvidence, type Verdict } from '../evidence/verdict.js';
 import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-check.js';
 import { robustRefit } from '../evidence/robust-refit.js';
 import { caveatsFor, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
 import { noInhibitionReason } from '../evidence/detection-limit.js';
+import { noActivityFinding } from '../evidence/activity-check.js';
+import { exactFits } from '../evidence/exact-fit.js';
+import { activationCaveat, saturatingInhibitorCaveat, substrateInhibitionCaveat } from '../evidence/rate-pattern-checks.js';
+import { plausibilityCaveats } from '../evidence/plausibility-check.js';
 import { alphaExclusions, type AlphaExclusions } from '../evidence/alpha-exclusion.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
 
@@ -61,6 +66,10 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const level = options.level ?? 0.95;
   if (!(level > 0 && level < 1)) throw new AnalysisError(`confidence level must lie between 0 and 1 (got ${level})`);
   const data = fitDataFromTable(table);
+  if (data.v.length < MINIMUM_USABLE_POINTS)
+    throw new AnalysisError(`only ${data.v.length} points; ranking all five models by AICc needs at least ${MINIMUM_USABLE_POINTS} (the mixed model has 4 constants plus the error variance)`);
+  const inactive = noActivityFinding(data);
+  if (inactive) throw new AnalysisError(inactive.message);
   const mechanisms = options.models ?? MECHANISMS;
   const requested = options.errorModel ?? 'auto';
   checkErrorModelApplies(requested, data);
@@ -80,12 +89,16 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   });
   const nested = nestedComparisons(fits);
   const exclusions = exclusionsOf(models, data);
+  const exact = exactFits(fits, data.v);
+  const evidence: VerdictEvidence = { exclusions, exactFits: exact, alphaEstimate: mixedAlpha(models) };
 
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
-  const preliminary = verdictFrom(models, nested, [], exclusions);
+  const preliminary = verdictFrom(models, nested, [], evidence);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
   const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
-  const caveats: Caveat[] = caveatsFor(winner, diagnostics, data);
+  // Without noise the residual checks describe rounding only: keep the design caveats.
+  const caveats: Caveat[] = caveatsFor(winner, diagnostics, data).filter((c) => exact.length === 0 || !RESIDUAL_CAVEATS.has(c.code));
+  caveats.push(...patternCaveats(models, winner, data, table));
 
   const emCheck = winner.fit.df > 0 ? checkErrorModel(winner.fit, data) : null;
   // Under 'auto' the error model was already chosen by likelihood; the check is kept for the record.
@@ -97,22 +110,18 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     if (caveat) caveats.push(caveat);
   }
 
+  // The robust refit runs on request, and by itself whenever a point stands out (a studentised
+  // residual beyond the suspect cut-off), so that one bad well cannot flip the call unnoticed.
   let robust: RobustSummary | undefined;
-  if (options.robust) {
+  const standsOut = (diagnostics.residuals[winner.mechanism]?.suspects ?? []).some((x) => x.why !== 'high leverage');
+  if (options.robust || (standsOut && exact.length === 0)) {
     robust = robustSummary(data, errorModel, models, level, table, preliminary);
-    if (robust.downWeighted.length > 0)
-      caveats.push({
-        code: 'robust',
-        message: robust.changesVerdict
-          ? `a robust (bisquare) refit down-weights ${robust.downWeighted.length} point(s) and then calls it ${robust.verdict.mechanism}: the call depends on those points`
-          : `a robust (bisquare) refit down-weights ${robust.downWeighted.length} point(s); the call stays ${robust.verdict.mechanism}`,
-        blocking: robust.changesVerdict,
-        ...(robust.changesVerdict ? { suggestion: 'inspect or repeat the down-weighted wells' } : {}),
-      });
+    const caveat = robustCaveat(robust, preliminary);
+    if (caveat) caveats.push(caveat);
   }
 
-  const verdict = verdictFrom(models, nested, caveats, exclusions);
-  if (verdict.outcome === 'no-inhibition') verdict.reasons.push(noInhibitionReason(models, data));
+  const verdict = verdictFrom(models, nested, caveats, evidence);
+  if (verdict.outcome === 'no-inhibition' && exact.length === 0) verdict.reasons.push(noInhibitionReason(models, data));
   if (choice.automatic) verdict.reasons.unshift(choice.reason);
 
   return {
@@ -191,6 +200,7 @@ function bestAiccOf(fits: readonly MechanismFit[]): number {
 /** Criteria, weights and estimates for each fit; sorted by AICc, best first. */
 export function rankModels(fits: readonly MechanismFit[], data: FitData, level: number): ModelResult[] {
   const maxI = maxInhibitor(data);
+  const span = dataSpan(data);
   const k = fits.map((f) => f.p + 1);
   const a = fits.map((f, j) => (Number.isFinite(f.sse) ? aicc(f.logLik, k[j], f.n) : Infinity));
   const b = fits.map((f, j) => bic(f.logLik, k[j], f.n));
@@ -198,7 +208,7 @@ export function rankModels(fits: readonly MechanismFit[], data: FitData, level: 
   const wb = akaikeWeights(b);
   const d = deltas(a);
   const results = fits.map((fit, j): ModelResult => {
-    const est = waldEstimates(fit, maxI, level);
+    const est = waldEstimates(fit, maxI, level, span);
     return {
       mechanism: fit.mechanism,
       label: fit.model.label,
@@ -224,6 +234,18 @@ export function rankModels(fits: readonly MechanismFit[], data: FitData, level: 
   return results.sort((x, y) => x.aicc - y.aicc);
 }
 
+function dataSpan(data: FitData): DataSpan {
+  let minInhibitor = Infinity;
+  let maxRate = -Infinity;
+  let maxSubstrate = -Infinity;
+  for (let k = 0; k < data.v.length; k++) {
+    if (data.i[k] > 0) minInhibitor = Math.min(minInhibitor, data.i[k]);
+    maxRate = Math.max(maxRate, data.v[k]);
+    maxSubstrate = Math.max(maxSubstrate, data.s[k]);
+  }
+  return { ...(Number.isFinite(minInhibitor) ? { minInhibitor } : {}), maxRate, maxSubstrate };
+}
+
 /** The alpha interval the verdict reads: profile where computed, else Wald. */
 export function alphaInterval(models: readonly ModelResult[]): [number | null, number | null] | null {
   const mixed = models.find((m) => m.mechanism === 'mixed');
@@ -233,13 +255,74 @@ export function alphaInterval(models: readonly ModelResult[]): [number | null, n
   return alpha.wald ? [alpha.wald[0], alpha.wald[1]] : null;
 }
 
+/** What the verdict reads besides the ranking and the nested tests. */
+export interface VerdictEvidence {
+  exclusions?: AlphaExclusions | null;
+  exactFits?: ExactFitEvidence[];
+  alphaEstimate?: number | null;
+}
+
 export function verdictFrom(
   models: readonly ModelResult[],
   nested: readonly NestedComparison[],
   caveats: readonly Caveat[],
-  exclusions: AlphaExclusions | null = null,
+  evidence: VerdictEvidence = {},
 ): Verdict {
-  return decideVerdict({ models, nested, alphaInterval: alphaInterval(models), caveats, exclusions });
+  return decideVerdict({ models, nested, alphaInterval: alphaInterval(models), caveats, ...evidence });
+}
+
+/** The point estimate of alpha of the mixed fit, when both arms are detected. */
+function mixedAlpha(models: readonly ModelResult[]): number | null {
+  const alpha = models.find((m) => m.mechanism === 'mixed')?.estimates.find((e) => e.name === 'alpha');
+  return alpha && alpha.detected && alpha.value !== null ? alpha.value : null;
+}
+
+/** Caveat codes that describe residuals, meaningless for noise-free data. */
+const RESIDUAL_CAVEATS = new Set(['residual-runs', 'lack-of-fit', 'trend-substrate', 'trend-inhibitor', 'trend-fitted', 'non-normal', 'suspect-points', 'series-disagree']);
+
+/** Patterns the five models cannot describe, implausible units, and pasted rows. */
+function patternCaveats(models: readonly ModelResult[], winner: ModelResult, data: FitData, table: RateTable): Caveat[] {
+  const out: Caveat[] = [];
+  const none = models.find((m) => m.mechanism === 'none');
+  for (const c of [substrateInhibitionCaveat(data, winner.fit), activationCaveat(data, none?.fit), saturatingInhibitorCaveat(data)]) if (c) out.push(c);
+  const constants = winner.estimates
+    .filter((e) => e.detected && e.value !== null && (e.name === 'Km' || e.name === 'Ki' || e.name === 'Kiu'))
+    .map((e) => ({ name: e.name, value: e.value as number, axis: e.name === 'Km' ? ('substrate' as const) : ('inhibitor' as const) }));
+  out.push(...plausibilityCaveats({ units: table.units, maxSubstrate: Math.max(...data.s), maxInhibitor: maxInhibitor(data), constants }));
+  for (const w of table.warnings.filter((x) => x.code === 'repeated-block'))
+    out.push({
+      code: 'repeated-block',
+      message: w.message,
+      blocking: true,
+      suggestion: 'remove rows pasted twice (or mark them in an exclude column) and analyse again',
+      leading: true,
+      headline: 'The table repeats a block of rows exactly: no firm call until the copy is removed or confirmed.',
+    });
+  return out;
+}
+
+function lineList(points: RobustSummary['downWeighted']): string {
+  const rate = (x: number) => (Math.abs(x) >= 1e5 || (x !== 0 && Math.abs(x) < 1e-3) ? x.toExponential(2) : String(Number(x.toPrecision(3))));
+  const shown = points.slice(0, 4).map((d) => `line ${d.line}, rate ${rate(d.rate)}`);
+  return shown.join(', ') + (points.length > 4 ? ` and ${points.length - 4} more` : '');
+}
+
+/** The caveat of a robust refit that down-weighted points; blocking when the call changes. */
+function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null {
+  const n = robust.downWeighted.length;
+  if (n === 0) return null;
+  const which = lineList(robust.downWeighted);
+  const where = n === 1 ? which : `${which}`;
+  if (!robust.changesVerdict)
+    return { code: 'robust', message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}); the call stays ${robust.verdict.mechanism}`, blocking: false };
+  return {
+    code: 'robust',
+    message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}) and then calls it ${robust.verdict.mechanism}: the call depends on those points`,
+    blocking: true,
+    suggestion: `inspect or repeat the down-weighted wells (${which}); exclude a mistyped value and analyse again`,
+    leading: true,
+    headline: `The call depends on ${n === 1 ? 'one outlying point' : `${n} outlying points`} (${where}): with ${n === 1 ? 'it' : 'them'} down-weighted the data point to ${robust.verdict.mechanism}${robust.verdict.lean ? `, leaning ${robust.verdict.lean}` : ''}, not ${lsVerdict.mechanism}.`,
+  };
 }
 
 /** The one-sided alpha tests of the mixed fit that a firm three-parameter call rests on. */

@@ -22,7 +22,7 @@ import {
   type DerivedQuantity,
   type DerivedUnits,
 } from '../evidence/derived-quantities.js';
-import { waldEstimates } from '../evidence/wald-estimates.js';
+import { waldEstimates, waldInterval } from '../evidence/wald-estimates.js';
 import { detectionBound } from '../evidence/detection-bound.js';
 import { tQuantile } from '../stats/distributions.js';
 import type { BootstrapSummary, ModelResult } from './types.js';
@@ -74,7 +74,14 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
       model.profiles = found.map((p) => p.curve);
       for (const e of model.estimates) {
         const p = found.find((x) => x.name === e.name);
-        if (p) e.profile = p.interval;
+        if (!p) continue;
+        e.profile = p.interval;
+        // A Wald interval rests on the curvature at the estimate; where the profile shows the
+        // likelihood flat to one side (an open end), that curvature says nothing: withhold it.
+        if (e.wald && (p.interval[0] === null || p.interval[1] === null)) {
+          e.wald = null;
+          e.note = `${e.note ? e.note + '; ' : ''}Wald interval withheld: the profile interval is open, so the data do not bound ${e.name} on that side`;
+        }
       }
       if (model.mechanism === 'mixed' && options.jointRegion !== false) {
         const region = jointRegionKiKiu(model.fit, data, { level });
@@ -187,7 +194,8 @@ function derivedQuantity(
   const se = deltaMethodSe(logScaleGradient(d.evaluate, fit.theta), wald.logCovariance, value);
   if (Number.isFinite(se)) {
     base.se = se;
-    base.wald = [value - wald.t * se, value + wald.t * se];
+    // pK values are logarithms already (any sign); the other derived quantities are positive
+    base.wald = waldInterval(value, se, wald.t, !d.ofParameter);
   }
   if (run) {
     const b = bootstrapIntervalsOf(run, model.mechanism, (p) => d.evaluate(p), value, level);

@@ -29,7 +29,9 @@
  */
 import type { Mechanism } from '../models/types.js';
 import type { NestedComparison } from './nested-comparisons.js';
+export type { Caveat } from './caveat.js';
 import { pPhrase } from '../report/format-number.js';
+import { ACTIVATION_CODE, type Caveat } from './caveat.js';
 import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from './alpha-exclusion.js';
 
 /** Level of the test for inhibition against no inhibition (common practice). */
@@ -48,13 +50,12 @@ export interface RankedModelEvidence {
   converged: boolean;
 }
 
-export interface Caveat {
-  code: string;
-  message: string;
-  /** true when the caveat forbids a decisive call */
-  blocking: boolean;
-  /** experiment or action that would remove it */
-  suggestion?: string;
+
+/** A model that reproduces every rate exactly (src/evidence/exact-fit.ts), fewest parameters first. */
+export interface ExactFitEvidence {
+  mechanism: Mechanism;
+  p: number;
+  relativeSse: number;
 }
 
 export interface VerdictInput {
@@ -68,6 +69,10 @@ export interface VerdictInput {
    */
   exclusions?: AlphaExclusions | null;
   caveats?: readonly Caveat[];
+  /** models that fit the rates exactly (noise-free data), fewest parameters first */
+  exactFits?: readonly ExactFitEvidence[];
+  /** the point estimate of alpha of the mixed fit (read only for exact data) */
+  alphaEstimate?: number | null;
   /** significance level of the test for inhibition against none; default INHIBITION_LEVEL */
   testLevel?: number;
   /** significance level for preferring mixed over a three-parameter model; default MIXED_LEVEL */
@@ -148,6 +153,8 @@ export function decideVerdict(input: VerdictInput): Verdict {
     };
   }
   const bestOverall = [...usable].sort((a, b) => a.aicc - b.aicc)[0];
+  const exact = (input.exactFits ?? []).filter((e) => usable.some((m) => m.mechanism === e.mechanism));
+  if (exact.length > 0) return exactVerdict(exact, caveats, input.alphaEstimate ?? null);
 
   // 1. Is inhibition detected at all?
   const none = by.get('none');
@@ -159,14 +166,15 @@ export function decideVerdict(input: VerdictInput): Verdict {
         ? 'the model without inhibition has the lowest AICc'
         : `no inhibited model improves significantly on the model without inhibition (best: ${strongest!.fuller}, ${pPhrase(strongest!.p)})`,
     );
-    suggestions.push('test higher inhibitor concentrations (several times the expected Ki or the IC50)');
+    const activation = caveats.some((c) => c.code === ACTIVATION_CODE);
+    if (!activation) suggestions.push('test higher inhibitor concentrations (several times the expected Ki or the IC50)');
     addCaveats(caveats, reasons, suggestions, false);
     return {
       outcome: 'no-inhibition',
       mechanism: 'none',
       decisive: false,
       candidates: ['none'],
-      headline: 'No inhibition detected in the tested inhibitor range.',
+      headline: activation ? 'No inhibition: the rates rise with [I], as they would for an activator.' : 'No inhibition detected in the tested inhibitor range.',
       reasons,
       suggestions,
     };
@@ -256,16 +264,55 @@ export function decideVerdict(input: VerdictInput): Verdict {
   if (blocked && (outcome === 'decisive' || outcome === 'mixed-lean')) outcome = 'undecided';
 
   const decisive = outcome === 'decisive' || outcome === 'mixed-lean';
+  const leadingCaveat = caveats.find((c) => c.blocking && c.headline);
   return {
     outcome,
     mechanism: winner.mechanism,
     ...(lean ? { lean } : {}),
     decisive,
     candidates: [...new Set(candidates)],
-    headline: headline(outcome, winner.mechanism, lean, candidates, exclusion),
+    headline: leadingCaveat?.headline ?? headline(outcome, winner.mechanism, lean, candidates, exclusion),
     reasons,
     suggestions,
     ...(exclusion ? { exclusion } : {}),
+  };
+}
+
+/**
+ * Noise-free data: the simplest model that reproduces the rates exactly is the call. No test or
+ * interval means anything without noise, so the reasons say so; design caveats still apply.
+ */
+function exactVerdict(exact: readonly ExactFitEvidence[], caveats: readonly Caveat[], alpha: number | null): Verdict {
+  const simplest = exact[0];
+  const mechanism = simplest.mechanism;
+  const reasons = [
+    `the ${mechanism} fit reproduces every rate exactly (weighted SSE ${simplest.relativeSse.toExponential(1)} of the weighted sum of squared rates): the rates are noise-free (simulated or computed), and no model with fewer constants fits them exactly`,
+    'without noise, p-values, intervals and residual checks describe rounding only; the call rests on which models fit exactly',
+  ];
+  const suggestions: string[] = [];
+  if (mechanism === 'none') {
+    addCaveats(caveats, reasons, suggestions, false);
+    return { outcome: 'no-inhibition', mechanism, decisive: false, candidates: ['none'], headline: 'No inhibition: the rates follow the model without inhibition exactly.', reasons, suggestions };
+  }
+  let outcome: VerdictOutcome = 'decisive';
+  let lean: 'competitive' | 'uncompetitive' | undefined;
+  if (mechanism === 'mixed') {
+    if (alpha !== null && alpha > 1) lean = 'competitive';
+    else if (alpha !== null && alpha < 1) lean = 'uncompetitive';
+    outcome = lean ? 'mixed-lean' : 'undecided';
+  }
+  const blocked = addCaveats(caveats, reasons, suggestions, true);
+  if (blocked) outcome = 'undecided';
+  const decisive = outcome === 'decisive' || outcome === 'mixed-lean';
+  return {
+    outcome,
+    mechanism,
+    ...(lean ? { lean } : {}),
+    decisive,
+    candidates: [mechanism],
+    headline: decisive ? `The rates follow ${mechanism} inhibition${lean ? `, leaning ${lean},` : ''} exactly (noise-free data).` : headline(outcome, mechanism, lean, [mechanism]),
+    reasons,
+    suggestions,
   };
 }
 
@@ -313,7 +360,10 @@ function addCaveats(caveats: readonly Caveat[], reasons: string[], suggestions: 
   let blocked = false;
   for (const c of caveats) {
     reasons.push(c.message);
-    if (c.suggestion && !suggestions.includes(c.suggestion)) suggestions.push(c.suggestion);
+    if (c.suggestion && !suggestions.includes(c.suggestion)) {
+      if (c.leading) suggestions.unshift(c.suggestion);
+      else suggestions.push(c.suggestion);
+    }
     if (c.blocking && canBlock) blocked = true;
   }
   return blocked;
@@ -339,7 +389,7 @@ function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | und
         return `${capitalise(winner)} ranks first, but ${HIDDEN_COMPONENT[exclusion.component]}.`;
       return list.length > 1
         ? `Not decided between ${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}; ${winner} ranks first.`
-        : `${winner} ranks first, but the call is not firm (see reasons).`;
+        : `${capitalise(winner)} ranks first, but the call is not firm (see reasons).`;
     }
   }
 }

@@ -4,16 +4,46 @@
  * The fit is done in theta = ln p. Cov(theta) = s^2 (J'WJ)^-1 with s^2 = SSE_w / (n - p)
  * (Bates, D. M. and Watts, D. G. (1988) Nonlinear Regression Analysis and Its Applications, sec. 2.3),
  * computed from a pivoted QR of the weighted Jacobian (src/fit/qr.ts). By the delta method
- * SE(p) = p * SE(theta), which equals the SE of a fit in the natural parametrisation, and the
- * Wald interval is p +/- t(1 - a/2, n - p) * SE(p) on the natural scale (symmetric; it can dip
- * below zero, which is why profile intervals are preferred for reporting).
+ * SE(p) = p * SE(theta), which equals the SE of a fit in the natural parametrisation. The Wald
+ * interval is formed where the fit is done, on the log scale: p * exp(+-t(1 - a/2, n - p) * SE(theta)),
+ * so an interval of a positive constant stays positive (it is asymmetric on the natural scale).
+ * Profile intervals remain the ones to report; they do not depend on the parametrisation.
+ *
+ * A constant is "not determined" when the fit runs along a ridge to values the data cannot
+ * support: an inhibition constant below the lowest non-zero [I] / DETECTION_FACTOR (inhibition
+ * would be complete at every tested [I], so only the product with another constant is seen), or
+ * Vmax or Km beyond RIDGE_FACTOR times the highest rate or [S]. Such a constant is reported with
+ * no SE and no Wald interval, and a note, never as a precise number.
  *
  * alpha = Kiu / Ki: ln alpha = theta_Kiu - theta_Ki, Var = V_uu + V_ii - 2 V_ui, SE(alpha) = alpha * SE(ln alpha).
  */
 import { unscaledCovariance } from '../fit/qr.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { tQuantile } from '../stats/distributions.js';
-import { detectionBound } from './detection-bound.js';
+import { DETECTION_FACTOR, detectionBound } from './detection-bound.js';
+
+/** Vmax or Km beyond this multiple of the highest rate or [S] is not determined (chosen here). */
+export const RIDGE_FACTOR = 1000;
+
+/** What the data span, for the "not determined" checks; omitted fields skip the check. */
+export interface DataSpan {
+  /** lowest non-zero [I] */
+  minInhibitor?: number;
+  maxRate?: number;
+  maxSubstrate?: number;
+}
+
+/**
+ * The Wald interval value +/- t * se, formed on the log scale for a positive quantity
+ * (value * exp(+-t * se / value)) and on the natural scale otherwise.
+ */
+export function waldInterval(value: number, se: number, t: number, positive: boolean): [number, number] {
+  if (positive && value > 0) {
+    const f = Math.exp((t * se) / value);
+    return [value / f, value * f];
+  }
+  return [value - t * se, value + t * se];
+}
 
 export type EstimateName = 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
 
@@ -28,6 +58,8 @@ export interface ParameterEstimate {
   detected: boolean;
   /** for an undetected constant: the bound it exceeds (or, for alpha, the side it runs off to) */
   exceeds?: number;
+  /** for a constant that runs to zero along a ridge: the bound it falls below */
+  below?: number;
   /** plain-words note, e.g. "Kiu > 400: the enzyme-substrate complex arm is not detected" */
   note?: string;
   /**
@@ -55,11 +87,17 @@ const ARM_NAMES: Record<string, string> = {
 };
 
 /** Wald estimates for every parameter of a fit, plus alpha for mixed. */
-export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0.95): EstimateSet {
+export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0.95, span: DataSpan = {}): EstimateSet {
   const names = fit.model.params;
   const m = names.length;
   const bound = detectionBound(maxInhibitor);
-  const detected = names.map((name, j) => !((name === 'Ki' || name === 'Kiu') && fit.params[j] > bound));
+  const lowBound = span.minInhibitor !== undefined && span.minInhibitor > 0 ? span.minInhibitor / DETECTION_FACTOR : 0;
+  const isArm = (name: string) => name === 'Ki' || name === 'Kiu';
+  const tooLow = names.map((name, j) => isArm(name) && fit.params[j] < lowBound);
+  const ridge = names.map((name, j) =>
+    (name === 'Vmax' && span.maxRate !== undefined && span.maxRate > 0 && fit.params[j] > RIDGE_FACTOR * span.maxRate) ||
+    (name === 'Km' && span.maxSubstrate !== undefined && fit.params[j] > RIDGE_FACTOR * span.maxSubstrate));
+  const detected = names.map((name, j) => !(isArm(name) && (fit.params[j] > bound || tooLow[j])));
   const keep = names.map((_, j) => j).filter((j) => detected[j]);
   const s2 = fit.df > 0 ? fit.sse / fit.df : NaN;
 
@@ -73,6 +111,27 @@ export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0
 
   const t = fit.df > 0 ? tQuantile(0.5 + level / 2, fit.df) : NaN;
   const estimates: ParameterEstimate[] = names.map((name, j) => {
+    if (tooLow[j]) {
+      return {
+        name,
+        value: null,
+        se: null,
+        wald: null,
+        detected: false,
+        below: lowBound,
+        note: `${name} < ${formatBound(lowBound)}: not determined (the fit runs to zero along a ridge, where the data see only its ratio to another constant)`,
+      };
+    }
+    if (ridge[j]) {
+      return {
+        name,
+        value: fit.params[j],
+        se: null,
+        wald: null,
+        detected: true,
+        note: `${name} is not determined: the fit runs along a ridge to ${formatBound(fit.params[j])}, over ${RIDGE_FACTOR} x the highest ${name === 'Vmax' ? 'rate' : '[S]'} measured`,
+      };
+    }
     if (!detected[j]) {
       return {
         name,
@@ -99,7 +158,7 @@ function finiteEstimate(name: EstimateName, value: number, se: number, t: number
     name,
     value,
     se: ok ? se : null,
-    wald: ok ? [value - t * se, value + t * se] : null,
+    wald: ok ? waldInterval(value, se, t, true) : null,
     detected: true,
     ...(ok ? {} : { note: `${name} is not identified by these data (singular information matrix)` }),
   };

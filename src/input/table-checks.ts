@@ -4,12 +4,14 @@
  */
 import { InputError, type InputWarning, type RateTable } from './types.js';
 import { formatConcentration, listLines, locate, quoteText, type Place } from './messages.js';
+import { repeatedRowWarnings } from './repeated-rows.js';
 
 /**
- * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
- * needed to have a residual degree of freedom, so 5 usable points are the floor for any table.
+ * The mixed model has 4 rate parameters (Vmax, Km, Ki, Kiu) and, with the error variance, k = 5
+ * for the criteria. AICc = -2 ln L + 2k + 2k(k + 1)/(n - k - 1) (Hurvich & Tsai 1989) is finite
+ * only for n > k + 1, so every model can be ranked only from 7 usable points on.
  */
-export const MINIMUM_USABLE_POINTS = 5;
+export const MINIMUM_USABLE_POINTS = 7;
 
 function compoundPrefix(table: RateTable): string {
   return table.compound === undefined ? '' : `compound ${quoteText(table.compound)}: `;
@@ -21,7 +23,8 @@ function levels(values: number[]): number[] {
 }
 
 /**
- * Throws InputError when the usable points cannot support the analysis: fewer than 5 points; and,
+ * Throws InputError when the usable points cannot support the analysis: fewer than
+ * MINIMUM_USABLE_POINTS points; and,
  * when `requireMechanismDesign`, fewer than two inhibitor levels or no inhibitor-free control.
  */
 export function checkUsableDesign(
@@ -33,7 +36,7 @@ export function checkUsableDesign(
   const n = table.points.length;
   if (n < MINIMUM_USABLE_POINTS) {
     throw new InputError(
-      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows`,
+      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); ranking all five models by AICc needs at least ${MINIMUM_USABLE_POINTS} (the mixed model has 4 constants plus the error variance); add rates or correct the excluded rows`,
       source, anchors.rate.line, anchors.rate.column,
     );
   }
@@ -94,6 +97,8 @@ export function dataWarnings(table: RateTable): InputWarning[] {
       lines: notPositive,
     });
   }
+
+  warnings.push(...repeatedRowWarnings(points));
 
   if (!hasRepeatedPair(points)) {
     warnings.push({

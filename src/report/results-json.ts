@@ -28,6 +28,7 @@ export function estimateJson(e: ParameterEstimate, level: number): { [key: strin
     detected: e.detected,
   };
   if (e.exceeds !== undefined) out.exceeds = jsonNumber(e.exceeds);
+  if (e.below !== undefined) out.below = jsonNumber(e.below);
   if (e.note) out.note = e.note;
   addIntervalFields(out, e, level);
   return out;

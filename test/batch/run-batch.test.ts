@@ -113,7 +113,7 @@ describe('mechanist batch: mixed inputs', () => {
     expect(readFileSync(join(out, 'index.html'), 'utf8')).toMatch(stamp);
     const doc = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
     expect(doc.counts).toEqual({ compounds: 7, analysed: 7, failed: 0 });
-    expect(doc.settings).toMatchObject({ errorModel: 'constant', level: 0.95, reports: true });
+    expect(doc.settings).toMatchObject({ errorModel: 'auto', level: 0.95, reports: true });
   });
 });
 

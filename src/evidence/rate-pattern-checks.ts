@@ -1,0 +1,111 @@
+/**
+ * Patterns in the rates that the five rapid-equilibrium models cannot describe, each turned into a
+ * verdict caveat with the check that would settle it:
+ *  - substrate inhibition: the control series falls at its highest [S] (the models assume rates
+ *    that only rise with [S]; a fall biases Km and can shift the call). Flagged when the mean at
+ *    the highest [S] lies below the series peak by more than SUBSTRATE_DROP_Z standard errors and
+ *    by more than SUBSTRATE_DROP_FRACTION of the peak (both chosen here).
+ *  - activation: rates rise with [I] (Spearman correlation of the no-inhibition residuals with [I],
+ *    p < PATTERN_LEVEL, and the highest [I] above the control at most shared [S] levels).
+ *  - saturating inhibitor: at the lowest non-zero [I] the median activity relative to the control
+ *    is below SATURATED_ACTIVITY: every tested [I] is far above Ki, so the mechanism cannot show.
+ * Standard errors use the replicate (pure-error) scatter where there are replicates, else the fit's
+ * residual variance, with the fit's weights (sd_k^2 = scale / w_k).
+ */
+import type { FitData } from '../fit/fit-data.js';
+import type { MechanismFit } from '../fit/fit-mechanism.js';
+import { spearmanCorrelation } from '../stats/spearman-correlation.js';
+import { median } from '../stats/median.js';
+import { activityRatios, conditionMeans, inhibitorLevelsOf, type ConditionMean } from './condition-means.js';
+import { ACTIVATION_CODE, type Caveat } from './caveat.js';
+
+export const SUBSTRATE_DROP_Z = 3;
+export const SUBSTRATE_DROP_FRACTION = 0.05;
+export const PATTERN_LEVEL = 0.01;
+export const SATURATED_ACTIVITY = 0.1;
+export const SATURATING_CODE = 'inhibitor-saturating';
+
+function sig(x: number): string {
+  return Number(x.toPrecision(3)).toString();
+}
+
+/**
+ * Scale of the weighted scatter: the pure-error variance of replicates within conditions where
+ * there are replicates (free of any model misfit), else the fit's residual variance s^2.
+ */
+function scatterVariance(means: readonly ConditionMean[], data: FitData, fit: MechanismFit): number {
+  let ss = 0;
+  let df = 0;
+  for (const g of means) {
+    if (g.count < 2) continue;
+    for (const k of g.indices) ss += fit.weights[k] * (data.v[k] - g.mean) ** 2;
+    df += g.count - 1;
+  }
+  if (df > 0) return ss / df;
+  return fit.df > 0 ? fit.sse / fit.df : NaN;
+}
+
+/** Variance of the mean of the points behind a condition, sd_k^2 = scale / w_k. */
+function varianceOfMean(g: ConditionMean, fit: MechanismFit, scale: number): number {
+  let sum = 0;
+  for (const k of g.indices) sum += scale / fit.weights[k];
+  return sum / (g.count * g.count);
+}
+
+export function substrateInhibitionCaveat(data: FitData, fit: MechanismFit): Caveat | null {
+  const means = conditionMeans(data);
+  const control = means.filter((m) => m.i === 0);
+  if (control.length < 3) return null;
+  const top = control[control.length - 1];
+  const peak = control.slice(0, -1).reduce((a, b) => (b.mean > a.mean ? b : a));
+  const drop = peak.mean - top.mean;
+  if (!(drop > 0)) return null;
+  const scale = scatterVariance(means, data, fit);
+  const se = Math.sqrt(varianceOfMean(peak, fit, scale) + varianceOfMean(top, fit, scale));
+  if (!(drop > SUBSTRATE_DROP_Z * se && drop > SUBSTRATE_DROP_FRACTION * peak.mean)) return null;
+  return {
+    code: 'substrate-inhibition',
+    message: `without inhibitor the rate falls at the highest [S] (${sig(peak.mean)} at [S] = ${sig(peak.s)}, ${sig(top.mean)} at [S] = ${sig(top.s)}; ${sig(drop / se)} standard errors): substrate inhibition? The models assume rates that level off, so Km and the call may be biased`,
+    blocking: true,
+    suggestion: 'repeat the highest [S] levels; if the fall holds, exclude the [S] levels past the peak (exclude column) and analyse again',
+    leading: true,
+    headline: 'The rates fall at the highest [S] (substrate inhibition?), which the five models do not describe: no firm call.',
+  };
+}
+
+export function activationCaveat(data: FitData, noneFit: MechanismFit | undefined): Caveat | null {
+  if (!noneFit || !(noneFit.df > 0)) return null;
+  const levels = inhibitorLevelsOf(conditionMeans(data));
+  const highest = levels[levels.length - 1];
+  if (!(highest > 0)) return null;
+  const trend = spearmanCorrelation(data.i, noneFit.weightedResiduals);
+  if (!(trend.rho > 0 && trend.p < PATTERN_LEVEL)) return null;
+  const ratios = activityRatios(conditionMeans(data), highest);
+  const above = ratios.filter((r) => r.ratio > 1).length;
+  if (ratios.length === 0 || above < 0.75 * ratios.length) return null;
+  return {
+    code: ACTIVATION_CODE,
+    message: `the rates rise with [I] (at the highest [I] above the control at ${above} of ${ratios.length} [S] levels, median ratio ${sig(median(ratios.map((r) => r.ratio)))}; Spearman rho of the no-inhibition residuals against [I] ${trend.rho.toFixed(2)}): the compound looks like an activator, which none of the five models describes`,
+    blocking: true,
+    suggestion: 'confirm the activation with a fresh dilution, and rule out a compound signal that adds to the read (compound without enzyme)',
+    leading: true,
+  };
+}
+
+export function saturatingInhibitorCaveat(data: FitData): Caveat | null {
+  const means = conditionMeans(data);
+  const lowest = inhibitorLevelsOf(means).find((x) => x > 0);
+  if (lowest === undefined) return null;
+  const ratios = activityRatios(means, lowest);
+  if (ratios.length === 0) return null;
+  const activity = median(ratios.map((r) => r.ratio));
+  if (!(activity < SATURATED_ACTIVITY)) return null;
+  return {
+    code: SATURATING_CODE,
+    message: `at the lowest non-zero [I] (${sig(lowest)}) the activity is already ${sig(100 * Math.max(activity, 0))}% of the control (median over [S]): every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
+    blocking: true,
+    suggestion: 'test lower [I], from about 0.1 x the IC50 upwards (a dilution series reaching below the lowest [I] used here)',
+    leading: true,
+    headline: 'Every tested [I] inhibits almost completely, so the mechanism cannot be read: test lower [I].',
+  };
+}

@@ -1,0 +1,127 @@
+/**
+ * Odd but real tables (issue 15): each fixture in test/fixtures/odd-data/ (written by the committed
+ * make-odd-data.mjs from invented data) and the statement the analysis must make about it.
+ */
+import { describe, expect, it } from 'vitest';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { readRateFile } from '../../src/input/read-rate-file.js';
+import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
+import { InputError } from '../../src/input/types.js';
+import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
+import { MINIMUM_USABLE_POINTS } from '../../src/input/table-checks.js';
+
+const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'odd-data');
+async function analysed(name: string) {
+  const [table] = await readRateFile(join(dir, `${name}.csv`));
+  return analyzeTable(table, { detail: 'summary' });
+}
+const codesOf = (r: Awaited<ReturnType<typeof analysed>>) => r.verdict.reasons.join(' | ');
+
+describe('odd tables get the statement an enzymologist expects', () => {
+  it('the clean reference table: a firm competitive call', async () => {
+    const r = await analysed('clean-competitive');
+    expect(r.verdict.decisive).toBe(true);
+    expect(r.verdict.mechanism).toBe('competitive');
+    expect(r.verdict.exclusion?.excluded).toBe(true);
+  });
+
+  it('one mistyped well (a rate 10^6 too large) is found, and the call names it instead of flipping', async () => {
+    const r = await analysed('mistyped-well');
+    expect(r.robust).toBeDefined();
+    expect(r.robust!.downWeighted.map((d) => d.line)).toContain(23);
+    expect(r.robust!.verdict.mechanism).toBe('competitive');
+    expect(r.verdict.decisive).toBe(false);
+    expect(r.verdict.headline).toMatch(/^The call depends on one outlying point \(line 23, rate 3\.\d+e\+7\): with it down-weighted the data point to competitive/);
+    expect(r.verdict.suggestions[0]).toMatch(/line 23/);
+  });
+
+  it('noise-free rates: called competitive, with no residual "miss" and no division by zero', async () => {
+    const r = await analysed('noise-free-competitive');
+    expect(r.verdict.mechanism).toBe('competitive');
+    expect(r.verdict.decisive).toBe(true);
+    expect(r.verdict.headline).toBe('The rates follow competitive inhibition exactly (noise-free data).');
+    expect(codesOf(r)).not.toMatch(/misses systematically|lack-of-fit/);
+    for (const m of r.models) expect(Number.isNaN(m.aicc)).toBe(false);
+  });
+
+  it('no activity, a constant column and negative rates are stated plainly, not ranked', async () => {
+    await expect(analysed('all-zero')).rejects.toThrow(/^no activity: every rate is zero/);
+    await expect(analysed('all-equal')).rejects.toThrow(/^every rate equals 12\.5: the rates do not change/);
+    await expect(analysed('all-negative')).rejects.toThrow(/zero or negative .*reverse the sign/);
+    await expect(analysed('all-zero')).rejects.toBeInstanceOf(AnalysisError);
+  });
+
+  it(`fewer than ${MINIMUM_USABLE_POINTS} points are refused with the reason (every model must be rankable)`, async () => {
+    await expect(readRateFile(join(dir, 'five-points.csv'))).rejects.toBeInstanceOf(InputError);
+    await expect(readRateFile(join(dir, 'five-points.csv'))).rejects.toThrow(/only 5 usable points .* at least 7/);
+  });
+
+  it('an activator is named as such, without the "test higher [I]" advice', async () => {
+    const r = await analysed('activator');
+    expect(r.verdict.outcome).toBe('no-inhibition');
+    expect(r.verdict.headline).toBe('No inhibition: the rates rise with [I], as they would for an activator.');
+    expect(r.verdict.suggestions.join(' ')).not.toMatch(/higher inhibitor/);
+    expect(r.verdict.suggestions[0]).toMatch(/confirm the activation/);
+  });
+
+  it('substrate inhibition is named and blocks a firm call', async () => {
+    const r = await analysed('substrate-inhibition');
+    expect(r.verdict.decisive).toBe(false);
+    expect(r.verdict.headline).toMatch(/substrate inhibition\?/);
+    expect(r.verdict.suggestions[0]).toMatch(/highest \[S\]/);
+  });
+
+  it('complete inhibition at the lowest [I] asks for lower [I] first', async () => {
+    const r = await analysed('saturating-inhibitor');
+    expect(r.verdict.decisive).toBe(false);
+    expect(r.verdict.headline).toBe('Every tested [I] inhibits almost completely, so the mechanism cannot be read: test lower [I].');
+    expect(r.verdict.suggestions[0]).toMatch(/^test lower \[I\]/);
+  });
+
+  it('a block of rows pasted twice is noticed, with its lines, and blocks a firm call', async () => {
+    const r = await analysed('pasted-block');
+    const w = r.input.warnings.find((x) => x.code === 'repeated-block');
+    expect(w?.message).toMatch(/^lines 82-89 repeat lines 32-39 exactly/);
+    expect(r.verdict.decisive).toBe(false);
+    expect(r.verdict.headline).toMatch(/repeats a block of rows exactly/);
+  });
+
+  it(`an [I] column in M holding uM values gets a plausibility note (above ${IMPLAUSIBLE_MOLAR} M)`, async () => {
+    const r = await analysed('inhibitor-unit-slip');
+    expect(codesOf(r)).toMatch(/highest \[I\] = 8 M, Ki = [\d.]+ M: above 0\.1 M.*unit slip/);
+    expect(r.verdict.suggestions[0]).toMatch(/check the concentration units/);
+  });
+
+  it('one [S] level: no Wald interval where the profile is open, and no firm call', async () => {
+    const r = await analysed('single-substrate');
+    expect(r.verdict.decisive).toBe(false);
+    for (const m of r.models)
+      for (const e of m.estimates) if (e.profile && (e.profile[0] === null || e.profile[1] === null)) expect(e.wald).toBeNull();
+  });
+});
+
+describe('constants the data cannot determine', () => {
+  it('a constant running to zero along a ridge is "not determined", never a precise number', async () => {
+    const r = await analysed('substrate-far-below-km');
+    const unc = r.models.find((m) => m.mechanism === 'uncompetitive')!;
+    const kiu = unc.estimates.find((e) => e.name === 'Kiu')!;
+    expect(kiu.detected).toBe(false);
+    expect(kiu.value).toBeNull();
+    expect(kiu.below).toBeCloseTo(0.01, 12); // lowest non-zero [I] (1 uM) / DETECTION_FACTOR
+    expect(kiu.note).toMatch(/^Kiu < 0\.01: not determined/);
+    const vmax = unc.estimates.find((e) => e.name === 'Vmax')!;
+    expect(vmax.se).toBeNull();
+    expect(vmax.wald).toBeNull();
+    expect(vmax.note).toMatch(/Vmax is not determined: the fit runs along a ridge/);
+    expect(r.verdict.decisive).toBe(false);
+  });
+  it('Wald intervals of positive constants are formed on the log scale and stay positive', async () => {
+    const r = await analysed('clean-competitive');
+    const ki = r.models.find((m) => m.mechanism === 'competitive')!.estimates.find((e) => e.name === 'Ki')!;
+    const [lo, hi] = ki.wald!;
+    expect(lo).toBeGreaterThan(0);
+    // symmetric about the estimate on the log scale: value^2 = lo * hi
+    expect(Math.log(lo) + Math.log(hi)).toBeCloseTo(2 * Math.log(ki.value!), 12);
+  });
+});
