@@ -71,7 +71,7 @@ async function runTask(t, lib) {
   return {
     design: t.design, placement: t.placement, noise: t.noise, truth: t.truth.name, mechanism: m, K,
     outcome: v.outcome, called: v.mechanism, lean: v.lean ?? null, decisive: v.decisive, family: v.family ?? null,
-    headline: v.headline, errorModel: r.errorModel,
+    headline: v.headline, errorModel: r.errorModel, blockers: (v.caveats ?? []).filter((c) => c.blocking).map((c) => c.code),
     mixedAlpha: pick(est('alpha')), mixedKi: pick(est('Ki')), mixedKiu: pick(est('Kiu')),
     aicc: Object.fromEntries(r.models.map((x) => [x.mechanism, x.aicc])),
     nested: r.nested.map((c) => [c.simpler, c.fuller, c.p]),

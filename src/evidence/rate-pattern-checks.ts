@@ -7,8 +7,9 @@
  *    by more than SUBSTRATE_DROP_FRACTION of the peak (both chosen here).
  *  - activation: rates rise with [I] (Spearman correlation of the no-inhibition residuals with [I],
  *    p < PATTERN_LEVEL, and the highest [I] above the control at most shared [S] levels).
- *  - saturating inhibitor: at the lowest non-zero [I] the median activity relative to the control
- *    is below SATURATED_ACTIVITY: every tested [I] is far above Ki, so the mechanism cannot show.
+ *  - saturating inhibitor: at the lowest non-zero [I] the activity relative to the control stays
+ *    below SATURATED_ACTIVITY at every [S] tested: every tested [I] is far above the inhibition
+ *    constants, so no series shows how inhibition changes with [S].
  * Standard errors use the replicate (pure-error) scatter where there are replicates, else the fit's
  * residual variance, with the fit's weights (sd_k^2 = scale / w_k).
  */
@@ -98,11 +99,11 @@ export function saturatingInhibitorCaveat(data: FitData): Caveat | null {
   if (lowest === undefined) return null;
   const ratios = activityRatios(means, lowest);
   if (ratios.length === 0) return null;
-  const activity = median(ratios.map((r) => r.ratio));
+  const activity = Math.max(...ratios.map((r) => r.ratio));
   if (!(activity < SATURATED_ACTIVITY)) return null;
   return {
     code: SATURATING_CODE,
-    message: `at the lowest non-zero [I] (${sig(lowest)}) the activity is already ${sig(100 * Math.max(activity, 0))}% of the control (median over [S]): every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
+    message: `at the lowest non-zero [I] (${sig(lowest)}) the activity is at most ${sig(100 * Math.max(activity, 0))}% of the control at any [S]: every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
     blocking: true,
     suggestion: 'test lower [I], from about 0.1 x the IC50 upwards (a dilution series reaching below the lowest [I] used here)',
     leading: true,

@@ -97,6 +97,8 @@ export interface Verdict {
   suggestions: string[];
   /** for a three-parameter winner: the test against the mixed alternative it could hide */
   exclusion?: ExclusionFinding;
+  /** the caveats the verdict read, by code, and whether each blocked a firm call */
+  caveats?: Array<{ code: string; blocking: boolean }>;
 }
 
 /** What the exclusion step found for a three-parameter winner. */
@@ -275,6 +277,7 @@ export function decideVerdict(input: VerdictInput): Verdict {
     reasons,
     suggestions,
     ...(exclusion ? { exclusion } : {}),
+    caveats: caveatCodes(caveats),
   };
 }
 
@@ -282,6 +285,10 @@ export function decideVerdict(input: VerdictInput): Verdict {
  * Noise-free data: the simplest model that reproduces the rates exactly is the call. No test or
  * interval means anything without noise, so the reasons say so; design caveats still apply.
  */
+function caveatCodes(caveats: readonly Caveat[]): Array<{ code: string; blocking: boolean }> {
+  return caveats.map((c) => ({ code: c.code, blocking: c.blocking }));
+}
+
 function exactVerdict(exact: readonly ExactFitEvidence[], caveats: readonly Caveat[], alpha: number | null): Verdict {
   const simplest = exact[0];
   const mechanism = simplest.mechanism;
