@@ -10,7 +10,7 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
-import { MINIMUM_USABLE_POINTS } from '../input/table-checks.js';
+import { MINIMUM_ANALYSIS_POINTS } from '../input/table-checks.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
 import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
@@ -66,8 +66,10 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const level = options.level ?? 0.95;
   if (!(level > 0 && level < 1)) throw new AnalysisError(`confidence level must lie between 0 and 1 (got ${level})`);
   const data = fitDataFromTable(table);
-  if (data.v.length < MINIMUM_USABLE_POINTS)
-    throw new AnalysisError(`only ${data.v.length} points; ranking all five models by AICc needs at least ${MINIMUM_USABLE_POINTS} (the mixed model has 4 constants plus the error variance)`);
+  if (data.v.length < MINIMUM_ANALYSIS_POINTS)
+    throw new AnalysisError(
+      `only ${data.v.length} usable points; ranking all five models by AICc needs at least ${MINIMUM_ANALYSIS_POINTS} (the mixed model has 4 constants plus the error variance); add rates`,
+    );
   const inactive = noActivityFinding(data);
   if (inactive) throw new AnalysisError(inactive.message);
   const mechanisms = options.models ?? MECHANISMS;

@@ -11,7 +11,7 @@
  *  - uncompetitive:  alpha >= 1 / ALPHA_FAR rejected
  *  - noncompetitive: alpha >= NONCOMPETITIVE_BAND and alpha <= 1 / NONCOMPETITIVE_BAND both rejected
  * each at one-sided p < EXCLUSION_LEVEL. The constants were chosen by simulation over sparse and
- * generous designs (bench/verdict-design-space.mjs, docs/decisions/firm-calls-exclude-alternatives.md).
+ * generous designs (bench/verdict-space-bench.mjs, docs/decisions/firm-calls-exclude-alternatives.md).
  */
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { FitData } from '../fit/fit-data.js';

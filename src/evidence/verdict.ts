@@ -24,7 +24,7 @@
  *     shortfalls that bear on the distinction, a clearly better error model) is passed in as a
  *     `Caveat`; a caveat marked `blocking` turns a decisive outcome into `undecided`.
  * The levels were chosen by simulation over sparse and generous designs, well-placed and misplaced
- * [I] ranges and 2-10% noise (bench/verdict-design-space.mjs; docs/decisions/firm-calls-exclude-alternatives.md).
+ * [I] ranges and 2-10% noise (bench/verdict-space-bench.mjs; docs/decisions/firm-calls-exclude-alternatives.md).
  * `decisive` is true only for the outcomes `decisive` and `mixed-lean`.
  */
 import type { Mechanism } from '../models/types.js';

@@ -7,11 +7,18 @@ import { formatConcentration, listLines, locate, quoteText, type Place } from '.
 import { repeatedRowWarnings } from './repeated-rows.js';
 
 /**
- * The mixed model has 4 rate parameters (Vmax, Km, Ki, Kiu) and, with the error variance, k = 5
- * for the criteria. AICc = -2 ln L + 2k + 2k(k + 1)/(n - k - 1) (Hurvich & Tsai 1989) is finite
- * only for n > k + 1, so every model can be ranked only from 7 usable points on.
+ * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
+ * needed to have a residual degree of freedom, so 5 usable points are the floor for reading any
+ * table. The mechanism analysis needs more (MINIMUM_ANALYSIS_POINTS).
  */
-export const MINIMUM_USABLE_POINTS = 7;
+export const MINIMUM_USABLE_POINTS = 5;
+
+/**
+ * With the error variance the mixed model has k = 5 for the criteria, and
+ * AICc = -2 ln L + 2k + 2k(k + 1)/(n - k - 1) (Hurvich & Tsai 1989) is finite only for n > k + 1:
+ * every model can be ranked only from 7 usable points on. analyzeTable refuses fewer.
+ */
+export const MINIMUM_ANALYSIS_POINTS = 7;
 
 function compoundPrefix(table: RateTable): string {
   return table.compound === undefined ? '' : `compound ${quoteText(table.compound)}: `;
@@ -23,8 +30,7 @@ function levels(values: number[]): number[] {
 }
 
 /**
- * Throws InputError when the usable points cannot support the analysis: fewer than
- * MINIMUM_USABLE_POINTS points; and,
+ * Throws InputError when the usable points cannot support the analysis: fewer than 5 points; and,
  * when `requireMechanismDesign`, fewer than two inhibitor levels or no inhibitor-free control.
  */
 export function checkUsableDesign(
@@ -36,7 +42,7 @@ export function checkUsableDesign(
   const n = table.points.length;
   if (n < MINIMUM_USABLE_POINTS) {
     throw new InputError(
-      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); ranking all five models by AICc needs at least ${MINIMUM_USABLE_POINTS} (the mixed model has 4 constants plus the error variance); add rates or correct the excluded rows`,
+      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows`,
       source, anchors.rate.line, anchors.rate.column,
     );
   }

@@ -7,9 +7,8 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readRateFile } from '../../src/input/read-rate-file.js';
 import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
-import { InputError } from '../../src/input/types.js';
 import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
-import { MINIMUM_USABLE_POINTS } from '../../src/input/table-checks.js';
+import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
 
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'odd-data');
 async function analysed(name: string) {
@@ -52,9 +51,11 @@ describe('odd tables get the statement an enzymologist expects', () => {
     await expect(analysed('all-zero')).rejects.toBeInstanceOf(AnalysisError);
   });
 
-  it(`fewer than ${MINIMUM_USABLE_POINTS} points are refused with the reason (every model must be rankable)`, async () => {
-    await expect(readRateFile(join(dir, 'five-points.csv'))).rejects.toBeInstanceOf(InputError);
-    await expect(readRateFile(join(dir, 'five-points.csv'))).rejects.toThrow(/only 5 usable points .* at least 7/);
+  it(`fewer than ${MINIMUM_ANALYSIS_POINTS} points are refused with the reason (every model must be rankable)`, async () => {
+    // AICc = -2 ln L + 2k + 2k(k + 1)/(n - k - 1) is finite for n > k + 1; mixed has k = 4 + 1
+    expect(MINIMUM_ANALYSIS_POINTS).toBe(4 + 1 + 2);
+    await expect(analysed('five-points')).rejects.toBeInstanceOf(AnalysisError);
+    await expect(analysed('five-points')).rejects.toThrow(/^only 5 usable points; ranking all five models by AICc needs at least 7/);
   });
 
   it('an activator is named as such, without the "test higher [I]" advice', async () => {

@@ -7,6 +7,8 @@ import type { AnalysisResult } from '../../../analysis/types.js';
 import type { ErrorModel } from '../../../fit/error-models.js';
 import { escapeHtml } from '../escape.js';
 import { DETECTION_FACTOR } from '../../../evidence/detection-bound.js';
+import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../../evidence/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../../evidence/alpha-exclusion.js';
 
 const ERROR_MODEL_TEXT: Record<ErrorModel, string> = {
   constant: 'constant SD: every rate has the same standard deviation σ (unweighted least squares).',
@@ -74,7 +76,7 @@ export function methodsSection(result: AnalysisResult): string {
 <ul>
 <li><strong>AICc</strong>, Akaike's criterion with the small-sample correction, counting the error variance as a constant (Hurvich &amp; Tsai 1989); <strong>BIC</strong> (Schwarz 1978); <strong>Akaike weights</strong> and the rule of thumb for AICc differences (Burnham &amp; Anderson 2002).</li>
 <li><strong>Extra-sum-of-squares F test</strong> of nested models (Draper &amp; Smith 1998) and the <strong>likelihood-ratio test</strong> (Wilks 1938), conservative on the boundary of the fuller model (Self &amp; Liang 1987).</li>
-<li><strong>The verdict</strong>: mixed is preferred only when it has the lower AICc and the nested test rejects the best three-constant model at p &lt; 0.05; a rival within 4 AICc units of the winner leaves the call open; a mixed winner is described by the interval for alpha.</li>
+<li><strong>The verdict</strong>: ${methodsVerdictText()}</li>
 </ul>
 <h3>Intervals (${pct}%)</h3>
 <ul>${intervals}</ul>
@@ -98,4 +100,16 @@ function referenceList(conditional: Partial<Record<ReferenceKey, boolean>>): str
     .sort((a, b) => a.localeCompare(b))
     .map((r) => `<li>${escapeHtml(r)}</li>`)
     .join('');
+}
+
+/** The verdict rule in one sentence, written from the constants the rule uses. */
+export function methodsVerdictText(): string {
+  return (
+    `inhibition counts as detected when an inhibited model beats the model without inhibition at p &lt; ${INHIBITION_LEVEL}; ` +
+    `mixed is preferred only when it has the lower AICc and the nested test rejects the best three-constant model at p &lt; ${MIXED_LEVEL}; ` +
+    `a rival within ${RIVAL_DELTA} AICc units of the winner leaves the call open; ` +
+    `a three-constant call is firm only when the data reject the nearest mixed alternative (one-sided profile tests on alpha at p &lt; ${EXCLUSION_LEVEL}: ` +
+    `alpha &le; ${ALPHA_FAR} for competitive, alpha &ge; 1/${ALPHA_FAR} for uncompetitive, alpha outside ${1 / NONCOMPETITIVE_BAND}-${NONCOMPETITIVE_BAND} for noncompetitive); ` +
+    'a mixed winner is described by the interval for alpha.'
+  );
 }
