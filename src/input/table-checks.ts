@@ -4,6 +4,7 @@
  */
 import { InputError, type InputWarning, type RateTable } from './types.js';
 import { formatConcentration, listLines, locate, quoteText, type Place } from './messages.js';
+import { exclusionReasonsClause } from './exclusion-summary.js';
 
 /**
  * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
@@ -33,7 +34,7 @@ export function checkUsableDesign(
   const n = table.points.length;
   if (n < MINIMUM_USABLE_POINTS) {
     throw new InputError(
-      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows`,
+      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows${exclusionReasonsClause(table)}`,
       source, anchors.rate.line, anchors.rate.column,
     );
   }
