@@ -18,6 +18,13 @@ import { uniqueFolderNames } from '../../batch/plan-compounds.js';
 import { checkOutputFolder, checkReplaceableReportFolder } from '../../report/output-folder.js';
 import { removeStaleTemporaries } from '../../report/write-atomic.js';
 
+/**
+ * From this many usable points on, `analyze` says on stderr (a terminal only) what it is doing
+ * before the fits start: the time of an analysis grows with the points (docs/benchmarks.md,
+ * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
+ */
+export const LARGE_TABLE_POINTS = 100_000;
+
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
   out?: string;
@@ -118,7 +125,11 @@ export function analyzeCommand(io: CliIo): Command {
     const tables = chooseTables(input.tables, o.compound, file);
     const folders = out !== null ? outputFoldersFor(out, tables) : [];
     if (out !== null) prepareReportFolders(out, o.out ?? out, folders);
-    const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
+    const results: AnalysisResult[] = tables.map((t) => {
+      if (io.errIsTTY && t.points.length >= LARGE_TABLE_POINTS)
+        io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; fitting five mechanisms to them can take minutes (README, "Big inputs")\n`);
+      return analyzeTable({ ...t, source: file }, analysis);
+    });
     if (out !== null) {
       const provenance = analyzeProvenance(input.bytes, file, cmd);
       results.forEach((r, k) => writeResultFiles(r, folders[k], provenance));
