@@ -7,7 +7,7 @@
  * (process.resourceUsage().maxRSS) is its own:
  *   read     readRateFile on the whole file (one table per compound);
  *   analyze  `mechanist analyze` (defaults) on one compound of n rows, for n in BIGFILE_BENCH_SIZES
- *            (default 17500,175000), to show how the time grows with n; the full 1.75 M rows only
+ *            (default 4000,17500,40000), to show how the time grows with n; the full 1.75 M rows only
  *            with BIGFILE_BENCH_FULL=1 (it ran over 10 minutes before issue 16; the target is under
  *            60 s and 1 GB on two cores);
  *   batch    `mechanist batch` on the whole file split over BIGFILE_BENCH_COMPOUNDS compounds
@@ -25,7 +25,7 @@ const root = join(here, '..');
 const mainJs = join(root, 'dist', 'cli', 'main.js');
 const ROWS = Number(process.env.BIGFILE_BENCH_ROWS ?? 1_750_000);
 const COMPOUNDS = Number(process.env.BIGFILE_BENCH_COMPOUNDS ?? 50);
-const SIZES = (process.env.BIGFILE_BENCH_SIZES ?? '17500,175000').split(',').map(Number).filter((n) => n > 0);
+const SIZES = (process.env.BIGFILE_BENCH_SIZES ?? '4000,17500,40000').split(',').map(Number).filter((n) => n > 0);
 const FULL = process.env.BIGFILE_BENCH_FULL === '1';
 const BATCH = process.env.BIGFILE_BENCH_BATCH === '1';
 const TIMEOUT_MS = Number(process.env.BIGFILE_BENCH_TIMEOUT_S ?? 900) * 1000;
