@@ -186,6 +186,21 @@ describe('interrupted runs', () => {
   });
 });
 
+describe('analyze after a killed analyze', () => {
+  it('the hidden temporary folder a killed run left beside --out is removed; the report is complete; other entries stay', () => {
+    const parent = mkdtempSync(join(inputs.root, 'analyze-'));
+    const dead = Number(spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }).stdout);
+    const leftover = join(parent, `.report.${dead}.k1ll3d.tmp`);
+    spawnSync('mkdir', ['-p', join(leftover, 'figures')]);
+    writeFileSync(join(leftover, 'figures', 'rate-curves.svg'), '');
+    writeFileSync(join(parent, `.other.${dead}.abc.tmp`), ''); // not this report's: left alone
+    const r = runBuilt(['analyze', 'plates/mixed.csv', '--out', join(parent, 'report'), '--no-profile']);
+    expect(r.code, r.err).toBe(0);
+    expect(readdirSync(parent).sort()).toEqual([`.other.${dead}.abc.tmp`, 'report']);
+    expect(readdirSync(join(parent, 'report')).sort()).toEqual(['figures', 'parameters.csv', 'report.html', 'results.json', 'summary.txt']);
+  });
+});
+
 describe('two batches into one output folder', () => {
   it('the second refuses while the first runs (exit 2, no file touched); the summary and every report it links come from one run', { timeout: 180_000 }, async () => {
     const first = start([...BATCH, '--out', 'shared', '--reports', '--jobs', '1', '--error', 'constant']);
