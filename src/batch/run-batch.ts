@@ -110,7 +110,7 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
     if (cleared.length > 0) notes.push(`removed ${cleared.length} temporary ${cleared.length === 1 ? 'entry' : 'entries'} left by an interrupted run`);
   }
   try {
-    return await runLocked(inputs, files, notes, out, startedAt, options);
+    return await runLocked(files, notes, out, startedAt, options);
   } catch (error) {
     if (out !== null && error instanceof InterruptedError) {
       removeStaleTemporaries(out, true);
@@ -127,8 +127,8 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
   }
 }
 
+/** The run proper, once the output folder is checked and locked: plan, analyse, write. */
 async function runLocked(
-  _inputs: readonly string[],
   files: ReturnType<typeof collectInputFiles>['files'],
   notes: string[],
   out: string | null,
