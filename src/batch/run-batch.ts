@@ -19,7 +19,7 @@ import type { ParseOptions } from '../input/options.js';
 import { InputError } from '../input/types.js';
 import type { Json } from '../report/results-json.js';
 import { removeStaleTemporaries, writeFilesAtomic } from '../report/write-atomic.js';
-import { checkOutputFolder, REPORT_ENTRIES } from '../report/output-folder.js';
+import { checkOutputFolder, isReportEntry, REPORT_ENTRIES } from '../report/output-folder.js';
 import { takeRunLock, type RunLock } from './run-lock.js';
 import { COMPOUNDS_FOLDER } from './analyze-compound.js';
 import { InterruptedError } from './worker-pool.js';
@@ -178,7 +178,7 @@ function isReportFolder(path: string): boolean {
   try {
     if (!statSync(path).isDirectory()) return false;
     const names = readdirSync(path);
-    return names.length > 0 && names.every((name) => REPORT_ENTRIES.has(name));
+    return names.some((name) => REPORT_ENTRIES.has(name)) && names.every(isReportEntry);
   } catch {
     return false;
   }

@@ -18,6 +18,14 @@ import { temporaryOwner, temporaryPathFor } from './write-atomic.js';
 /** What a report folder holds (src/cli/write-results.ts writes exactly these). */
 export const REPORT_ENTRIES: ReadonlySet<string> = new Set(['report.html', 'results.json', 'parameters.csv', 'summary.txt', 'figures']);
 
+/** Files an operating system's file browser drops into folders it shows; replacing them loses nothing. */
+const FILE_BROWSER_FILES: ReadonlySet<string> = new Set(['.DS_Store', 'Thumbs.db', 'desktop.ini']);
+
+/** True for an entry a report folder may hold: a report file, a temporary entry of ours, or file-browser clutter. */
+export function isReportEntry(name: string): boolean {
+  return REPORT_ENTRIES.has(name) || FILE_BROWSER_FILES.has(name) || temporaryOwner(name) !== null;
+}
+
 function statOrNull(path: string): Stats | null {
   try {
     return statSync(path);
@@ -75,7 +83,7 @@ export function checkReplaceableReportFolder(path: string, shown: string = path)
   if (stats === null || !stats.isDirectory()) return;
   // the folder is swapped for the new one, so its parent must take the temporary folder too
   probeWritable(dirname(path), `${shown} (its parent folder)`);
-  const foreign = readdirSync(path).filter((name) => !REPORT_ENTRIES.has(name) && temporaryOwner(name) === null);
+  const foreign = readdirSync(path).filter((name) => !isReportEntry(name));
   if (foreign.length > 0) {
     const shownNames = foreign.slice(0, 3).join(', ') + (foreign.length > 3 ? `, and ${foreign.length - 3} more` : '');
     throw new OutputError(

@@ -177,6 +177,7 @@ describe('output folder checked before the work', () => {
     writeFileSync(join(dir, 'report.html'), '');
     expect(thrown(() => checkReplaceableReportFolder(dir, 'out')).message).toMatch(/^out: holds files that are not part of a report \(my-notes\.docx\)/);
     rmSync(join(dir, 'my-notes.docx'));
+    writeFileSync(join(dir, '.DS_Store'), ''); // a file browser's clutter does not count
     expect(() => checkReplaceableReportFolder(dir, 'out')).not.toThrow();
   });
 });
