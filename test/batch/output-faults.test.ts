@@ -137,6 +137,20 @@ describe.skipIf(!canMount)('a full disk (tmpfs of 64 KiB) leaves nothing mislead
     }
     if (existsSync(join(disk, 'compounds'))) expect(readdirSync(join(disk, 'compounds')).length).toBeGreaterThan(0);
   });
+  it('a disk that is already full is found by the probe before any analysis: exit 2, nothing written', () => {
+    const disk = mountTmpfs('size=64k')!;
+    writeFileSync(join(disk, 'fill'), Buffer.alloc(64 * 1024 - 4096));
+    try {
+      writeFileSync(join(disk, 'fill2'), Buffer.alloc(8192));
+    } catch {
+      // full now
+    }
+    const before = entries(disk);
+    const r = runBuilt(['analyze', 'plates/mixed.csv', '--out', join(disk, 'report')]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/^mechanist: .*report: cannot write there \(no space left on the device\); choose another output folder\n$/);
+    expect(entries(disk)).toEqual(before);
+  });
   it('analyze --out: exit 3 and one line; the report folder is absent rather than half there', () => {
     const disk = mountTmpfs('size=64k')!;
     const r = runBuilt(['analyze', 'plates/mixed.csv', '--out', join(disk, 'report')]);
