@@ -51,6 +51,8 @@ export interface BatchOptions {
   cwd?: string;
   /** called after each compound, in completion order */
   onCompound?: (row: CompoundSummary, done: number, total: number) => void;
+  /** called after each input file is read (done, total), before any compound is analysed */
+  onRead?: (done: number, total: number) => void;
   /** called once the compounds are known, before any is analysed */
   onPlan?: (total: number) => void;
   /** how the run is named in each report's reproducibility footer; default "mechanist batch" */
@@ -135,7 +137,7 @@ async function runLocked(
   startedAt: Date,
   options: BatchOptions,
 ): Promise<BatchResult> {
-  const jobs = await planCompounds(files, options.parse ?? {});
+  const jobs = await planCompounds(files, options.parse ?? {}, options.onRead);
   options.onPlan?.(jobs.length);
   const portable = toPortableOptions(options.analysis ?? {});
   const settings = batchSettings(options, portable);

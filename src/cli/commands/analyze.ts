@@ -1,7 +1,7 @@
 /** `mechanist analyze FILE`: one compound's table, fitted, ranked and summarised. */
 import { Command } from 'commander';
 import { basename, dirname, resolve } from 'node:path';
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { decodeRateBytes, parseRateText, readRateFile, type ParseOptions } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
@@ -24,6 +24,18 @@ import { removeStaleTemporaries } from '../../report/write-atomic.js';
  * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
  */
 export const LARGE_TABLE_POINTS = 100_000;
+
+/** From this file size on (bytes), `analyze` says on a terminal that it is reading (seconds per 10 MB: README, "Big inputs"). */
+export const LARGE_FILE_BYTES = 10_000_000;
+
+function noteLargeFile(path: string, file: string, io: CliIo): void {
+  try {
+    const size = statSync(path).size;
+    if (size >= LARGE_FILE_BYTES) io.err(`mechanist: note: reading ${file} (${(size / 1e6).toFixed(0)} MB)\n`);
+  } catch {
+    // the reader words the error
+  }
+}
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
@@ -121,6 +133,7 @@ export function analyzeCommand(io: CliIo): Command {
     const out = o.out ? resolve(io.cwd, o.out) : null;
     // an output folder that cannot take the results is found before the file is even read
     if (out !== null) checkOutputFolder(out, o.out);
+    if (io.errIsTTY) noteLargeFile(path, file, io);
     const input = await readInputOnce(path, parse);
     const tables = chooseTables(input.tables, o.compound, file);
     const folders = out !== null ? outputFoldersFor(out, tables) : [];
