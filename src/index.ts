@@ -42,3 +42,9 @@ export {
   type ConstantSummary,
   type IntervalKind,
 } from './batch/index.js';
+
+// Output safety (issue 16): errors about the output folder, the atomic writers, a batch's lock and interruption
+export { OutputError, type OutputStage } from './report/output-error.js';
+export { checkOutputFolder } from './report/output-folder.js';
+export { writeFileAtomic, writeFilesAtomic, writeFolderAtomic } from './report/write-atomic.js';
+export { InterruptedError, RUN_LOCK_FILE } from './batch/index.js';

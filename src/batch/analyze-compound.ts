@@ -106,7 +106,8 @@ export function analyzeCompound(job: CompoundJob, settings: CompoundSettings, wr
       });
       report = reportLink(written, settings.reportRoot);
     } catch (error) {
-      const message = error instanceof Error ? error.message : String(error);
+      // paths relative to the output folder, as everywhere in the summary
+      const message = (error instanceof Error ? error.message : String(error)).split(settings.reportRoot + sep).join('');
       return failedSummary(identity, `the report could not be written: ${oneLine(message)}`, job.table);
     }
   }

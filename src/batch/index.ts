@@ -7,3 +7,5 @@ export { indexPage } from './index-page.js';
 export { collectInputFiles, TABLE_FILE_ENDINGS, type InputFile } from './collect-inputs.js';
 export { uniqueCompoundIds } from './plan-compounds.js';
 export type * from './types.js';
+export { InterruptedError } from './worker-pool.js';
+export { takeRunLock, RUN_LOCK_FILE, type RunLock } from './run-lock.js';

@@ -107,9 +107,16 @@ async function readEntries(file: InputFile, parse: ParseOptions): Promise<Entry[
 }
 
 /** Reads every file and lists the compounds in input order, with unique ids and folder names. */
-export async function planCompounds(files: readonly InputFile[], parse: ParseOptions = {}): Promise<CompoundJob[]> {
+export async function planCompounds(
+  files: readonly InputFile[],
+  parse: ParseOptions = {},
+  onFile?: (done: number, total: number) => void,
+): Promise<CompoundJob[]> {
   const entries: Entry[] = [];
-  for (const file of files) entries.push(...(await readEntries(file, parse)));
+  for (const [k, file] of files.entries()) {
+    entries.push(...(await readEntries(file, parse)));
+    onFile?.(k + 1, files.length);
+  }
   const ids = uniqueCompoundIds(entries);
   const folders = uniqueFolderNames(ids);
   return entries.map((entry, k) => ({

@@ -19,7 +19,17 @@ import type { CompoundJob, CompoundSummary } from './types.js';
  */
 const WORKER_LIMITS = { maxOldGenerationSizeMb: 384 };
 
+/** The run was stopped through its AbortSignal (Ctrl-C on the command line). */
+export class InterruptedError extends Error {
+  constructor() {
+    super('the run was interrupted');
+    this.name = 'InterruptedError';
+  }
+}
+
 export interface PoolOptions {
+  /** aborting stops the jobs: workers are terminated and the run rejects with InterruptedError */
+  signal?: AbortSignal;
   /** number of worker threads wanted (at most one per job is started) */
   threads: number;
   settings: CompoundSettings;
@@ -47,16 +57,26 @@ export async function runCompoundJobs(jobs: readonly CompoundJob[], options: Poo
   const threads = Math.min(Math.max(1, Math.floor(options.threads)), jobs.length);
   // loaded here too: the calling thread writes reports when it runs compounds itself
   const writeReport = await loadReportWriter(options.settings);
-  if (threads <= 1 || script === null) return { rows: runInThread(jobs, options, writeReport), threadsUsed: 0, workerProblem: null };
+  if (options.signal?.aborted) throw new InterruptedError();
+  if (threads <= 1 || script === null) return { rows: await runInThread(jobs, options, writeReport), threadsUsed: 0, workerProblem: null };
   return runOnWorkers(jobs, options, script, threads, writeReport);
 }
 
-function runInThread(jobs: readonly CompoundJob[], options: PoolOptions, writeReport: ReportWriter | null): CompoundSummary[] {
-  return jobs.map((job) => {
+/** Gives the event loop a turn, so that a signal handler can run between two compounds. */
+const yieldToEvents = () => new Promise<void>((done) => setImmediate(done));
+
+async function runInThread(jobs: readonly CompoundJob[], options: PoolOptions, writeReport: ReportWriter | null): Promise<CompoundSummary[]> {
+  const rows: CompoundSummary[] = [];
+  for (const job of jobs) {
+    if (options.signal) {
+      await yieldToEvents();
+      if (options.signal.aborted) throw new InterruptedError();
+    }
     const row = analyzeCompound(job, options.settings, writeReport);
     options.onRow?.(row);
-    return row;
-  });
+    rows.push(row);
+  }
+  return rows;
 }
 
 /**
@@ -88,7 +108,8 @@ function runOnWorkers(
   threads: number,
   writeReport: ReportWriter | null,
 ): Promise<PoolOutcome> {
-  return new Promise((resolveAll) => {
+  return new Promise((resolveAll, rejectAll) => {
+    let stopped = false;
     let workersThatAnswered = 0;
     let workerProblem: string | null = null;
     const rows: Array<CompoundSummary | undefined> = new Array(jobs.length);
@@ -97,16 +118,28 @@ function runOnWorkers(
     let finished = 0;
 
     const record = (index: number, row: CompoundSummary) => {
-      if (rows[index] !== undefined) return;
+      if (stopped || rows[index] !== undefined) return;
       rows[index] = row;
       finished += 1;
       options.onRow?.(row);
       if (finished === jobs.length) {
+        stopped = true;
+        options.signal?.removeEventListener('abort', stop);
         for (const w of workers) void w.terminate();
         workers.clear();
         resolveAll({ rows: rows as CompoundSummary[], threadsUsed: workersThatAnswered, workerProblem });
       }
     };
+
+    // On abort: every worker is terminated (a write in progress ends first), then the run rejects.
+    function stop(): void {
+      if (stopped) return;
+      stopped = true;
+      const ending = [...workers].map((w) => w.terminate());
+      workers.clear();
+      void Promise.allSettled(ending).then(() => rejectAll(new InterruptedError()));
+    }
+    options.signal?.addEventListener('abort', stop, { once: true });
 
     const runHere = (index: number) => record(index, analyzeCompound(jobs[index], options.settings, writeReport));
     // With no worker left (none could start), the calling thread does the rest.
@@ -131,13 +164,14 @@ function runOnWorkers(
         worker.postMessage(jobs[current]);
       };
       worker.on('message', (row: CompoundSummary) => {
+        if (stopped) return;
         if (!answered) workersThatAnswered += 1;
         answered = true;
         record(current, row);
         feed();
       });
       const lost = (why: string, outOfMemory = false) => {
-        if (!workers.has(worker)) return;
+        if (stopped || !workers.has(worker)) return;
         workers.delete(worker);
         if (!answered && !outOfMemory) {
           // The worker could not start (or died on its first compound): that compound, and the

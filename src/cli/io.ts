@@ -5,6 +5,11 @@ export interface CliIo {
   /** true when stderr is a terminal (progress bars only then) */
   errIsTTY: boolean;
   cwd: string;
+  /**
+   * Calls `handler` once on SIGINT or SIGTERM (with the signal's name); returns a function that
+   * removes it. Absent in-process (tests), where nothing is interrupted.
+   */
+  onInterrupt?: (handler: (signal: NodeJS.Signals) => void) => () => void;
 }
 
 export function processIo(): CliIo {
@@ -13,5 +18,17 @@ export function processIo(): CliIo {
     err: (t) => process.stderr.write(t),
     errIsTTY: Boolean(process.stderr.isTTY),
     cwd: process.cwd(),
+    onInterrupt: (handler) => {
+      const signals: NodeJS.Signals[] = ['SIGINT', 'SIGTERM'];
+      const listener = (signal: NodeJS.Signals) => {
+        remove(); // a second Ctrl-C then ends the process at once
+        handler(signal);
+      };
+      const remove = () => {
+        for (const s of signals) process.off(s, listener);
+      };
+      for (const s of signals) process.on(s, listener);
+      return remove;
+    },
   };
 }

@@ -6,7 +6,11 @@ import { Command, CommanderError } from 'commander';
 import { InputError } from '../input/types.js';
 import { AnalysisError } from '../analysis/analyze-table.js';
 import { TOOL_VERSION } from '../version.js';
-import { EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_OK, UsageError } from './exit-codes.js';
+import {
+  EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_INTERRUPTED, EXIT_OK, EXIT_TERMINATED, EXIT_WRITE_FAILED, UsageError,
+} from './exit-codes.js';
+import { OutputError } from '../report/output-error.js';
+import { InterruptedError } from '../batch/worker-pool.js';
 import type { CliIo } from './io.js';
 import { analyzeCommand } from './commands/analyze.js';
 import { simulateCommand } from './commands/simulate.js';
@@ -63,6 +67,15 @@ export function reportFailure(e: unknown, io: CliIo): number {
   if (e instanceof InputError || e instanceof UsageError) {
     io.err(`mechanist: ${oneLine(e.message)}\n`);
     return EXIT_BAD_INPUT;
+  }
+  if (e instanceof OutputError) {
+    io.err(`mechanist: ${oneLine(e.message)}\n`);
+    return e.stage === 'check' ? EXIT_BAD_INPUT : EXIT_WRITE_FAILED;
+  }
+  if (e instanceof InterruptedError) {
+    const signal = (e as InterruptedError & { signal?: string }).signal;
+    io.err(`mechanist: interrupted${signal ? ` (${signal})` : ''}; the summary was not written and temporary files were removed\n`);
+    return signal === 'SIGTERM' ? EXIT_TERMINATED : EXIT_INTERRUPTED;
   }
   if (e instanceof AnalysisError) {
     io.err(`mechanist: analysis not completed: ${oneLine(e.message)}\n`);

@@ -12,7 +12,7 @@ import { readLongLayout } from './long-layout.js';
 import { readMatrixLayout } from './matrix-layout.js';
 import { parseConcentrationUnit } from './units.js';
 import { convertUnits } from './convert-units.js';
-import { checkUsableDesign, dataWarnings } from './table-checks.js';
+import { checkNumericRange, checkUsableDesign, dataWarnings } from './table-checks.js';
 import { emptyFileError, type CompoundRows, type LayoutResult } from './layout-result.js';
 
 const SEPARATORS = [',', '\t', ';'] as const;
@@ -57,6 +57,7 @@ export function parseRateText(text: string, options: ParseOptions & { source: st
     let table = buildTable(group, read, { source, layout, separator, decimalMark, units, detection });
     checkUsableDesign(table, read.anchors, options.requireMechanismDesign ?? true);
     if (options.outputUnits) table = convertUnits(table, options.outputUnits);
+    checkNumericRange(table, read.anchors);
     table.warnings = [...unitWarnings, ...sdWarnings(group, read), ...dataWarnings(table)];
     return table;
   });

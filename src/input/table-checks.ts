@@ -5,6 +5,7 @@
 import { InputError, type InputWarning, type RateTable } from './types.js';
 import { formatConcentration, listLines, locate, quoteText, type Place } from './messages.js';
 import { repeatedRowWarnings } from './repeated-rows.js';
+import { exclusionReasonsClause } from './exclusion-summary.js';
 
 /**
  * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
@@ -42,7 +43,7 @@ export function checkUsableDesign(
   const n = table.points.length;
   if (n < MINIMUM_USABLE_POINTS) {
     throw new InputError(
-      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows`,
+      `${locate(source, anchors.rate)}${compoundPrefix(table)}only ${n} usable ${n === 1 ? 'point' : 'points'} (${table.rowsRead} read, ${table.excluded.length} excluded); the mixed model has 4 parameters, so at least ${MINIMUM_USABLE_POINTS} are needed; add rates or correct the excluded rows${exclusionReasonsClause(table)}`,
       source, anchors.rate.line, anchors.rate.column,
     );
   }
@@ -64,6 +65,59 @@ export function checkUsableDesign(
       `${locate(source, anchors.inhibitor)}${compoundPrefix(table)}no inhibitor-free control ([I] = 0) among the usable points; a mechanism analysis compares rates with and without inhibitor; add [I] = 0 rows (or turn off the mechanism-design check)`,
       source, anchors.inhibitor.line, anchors.inhibitor.column,
     );
+  }
+}
+
+/**
+ * The magnitudes a non-zero value may have: 1e-150 to 1e150. Within them every square the fit
+ * forms (residuals, weights 1/sd^2, the Jacobian's cross products) stays inside the normal range
+ * of a double (about 2.2e-308 to 1.8e308, IEEE 754) with decades to spare; beyond them the fits
+ * under- or overflow (measured: rates of 1e300 and concentrations of 1e-300 ended in internal
+ * errors, rates of 1e-300 ran over two minutes). At both ends, and with concentrations and rates
+ * at opposite ends together, the analysis was checked to give the call it gives at ordinary
+ * scale (test/input/numeric-range.test.ts).
+ */
+export const SMALLEST_MAGNITUDE = 1e-150;
+export const LARGEST_MAGNITUDE = 1e150;
+
+function outOfRange(x: number): boolean {
+  const a = Math.abs(x);
+  return a !== 0 && (a < SMALLEST_MAGNITUDE || a > LARGEST_MAGNITUDE);
+}
+
+/**
+ * Throws InputError, naming the line (and column in the long layout) and the value, for the first
+ * usable value outside SMALLEST_MAGNITUDE..LARGEST_MAGNITUDE: a fit cannot be trusted there, and
+ * the cure is a change of unit, which changes no result.
+ */
+export function checkNumericRange(table: RateTable, anchors: { substrate: Place; inhibitor: Place; rate: Place }): void {
+  for (const p of table.points) {
+    const values: Array<[string, number | undefined, Place | null]> = [
+      ['substrate', p.substrate, anchors.substrate],
+      ['inhibitor', p.inhibitor, anchors.inhibitor],
+      ['rate', p.rate, anchors.rate],
+      ['sd', p.sd, null],
+    ];
+    for (const [what, value, anchor] of values) {
+      if (value === undefined || !outOfRange(value)) continue;
+      const column = table.layout === 'long' && anchor?.column !== undefined ? anchor.column : undefined;
+      const place: Place = column !== undefined ? { line: p.line, column } : { line: p.line };
+      const unit = what === 'substrate' ? table.units.substrate : what === 'inhibitor' ? table.units.inhibitor : null;
+      const cure = unit !== null && unit !== undefined
+        ? `give the ${what} in another unit (the header says ${unit})`
+        : `rescale the ${what} column (a change of unit changes no result)`;
+      throw new InputError(
+        `${locate(table.source, place)}${compoundPrefix(table)}${what} ${value} is outside the range that can be fitted reliably (non-zero magnitudes from ${SMALLEST_MAGNITUDE} to ${LARGEST_MAGNITUDE}); ${cure}`,
+        table.source, place.line, column,
+      );
+    }
+    // with sd weights the fit squares rate/sd: the ratio obeys the same bounds
+    if (p.sd !== undefined && p.rate !== 0 && outOfRange(p.sd / p.rate)) {
+      throw new InputError(
+        `${locate(table.source, { line: p.line })}${compoundPrefix(table)}sd ${p.sd} is ${(p.sd / Math.abs(p.rate)).toExponential(1)} times its rate ${p.rate}; sd weights need sd/rate within ${SMALLEST_MAGNITUDE} to ${LARGEST_MAGNITUDE}; check the sd column (is it in the rate's unit?)`,
+        table.source, p.line,
+      );
+    }
   }
 }
 

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/run-cli.js';
 import type { CliIo } from '../../src/cli/io.js';
+import { LARGE_FILE_BYTES } from '../../src/cli/commands/analyze.js';
 
 const ROOT = join(__dirname, '..', '..');
 
@@ -159,5 +160,22 @@ describe('mechanist demo', () => {
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/mixed inhibition, leaning competitive/);
     expect(existsSync(join(dir, 'demo', 'results.json'))).toBe(true);
+  });
+});
+
+describe('notes on big inputs (issue 16, item 6)', () => {
+  it(`a file of ${LARGE_FILE_BYTES / 1e6} MB or more is announced on a terminal before it is read; not when stderr is not a terminal`, async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-big-'));
+    const file = join(dir, 'big.csv');
+    writeFileSync(file, 'substrate,inhibitor,rate,rate\n' + '1,0,2,3\n'.repeat(Math.ceil(LARGE_FILE_BYTES / 8)));
+    for (const errIsTTY of [true, false]) {
+      let err = '';
+      const code = await runCli(['analyze', file], { out: () => {}, err: (t) => void (err += t), errIsTTY, cwd: dir });
+      expect(code).toBe(2);
+      const lines = err.trim().split('\n');
+      expect(lines.at(-1)).toMatch(/duplicate column name "rate"/);
+      expect(lines.length).toBe(errIsTTY ? 2 : 1);
+      if (errIsTTY) expect(lines[0]).toMatch(new RegExp(`^mechanist: note: reading .*big\\.csv \\(10 MB\\)$`));
+    }
   });
 });

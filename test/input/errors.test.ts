@@ -93,7 +93,9 @@ describe('input errors', () => {
   it(`fewer than ${MINIMUM_USABLE_POINTS} usable points (mixed has 4 parameters)`, () => {
     expect(MINIMUM_USABLE_POINTS).toBe(5);
     expect(message('too-few-points.csv')).toBe(
-      'too-few-points.csv:1:3: only 4 usable points (6 read, 2 excluded); the mixed model has 4 parameters, so at least 5 are needed; add rates or correct the excluded rows',
+      'too-few-points.csv:1:3: only 4 usable points (6 read, 2 excluded); the mixed model has 4 parameters, so at least 5 are needed; add rates or correct the excluded rows' +
+        '; excluded because: 1 row at line 4 column 3: rate is blank (fix: fill in the blank cells)' +
+        '; 1 row at line 7 column 3: rate "n/a" is not a number (fix: write numbers in these cells, or leave them blank)',
     );
     // the point floor holds even without the mechanism-design check
     expect(message('too-few-points.csv', { requireMechanismDesign: false })).toMatch(/only 4 usable points/);

@@ -1,6 +1,7 @@
 /** `mechanist analyze FILE`: one compound's table, fitted, ranked and summarised. */
 import { Command } from 'commander';
-import { resolve } from 'node:path';
+import { basename, dirname, resolve } from 'node:path';
+import { mkdirSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { decodeRateBytes, parseRateText, readRateFile, type ParseOptions } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
@@ -13,7 +14,28 @@ import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { writeResultFiles } from '../write-results.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
-import { safeName } from '../../report/safe-name.js';
+import { uniqueFolderNames } from '../../batch/plan-compounds.js';
+import { checkOutputFolder, checkReplaceableReportFolder } from '../../report/output-folder.js';
+import { removeStaleTemporaries } from '../../report/write-atomic.js';
+
+/**
+ * From this many usable points on, `analyze` says on stderr (a terminal only) what it is doing
+ * before the fits start: the time of an analysis grows with the points (docs/benchmarks.md,
+ * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
+ */
+export const LARGE_TABLE_POINTS = 100_000;
+
+/** From this file size on (bytes), `analyze` says on a terminal that it is reading (seconds per 10 MB: README, "Big inputs"). */
+export const LARGE_FILE_BYTES = 10_000_000;
+
+function noteLargeFile(path: string, file: string, io: CliIo): void {
+  try {
+    const size = statSync(path).size;
+    if (size >= LARGE_FILE_BYTES) io.err(`mechanist: note: reading ${file} (${(size / 1e6).toFixed(0)} MB)\n`);
+  } catch {
+    // the reader words the error
+  }
+}
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
@@ -33,8 +55,33 @@ export function chooseTables(tables: RateTable[], compound: string | undefined, 
   return found;
 }
 
-export function outputFolderFor(out: string, table: RateTable, many: boolean): string {
-  return many && table.compound !== undefined ? resolve(out, safeName(table.compound)) : resolve(out);
+/**
+ * The report folder of each table: `out` itself for one table; for several (--compound all), one
+ * sub-folder per compound, named as batch names them (uniqueFolderNames: safe characters, long
+ * names shortened with a hash, names that differ only by case or that would be "." or ".."
+ * kept apart).
+ */
+export function outputFoldersFor(out: string, tables: readonly RateTable[]): string[] {
+  if (tables.length === 1) return [resolve(out)];
+  return uniqueFolderNames(tables.map((t) => t.compound ?? '(unnamed)')).map((name) => resolve(out, name));
+}
+
+/**
+ * Checks, before the analysis, that the results can be written: the --out folder (or its parent)
+ * exists and takes files, and each report folder is new, empty or an earlier report; clears the
+ * temporary entries a killed run left beside them. Throws OutputError (exit 2).
+ */
+export function prepareReportFolders(out: string, shown: string, folders: readonly string[], createParents = false): void {
+  const check = checkOutputFolder(out, shown, createParents);
+  const single = folders.length === 1 && folders[0] === resolve(out);
+  if (single) {
+    checkReplaceableReportFolder(out, shown);
+    removeStaleTemporaries(dirname(out), false, basename(out));
+    return;
+  }
+  if (check.created) mkdirSync(out, { recursive: true });
+  removeStaleTemporaries(out);
+  for (const folder of folders) checkReplaceableReportFolder(folder, `${shown}/${basename(folder)}`);
 }
 
 
@@ -83,12 +130,22 @@ export function analyzeCommand(io: CliIo): Command {
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
     const path = resolve(io.cwd, file);
+    const out = o.out ? resolve(io.cwd, o.out) : null;
+    // an output folder that cannot take the results is found before the file is even read
+    if (out !== null) checkOutputFolder(out, o.out);
+    if (io.errIsTTY) noteLargeFile(path, file, io);
     const input = await readInputOnce(path, parse);
     const tables = chooseTables(input.tables, o.compound, file);
-    const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
-    if (o.out) {
+    const folders = out !== null ? outputFoldersFor(out, tables) : [];
+    if (out !== null) prepareReportFolders(out, o.out ?? out, folders);
+    const results: AnalysisResult[] = tables.map((t) => {
+      if (io.errIsTTY && t.points.length >= LARGE_TABLE_POINTS)
+        io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; fitting five mechanisms to them can take minutes (README, "Big inputs")\n`);
+      return analyzeTable({ ...t, source: file }, analysis);
+    });
+    if (out !== null) {
       const provenance = analyzeProvenance(input.bytes, file, cmd);
-      for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1), provenance);
+      results.forEach((r, k) => writeResultFiles(r, folders[k], provenance));
     }
     if (o.json) {
       const docs = results.map(analysisJson);

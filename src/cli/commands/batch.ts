@@ -7,6 +7,7 @@ import { Command } from 'commander';
 import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
 import { runBatch } from '../../batch/run-batch.js';
+import { InterruptedError } from '../../batch/worker-pool.js';
 import { progressBar, type ProgressBar } from '../progress-bar.js';
 import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
@@ -40,16 +41,34 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
     // the shared bar draws on stderr when it is a terminal; --quiet (and a non-terminal io) turn it off
     const bar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('batch') : null;
+    // reading big inputs takes seconds too: a bar of its own, files read of files given
+    const readBar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('reading') : null;
+    // Ctrl-C: the workers stop, this run's temporary files and its lock are removed (exit 130)
+    const interrupt = new AbortController();
+    let signalName: NodeJS.Signals | null = null;
+    const stopListening = io.onInterrupt?.((signal) => {
+      signalName = signal;
+      interrupt.abort();
+    });
     const result = await runBatch(inputs, {
+      signal: interrupt.signal,
       out: o.out,
       reports: Boolean(o.reports),
       jobs,
       parse,
       analysis,
       cwd: io.cwd,
+      onRead: (done, total) => readBar?.update(done, total),
+      onPlan: () => readBar?.finish(),
       onCompound: (_row, done, total) => bar?.update(done, total),
+    }).catch((error: unknown) => {
+      if (error instanceof InterruptedError && signalName !== null) Object.assign(error, { signal: signalName });
+      throw error;
+    }).finally(() => {
+      stopListening?.();
+      readBar?.finish();
+      bar?.finish();
     });
-    bar?.finish();
     if (!o.quiet) for (const note of result.notes) io.err(`mechanist: note: ${note}\n`);
     if (!o.quiet && result.workerProblem !== null)
       io.err(`mechanist: note: worker threads could not be used (${result.workerProblem}); compounds ran in the main thread\n`);

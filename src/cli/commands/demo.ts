@@ -13,17 +13,20 @@ import type { CliIo } from '../io.js';
 import { demoDataPath } from '../package-paths.js';
 import { writeResultFiles } from '../write-results.js';
 import { sha256Hex } from '../../report/html/provenance.js';
+import { prepareReportFolders } from './analyze.js';
 
 export const DEMO_SOURCE_NAME = 'data/demo/hlx-amidase-kt0417.csv';
 
 export function demoCommand(io: CliIo): Command {
-  return new Command('demo')
+  const cmd = new Command('demo')
     .description('analyse the shipped demo dataset and write the results to reports/demo/')
-    .option('--out <dir>', 'output folder', 'reports/demo')
-    .action(async (o: { out: string }) => {
+    .option('--out <dir>', 'output folder', 'reports/demo');
+  return cmd.action(async (o: { out: string }) => {
+      const dir = resolve(io.cwd, o.out);
+      // the default folder may be created with its parents; a folder the user names needs its parent
+      prepareReportFolders(dir, o.out, [dir], cmd.getOptionValueSource('out') === 'default');
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
-      const dir = resolve(io.cwd, o.out);
       writeResultFiles(result, dir, {
         command: 'mechanist demo',
         inputSha256: sha256Hex(await readFile(demoDataPath())),
