@@ -14,8 +14,10 @@ import type { CliIo } from '../io.js';
 import { writeResultFiles } from '../write-results.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
 import { safeName } from '../../report/safe-name.js';
+import { addReadsOptions, readsSummaryLine, runReads, type ReadsCliOptions } from '../reads-input.js';
 
-interface AnalyzeCliOptions extends SharedCliOptions {
+interface AnalyzeCliOptions extends SharedCliOptions, ReadsCliOptions {
+  reads?: string[];
   json?: boolean;
   out?: string;
   compound?: string;
@@ -74,16 +76,31 @@ export function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: C
 export function analyzeCommand(io: CliIo): Command {
   const cmd = new Command('analyze')
     .description('fit the five mechanisms to one rate table and rank them')
-    .argument('<file>', 'CSV or TSV rate table')
+    .argument('[file]', 'CSV or TSV rate table (or give --reads and --plate-map)')
+    .option('--reads <files...>', 'kinetic plate reads instead of a rate table: initial rates are found first, as `mechanist rates` does')
     .option('--json', 'print one JSON document instead of the text summary')
     .option('--out <dir>', 'write results.json, parameters.csv and summary.txt into this folder')
     .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)');
   addSharedOptions(cmd);
-  cmd.action(async (file: string, o: AnalyzeCliOptions) => {
+  addReadsOptions(cmd, false);
+  cmd.action(async (fileArgument: string | undefined, o: AnalyzeCliOptions) => {
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
-    const path = resolve(io.cwd, file);
-    const input = await readInputOnce(path, parse);
+    let input: { tables: RateTable[]; bytes: Uint8Array | null };
+    let file: string;
+    if (o.reads !== undefined) {
+      if (fileArgument !== undefined) throw new UsageError('give a rate table or --reads, not both');
+      const run = await runReads(o.reads, o, io.cwd);
+      for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
+      io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);
+      file = `rates from ${o.reads.join(', ')}`;
+      input = { tables: parseRateText(run.text, { ...parse, source: file }), bytes: new TextEncoder().encode(run.text) };
+    } else {
+      if (fileArgument === undefined) throw new UsageError('analyze needs a rate table FILE, or --reads READS --plate-map MAP');
+      if (o.plateMap !== undefined) throw new UsageError('option --plate-map: only used with --reads');
+      file = fileArgument;
+      input = await readInputOnce(resolve(io.cwd, file), parse);
+    }
     const tables = chooseTables(input.tables, o.compound, file);
     const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
     if (o.out) {
