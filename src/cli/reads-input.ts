@@ -28,6 +28,7 @@ export interface ReadsCliOptions {
   pathLength?: string;
   ceiling?: string;
   rateFrom?: string;
+  depletionCorrection?: boolean;
 }
 
 /** Adds --plate-map, --conversion, --path-length, --ceiling and --rate-from. */
@@ -39,6 +40,7 @@ export function addReadsOptions(cmd: Command, mapRequired: boolean): Command {
     .option('--conversion <factor|file>', 'signal per product concentration (6.22/mM; 6220/M/cm with --path-length) or a standard-curve CSV (concentration (unit),signal)')
     .option('--path-length <cm>', 'optical path length in cm, for a conversion per cm (Beer-Lambert law)')
     .option('--ceiling <signal>', 'detector ceiling: reads at or above it are saturated (default: the plate top value, when repeated)')
+    .option('--no-depletion-correction', 'report the window slope as it is, without correcting it for the substrate used in the window')
     .option('--rate-from <method>', 'window (straight early window, default) | integrated (v0 of the integrated Michaelis-Menten fit where valid)', 'window');
 }
 
@@ -83,6 +85,7 @@ export async function runReads(readsPaths: string[], o: ReadsCliOptions, cwd: st
     if (o.rateFrom !== 'window' && o.rateFrom !== 'integrated') throw new UsageError(`option --rate-from: "${o.rateFrom}" is not window or integrated`);
     options.rateFrom = o.rateFrom;
   }
+  if (o.depletionCorrection === false) options.depletionCorrection = false;
   const result = ratesFromReads(reads, map, options);
   const notes = [...result.notes];
   if (result.conversion) notes.push(`conversion: ${result.conversion.description}`);

@@ -157,7 +157,7 @@ export function quadraticTermP(x: readonly number[], y: readonly number[]): numb
  * coefficient of the squared term in the original x scale, its t statistic's two-sided p value,
  * and the slope of the quadratic at given x values via `slopeAt`.
  */
-export function quadraticFit(x: readonly number[], y: readonly number[], n: number): { c: number; p: number; slopeAt: (t: number) => number; sse: number } {
+export function quadraticFit(x: readonly number[], y: readonly number[], n: number): { c: number; seC: number; p: number; slopeAt: (t: number) => number; sse: number } {
   let mx = 0;
   let my = 0;
   for (let i = 0; i < n; i++) {
@@ -197,12 +197,13 @@ export function quadraticFit(x: readonly number[], y: readonly number[], n: numb
   }
   const df = n - 3;
   let p = 1;
+  let seC = Number.NaN;
   if (df > 0 && s22 > 0) {
-    const seC = Math.sqrt(sse / df / s22);
+    seC = Math.sqrt(sse / df / s22);
     const t = Math.abs(c) / seC;
     p = seC > 0 ? 2 * tCdfStdlib(-t, df) : c === 0 ? 1 : 0;
     if (!Number.isFinite(p)) p = 0;
   }
   // y = my + (b1 - c g) d + c (d^2 - mean2): slope at x is b1 - c g + 2 c (x - mx)
-  return { c, p, sse, slopeAt: (t: number) => b1 - c * g + 2 * c * (t - mx) };
+  return { c, seC, p, sse, slopeAt: (t: number) => b1 - c * g + 2 * c * (t - mx) };
 }

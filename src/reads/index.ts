@@ -9,6 +9,7 @@ export { parseConversionFactor, conversionIn, fitStandardCurve, readStandardCurv
 export { chooseBlank } from './blank-correction.js';
 export { chooseWindow, lineThrough, straightnessOf } from './initial-window.js';
 export { ratesFromReads, type PlateRates, type RatesOptions, type BlankWell } from './plate-rates.js';
+export { correctForDepletion, chordFactor, seriesKm, MIN_SERIES_LEVELS } from './depletion-correction.js';
 export { rateTableText, wellsWithoutCompound } from './rate-table-text.js';
 export { lambertW, wrightOmega } from './lambert-w.js';
 export { productFormed, substrateLeft, fitIntegratedCurve, type IntegratedFit } from './integrated-michaelis-menten.js';

@@ -7,8 +7,8 @@
  * when the term is not significant at CURVATURE_P, or when the slope it implies changes by at
  * most CURVATURE_TOLERANCE between the first and the last read of the window (a real curvature too
  * small to move the line's slope by more than about half of that). The longest straight start is
- * the window (when the substrate use is known, only starts within SUBSTRATE_USE_LIMIT are tried,
- * the initial-rate condition of common practice); its straight-line fit gives the rate and its standard error (ordinary least squares,
+ * the window (when the substrate use is known, the caller also keeps it within SUBSTRATE_USE_LIMIT,
+ * the initial-rate condition of common practice: plate-rates.ts); its straight-line fit gives the rate and its standard error (ordinary least squares,
  * s / sqrt(Sxx)). When no start passes, the shortest one is used and marked `forced`.
  * Common practice for initial rates (e.g. Copeland (2000) Enzymes, 2nd ed., ch. 5: the linear
  * early phase of the progress curve); the test is the project's own formulation.

@@ -9,10 +9,11 @@ import { InputError, type ConcentrationUnit } from '../input/types.js';
 import { formatNumber, locate } from '../input/messages.js';
 import type { Conversion, KineticReads, MapEntry, PlateMap, ReadExclusion, TimeUnit, WellCurve, WellFlag, WellRate } from './types.js';
 import { chooseBlank } from './blank-correction.js';
-import { chooseWindow, lineThrough } from './initial-window.js';
+import { chooseWindow } from './initial-window.js';
 import { saturatedReads, shapeFlags } from './well-shape.js';
 import { fitIntegratedCurve, productFormed } from './integrated-michaelis-menten.js';
 import { conversionIn } from './conversion.js';
+import { correctForDepletion } from './depletion-correction.js';
 import { SECONDS_PER } from './time-values.js';
 import { listWells, wellLabel } from './well-names.js';
 import { FRACTION_DIGITS, INTEGRATED_MIN_USE, MIN_WINDOW_READS, NOISY_FACTOR, SUBSTRATE_USE_LIMIT } from './thresholds.js';
@@ -26,6 +27,8 @@ export interface RatesOptions {
   rateFrom?: 'window' | 'integrated';
   /** confidence level of the Km interval of the integrated fit (default 0.95) */
   level?: number;
+  /** correct window rates for the substrate used in the window (default true; needs a conversion) */
+  depletionCorrection?: boolean;
 }
 
 export interface BlankWell {
@@ -155,6 +158,7 @@ export function ratesFromReads(reads: readonly KineticReads[], map: PlateMap, op
     .filter((inst) => inst.entry.role !== 'blank')
     .map((inst) => wellRate(inst, blanksByPlate.get(inst.plate) ?? [], conversion, timeUnit, plateTop.get(inst.plate)!, options, rateFrom));
   flagNoisyWells(wells);
+  if (conversion !== null && options.depletionCorrection !== false) notes.push(...correctForDepletion(wells));
   for (const w of wells) w.excludeReason = excludeReasonOf(w);
 
   const excludedReads = reads.flatMap((r) => r.excluded.map((e) => ({ ...e, source: r.source })));
@@ -201,7 +205,7 @@ function wellRate(
   const substrate = entry.substrate;
   const base: WellRate = {
     plate, well: entry.well, compound: entry.compound, substrate, inhibitor: entry.inhibitor, role: entry.role, mapLine: entry.line,
-    rate: null, se: null, method: null, window: null, fractionUsed: null, integrated: null, integratedNote: null,
+    rate: null, se: null, method: null, window: null, fractionUsed: null, integrated: null, integratedNote: null, depletion: null,
     flags, blank: blank.description, times, values, droppedTimes, droppedValues, excludeReason: null,
   };
   if (times.length < MIN_WINDOW_READS) {
@@ -209,7 +213,7 @@ function wellRate(
     return base;
   }
   const hasS = conversion !== null && substrate !== null && substrate > 0;
-  const window = chooseWindow(times, values, hasS ? readsWithinLimit(times, values, substrate!) : times.length);
+  const window = hasS ? windowWithinLimit(times, values, substrate!) : chooseWindow(times, values);
   base.window = window;
   base.rate = window.slope;
   base.se = window.se;
@@ -253,16 +257,23 @@ function wellRate(
 }
 
 /**
- * How many reads from the start stay within SUBSTRATE_USE_LIMIT, judged by the slope of the first
- * MIN_WINDOW_READS reads (product = slope x t over [S]0: the early slope is the steepest, so the cap
- * errs on the safe side); the first read past the limit ends it.
+ * The straight early window kept within SUBSTRATE_USE_LIMIT: the longest straight start is
+ * chosen, and while the substrate used by its end (slope x end time / [S]0) is over the limit, the
+ * window is cut at the last read that the limit allows by that slope and chosen again. The slope
+ * of the longer window is the better determined one, so the cut does not chase noise in the first
+ * few reads. Never shorter than MIN_WINDOW_READS.
  */
-function readsWithinLimit(times: readonly number[], values: readonly number[], substrate: number): number {
-  const start = lineThrough(times, values, MIN_WINDOW_READS);
-  let k = 0;
-  const direction = start.slope < 0 ? -1 : 1;
-  while (k < times.length && roundFraction((direction * start.slope * times[k]) / substrate) <= SUBSTRATE_USE_LIMIT) k++;
-  return k;
+function windowWithinLimit(times: readonly number[], values: readonly number[], substrate: number) {
+  let window = chooseWindow(times, values);
+  for (let step = 0; step < 20; step++) {
+    const slope = Math.abs(window.slope);
+    if (roundFraction((slope * window.to) / substrate) <= SUBSTRATE_USE_LIMIT || window.reads <= MIN_WINDOW_READS) break;
+    let k = 0;
+    while (k < window.reads && roundFraction((slope * times[k]) / substrate) <= SUBSTRATE_USE_LIMIT) k++;
+    k = Math.max(MIN_WINDOW_READS, Math.min(k, window.reads - 1));
+    window = chooseWindow(times, values, k);
+  }
+  return window;
 }
 
 /** Wells whose scatter about their line is above NOISY_FACTOR x the plate's median scatter. */

@@ -2,7 +2,9 @@
  * The rates as a long rate table (CSV) that `analyze` and `batch` read as it is: `compound`,
  * `substrate`, `inhibitor`, `rate`, `sd` (the standard error of the rate, so `--error column`
  * weights by it), `well`, `exclude` (yes for a flagged or excluded well) and `note` (why), then
- * columns that say how each rate was obtained (kept as annotations by the rate-table reader).
+ * columns that say how each rate was obtained (kept as annotations by the rate-table reader):
+ * method, window, substrate used in it (%), blank choice, the depletion factor the window slope
+ * was multiplied by (depletion-correction.ts), and the integrated fit's v0 and Km when run.
  * Map wells without reads are rows too (no rate, excluded, with the reason); blank wells are not
  * rates and are not rows.
  */
@@ -47,6 +49,7 @@ export function rateTableText(result: PlateRates): string {
     ['reads', 'window_reads'],
     ['used', 'substrate_used_pct'],
     ['blank', 'blank'],
+    ['depletion', 'depletion_factor'],
     ...(anyIntegrated
       ? ([
           ['iv0', withUnit('v0_integrated', units.rate)],
@@ -96,6 +99,7 @@ function wellCells(w: WellRate): Record<string, string> {
     cells.to = num(w.window.to);
     cells.reads = String(w.window.reads);
   }
+  if (w.depletion) cells.depletion = w.depletion.note ?? num(w.depletion.factor);
   if (w.fractionUsed !== null) cells.used = num(Number((100 * w.fractionUsed).toPrecision(6)));
   if (w.integrated) {
     cells.iv0 = num(w.integrated.v0);

@@ -21,8 +21,9 @@ export const CURVATURE_TOLERANCE = 0.02;
 export const SUBSTRATE_USE_LIMIT = 0.1;
 
 /** Significance level of the lag and burst tests on the first half of the curve (the project's own
- * choice: stricter than the window test, since a flag leaves the well out). */
-export const SHAPE_P = 0.01;
+ * choice: much stricter than the window test, since a flag leaves the well out and a 384-well
+ * plate holds 384 tests; about 0.4 false flags per plate). */
+export const SHAPE_P = 0.001;
 
 /** A decline of the slope over the first half of the curve counts as a burst when it exceeds this
  * many times the fraction of substrate used there (substrate use alone can lower the rate by at

@@ -119,6 +119,11 @@ export interface WellRate {
   /** reads left out of the curve (saturated), by time */
   droppedTimes: number[];
   droppedValues: number[];
+  /**
+   * the window rate's correction for substrate used in the window (depletion-correction.ts):
+   * rate = line slope x factor; km is the series' Kmapp used; null when not applied
+   */
+  depletion: { factor: number; km: number | null; note: string | null } | null;
   /** why the well has no rate or is left out, when it is */
   excludeReason: string | null;
 }

@@ -6,12 +6,14 @@
  * curvature of the wrong kind for a steady-state initial rate, a hint of slow-binding or
  * time-dependent inhibition (Morrison, J. F. and Walsh, C. T. (1988) Adv. Enzymol. Relat. Areas Mol.
  * Biol. 61, 201-301). Test: a quadratic through the first half of the usable reads (at least
- * MIN_WINDOW_READS), its squared term significant at SHAPE_P. A curve that speeds up is a lag; one
- * whose slope falls by more than BURST_FACTOR times the fraction of substrate used there (and by
- * at least BURST_MIN_DECLINE) is a burst. Substrate use alone lowers the rate of a
+ * MIN_WINDOW_READS). A curve whose squared term is significantly positive (two-sided t test at
+ * SHAPE_P) speeds up: a lag. A burst is a slope that falls by significantly more (one-sided t test
+ * at SHAPE_P on the squared term, against the fall allowed) than BURST_FACTOR times the fraction
+ * of substrate used there, and at least BURST_MIN_DECLINE, relative to the window's slope. Substrate use alone lowers the rate of a
  * Michaelis-Menten enzyme by at most the fraction used (the limit [S] << Km, where v is
  * proportional to [S]).
  */
+import tCdfStdlib from '@stdlib/stats-base-dists-t-cdf';
 import { quadraticFit } from './conversion.js';
 import { formatNumber } from '../input/messages.js';
 import { BURST_FACTOR, BURST_MIN_DECLINE, MIN_WINDOW_READS, SATURATION_RUN, SHAPE_P } from './thresholds.js';
@@ -40,21 +42,24 @@ export function shapeFlags(
   const n = Math.max(MIN_WINDOW_READS, Math.ceil(times.length / 2));
   if (times.length < n || slope === 0) return [];
   const q = quadraticFit(times, values, n);
-  if (!(q.p < SHAPE_P)) return [];
   const direction = Math.sign(slope);
-  const startSlope = q.slopeAt(times[0]) * direction;
-  const endSlope = q.slopeAt(times[n - 1]) * direction;
   const span = `${formatNumber(times[0])}-${formatNumber(times[n - 1])} ${timeUnit}`;
-  if (q.c * direction > 0) {
+  if (q.p < SHAPE_P && q.c * direction > 0) {
     return [{ code: 'lag', message: `lag: the rate rises over ${span} (curvature p = ${formatNumber(q.p)}), a hint of slow-binding or time-dependent inhibition, or an assay that is not at steady state` }];
   }
-  if (substrate === null || !(substrate > 0) || !(startSlope > 0)) return [];
-  const decline = 1 - endSlope / startSlope;
+  if (substrate === null || !(substrate > 0) || !(q.seC > 0)) return [];
+  const span0 = times[n - 1] - times[0];
+  const s0 = Math.abs(slope);
+  const decline = (-2 * q.c * direction * span0) / s0;
   const used = Math.max(0, (values[n - 1] - intercept) * direction) / substrate;
-  if (decline > Math.max(BURST_MIN_DECLINE, BURST_FACTOR * used)) {
+  const allowed = Math.max(BURST_MIN_DECLINE, BURST_FACTOR * used);
+  // H0: the decline is at most `allowed`, i.e. c * direction >= -allowed s0 / (2 span)
+  const t = (q.c * direction + (allowed * s0) / (2 * span0)) / q.seC;
+  const p = tCdfStdlib(t, n - 3);
+  if (p < SHAPE_P) {
     return [{
       code: 'burst',
-      message: `burst: the rate falls by ${formatNumber(100 * decline)}% over ${span} while only ${formatNumber(100 * used)}% of the substrate is used (curvature p = ${formatNumber(q.p)}), a hint of slow-binding or time-dependent inhibition`,
+      message: `burst: the rate falls by ${formatNumber(100 * decline)}% over ${span} while only ${formatNumber(100 * used)}% of the substrate is used (p = ${formatNumber(p)} against a fall of ${formatNumber(100 * allowed)}%), a hint of slow-binding or time-dependent inhibition`,
     }];
   }
   return [];
