@@ -99,3 +99,14 @@ describe('analyze and batch with --reads --plate-map', () => {
     expect(readFileSync(join(dir, 'out', 'rates-from-reads.csv'), 'utf8')).toMatch(/^well,compound,substrate \(uM\)/);
   });
 });
+
+describe('mechanist rates --report', () => {
+  it('writes DIR/reads.html with one panel per well that has reads', async () => {
+    const r = await run(['rates', 'reads.csv', '--plate-map', 'map.csv', '--conversion', '6.22/mM', '--report', 'page', '--out', 'r2.csv'], dir);
+    expect(r.code).toBe(0);
+    expect(r.err).toContain('page page/reads.html');
+    const html = readFileSync(join(dir, 'page', 'reads.html'), 'utf8');
+    expect(html.match(/<svg /g)!.length).toBe(80);
+    expect(html).toContain('plate-map well P24 (line 98) has no reads');
+  });
+});
