@@ -70,7 +70,7 @@ export function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: C
     const shown = typeof value === 'boolean' ? (value !== option.negate ? 'given' : 'not given') : String(value);
     options[option.long ?? option.flags] = `${shown}${source === 'default' ? ' (default)' : ''}`;
   }
-  return { ...(bytes ? { inputSha256: sha256Hex(bytes) } : {}), command: `mechanist analyze ${file}`, options };
+  return { ...(bytes ? { inputSha256: sha256Hex(bytes) } : {}), command: file ? `mechanist analyze ${file}` : 'mechanist analyze', options };
 }
 
 export function analyzeCommand(io: CliIo): Command {
@@ -94,7 +94,8 @@ export function analyzeCommand(io: CliIo): Command {
       for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
       io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);
       file = `rates from ${o.reads.join(', ')}`;
-      input = { tables: parseRateText(run.text, { ...parse, source: file }), bytes: new TextEncoder().encode(run.text) };
+      // no input hash: the table is made here, from several files (each named in the options)
+      input = { tables: parseRateText(run.text, { ...parse, source: file }), bytes: null };
     } else {
       if (fileArgument === undefined) throw new UsageError('analyze needs a rate table FILE, or --reads READS --plate-map MAP');
       if (o.plateMap !== undefined) throw new UsageError('option --plate-map: only used with --reads');
@@ -104,7 +105,7 @@ export function analyzeCommand(io: CliIo): Command {
     const tables = chooseTables(input.tables, o.compound, file);
     const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
     if (o.out) {
-      const provenance = analyzeProvenance(input.bytes, file, cmd);
+      const provenance = analyzeProvenance(input.bytes, o.reads !== undefined ? '' : file, cmd);
       for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1), provenance);
     }
     if (o.json) {
