@@ -48,3 +48,39 @@ export { OutputError, type OutputStage } from './report/output-error.js';
 export { checkOutputFolder } from './report/output-folder.js';
 export { writeFileAtomic, writeFilesAtomic, writeFolderAtomic } from './report/write-atomic.js';
 export { InterruptedError, RUN_LOCK_FILE } from './batch/index.js';
+// the reads stage: kinetic plate reads and a plate map to a rate table (issue 12)
+export {
+  parseKineticReads,
+  readKineticReadsFile,
+  parsePlateMap,
+  readPlateMapFile,
+  parseConversionFactor,
+  conversionIn,
+  fitStandardCurve,
+  readStandardCurve,
+  standardCurveConversion,
+  ratesFromReads,
+  rateTableText,
+  correctForDepletion,
+  chordFactor,
+  lambertW,
+  wrightOmega,
+  productFormed,
+  substrateLeft,
+  fitIntegratedCurve,
+  readThresholds,
+  type KineticReads,
+  type PlateMap,
+  type MapEntry,
+  type WellRate,
+  type WellFlag,
+  type FlagCode,
+  type RateWindow,
+  type Conversion,
+  type PlateRates,
+  type RatesOptions,
+  type IntegratedFit,
+  type StandardCurveFit,
+} from './reads/index.js';
+export { simulatePlate, apparentConstants, type PlateDesign, type SimulatedPlate } from './simulate/simulate-plate.js';
+export { readsReportHtml } from './report/html/reads-page.js';

@@ -36,8 +36,10 @@ function noteLargeFile(path: string, file: string, io: CliIo): void {
     // the reader words the error
   }
 }
+import { addReadsOptions, readsSummaryLine, runReads, type ReadsCliOptions } from '../reads-input.js';
 
-interface AnalyzeCliOptions extends SharedCliOptions {
+interface AnalyzeCliOptions extends SharedCliOptions, ReadsCliOptions {
+  reads?: string[];
   json?: boolean;
   out?: string;
   compound?: string;
@@ -115,26 +117,43 @@ export function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: C
     const shown = typeof value === 'boolean' ? (value !== option.negate ? 'given' : 'not given') : String(value);
     options[option.long ?? option.flags] = `${shown}${source === 'default' ? ' (default)' : ''}`;
   }
-  return { ...(bytes ? { inputSha256: sha256Hex(bytes) } : {}), command: `mechanist analyze ${file}`, options };
+  return { ...(bytes ? { inputSha256: sha256Hex(bytes) } : {}), command: file ? `mechanist analyze ${file}` : 'mechanist analyze', options };
 }
 
 export function analyzeCommand(io: CliIo): Command {
   const cmd = new Command('analyze')
     .description('fit the five mechanisms to one rate table and rank them')
-    .argument('<file>', 'CSV or TSV rate table')
+    .argument('[file]', 'CSV or TSV rate table (or give --reads and --plate-map)')
+    .option('--reads <files...>', 'kinetic plate reads instead of a rate table: initial rates are found first, as `mechanist rates` does')
     .option('--json', 'print one JSON document instead of the text summary')
     .option('--out <dir>', 'write results.json, parameters.csv and summary.txt into this folder')
     .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)');
   addSharedOptions(cmd);
-  cmd.action(async (file: string, o: AnalyzeCliOptions) => {
+  addReadsOptions(cmd, false);
+  cmd.action(async (fileArgument: string | undefined, o: AnalyzeCliOptions) => {
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
-    const path = resolve(io.cwd, file);
     const out = o.out ? resolve(io.cwd, o.out) : null;
-    // an output folder that cannot take the results is found before the file is even read
+    // an output folder that cannot take the results is found before any input is even read
     if (out !== null) checkOutputFolder(out, o.out);
-    if (io.errIsTTY) noteLargeFile(path, file, io);
-    const input = await readInputOnce(path, parse);
+    let input: { tables: RateTable[]; bytes: Uint8Array | null };
+    let file: string;
+    if (o.reads !== undefined) {
+      if (fileArgument !== undefined) throw new UsageError('give a rate table or --reads, not both');
+      const run = await runReads(o.reads, o, io.cwd);
+      for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
+      io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);
+      file = `rates from ${o.reads.join(', ')}`;
+      // no input hash: the table is made here, from several files (each named in the options)
+      input = { tables: parseRateText(run.text, { ...parse, source: file }), bytes: null };
+    } else {
+      if (fileArgument === undefined) throw new UsageError('analyze needs a rate table FILE, or --reads READS --plate-map MAP');
+      if (o.plateMap !== undefined) throw new UsageError('option --plate-map: only used with --reads');
+      file = fileArgument;
+      const path = resolve(io.cwd, file);
+      if (io.errIsTTY) noteLargeFile(path, file, io);
+      input = await readInputOnce(path, parse);
+    }
     const tables = chooseTables(input.tables, o.compound, file);
     const folders = out !== null ? outputFoldersFor(out, tables) : [];
     if (out !== null) prepareReportFolders(out, o.out ?? out, folders);
@@ -144,7 +163,7 @@ export function analyzeCommand(io: CliIo): Command {
       return analyzeTable({ ...t, source: file }, analysis);
     });
     if (out !== null) {
-      const provenance = analyzeProvenance(input.bytes, file, cmd);
+      const provenance = analyzeProvenance(input.bytes, o.reads !== undefined ? '' : file, cmd);
       results.forEach((r, k) => writeResultFiles(r, folders[k], provenance));
     }
     if (o.json) {

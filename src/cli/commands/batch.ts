@@ -13,8 +13,16 @@ import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCli
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption } from '../parse-option-values.js';
+import { addReadsOptions, readsSummaryLine, runReads, type ReadsCliOptions } from '../reads-input.js';
+import { writeFileAtomic } from '../../report/write-atomic.js';
+import { join, resolve } from 'node:path';
+import { UsageError } from '../exit-codes.js';
 
-interface BatchCliOptions extends SharedCliOptions {
+/** The rate table made from --reads goes into the output folder under this name. */
+export const READS_RATE_TABLE = 'rates-from-reads.csv';
+
+interface BatchCliOptions extends SharedCliOptions, ReadsCliOptions {
+  reads?: string[];
   out: string;
   reports?: boolean;
   jobs?: string;
@@ -29,13 +37,27 @@ export interface BatchOutcome {
 export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
   const cmd = new Command('batch')
     .description('analyse many compounds (files, folders, multi-compound files) and write one summary table')
-    .argument('<inputs...>', 'rate-table files, folders of them (.csv, .tsv, .txt), or files with a compound column')
+    .argument('[inputs...]', 'rate-table files, folders of them (.csv, .tsv, .txt), or files with a compound column')
+    .option('--reads <files...>', `kinetic plate reads: their rates are written to <dir>/${'rates-from-reads.csv'} and analysed with the inputs`)
     .requiredOption('--out <dir>', 'output folder: summary.csv, summary.json, index.html (and compounds/ with --reports)')
     .option('--reports', "also write each compound's full report under <dir>/compounds/<compound>/")
     .option('--jobs <n>', `worker threads (default: the number of cores, here ${availableParallelism()})`)
     .option('--quiet', 'no progress bar and no notes on stderr');
   addSharedOptions(cmd);
-  cmd.action(async (inputs: string[], o: BatchCliOptions) => {
+  addReadsOptions(cmd, false);
+  cmd.action(async (given: string[], o: BatchCliOptions) => {
+    const inputs = [...given];
+    if (o.reads !== undefined) {
+      const run = await runReads(o.reads, o, io.cwd);
+      if (!o.quiet) for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
+      if (!o.quiet) io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);
+      const table = join(o.out, READS_RATE_TABLE);
+      writeFileAtomic(resolve(io.cwd, table), run.text);
+      inputs.push(table);
+    } else if (o.plateMap !== undefined) {
+      throw new UsageError('option --plate-map: only used with --reads');
+    }
+    if (inputs.length === 0) throw new UsageError('batch needs at least one input, or --reads READS --plate-map MAP');
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
