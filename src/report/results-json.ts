@@ -142,6 +142,16 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       headline: result.verdict.headline,
       reasons: result.verdict.reasons,
       suggestions: result.verdict.suggestions,
+      ...(result.verdict.exclusion
+        ? {
+            exclusion: {
+              component: result.verdict.exclusion.component,
+              excluded: result.verdict.exclusion.excluded,
+              tests: result.verdict.exclusion.tests.map((t) => ({ claim: t.claim, bound: jsonNumber(t.bound), tau: jsonNumber(t.tau), p: jsonNumber(t.p), excluded: t.excluded })),
+            },
+          }
+        : {}),
+      caveats: result.verdict.caveats ?? [],
     },
     diagnostics: diagnosticsJson(result),
   };
