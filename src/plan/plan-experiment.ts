@@ -1,0 +1,137 @@
+/**
+ * `planExperiment`: the whole plan. Search the candidate designs by expected Fisher information
+ * (design-search.ts), then check the two best recommendable grids, the common grid and the
+ * single-[I] design by Monte Carlo through the analysis (monte-carlo.ts); the better of the two
+ * grids by that check (mean over the mechanisms of decisive-correct minus decisive-wrong shares)
+ * is the recommendation. Without simulation the best grid by the information criteria is.
+ */
+import type { ConcentrationUnit } from '../input/types.js';
+import type { Mechanism } from '../models/types.js';
+import type { Design, DesignPoint } from './design-types.js';
+import { wellCount } from './design-types.js';
+import { searchDesigns, type MechanismExpectation, type PlanSettings, type ScoredDesign } from './design-search.js';
+import { monteCarloAnalysisOptions, monteCarloPrediction, type MechanismPrediction } from './monte-carlo.js';
+import { budgetUnits } from './candidate-designs.js';
+
+export interface PlanRequest extends PlanSettings {
+  units: { substrate: ConcentrationUnit; inhibitor: ConcentrationUnit };
+  /** simulations per design and true mechanism; 0 for an information-only plan */
+  simulations: number;
+  seed: number;
+  /** [E] when known: accepted and recorded, not yet used (tight binding is not modelled here) */
+  enzyme?: number;
+  /** progress of the Monte Carlo check: analyses done of total */
+  onProgress?: (done: number, total: number) => void;
+}
+
+export type CandidateRole = 'recommended' | 'runner-up' | 'common-grid' | 'single-inhibitor' | 'ds-optimum';
+
+export interface PlanCandidate {
+  name: string;
+  role: CandidateRole;
+  description: string;
+  wellCount: number;
+  points: DesignPoint[];
+  /** from the expected information (averaged over the prior points) */
+  expected: Partial<Record<Mechanism, MechanismExpectation>>;
+  firmCallChance: number;
+  meanLogDs: number;
+  smallestRateShare: number;
+  /** from the Monte Carlo check; null when not simulated */
+  predicted: Partial<Record<Mechanism, MechanismPrediction>> | null;
+}
+
+export interface PlanResult {
+  request: Omit<PlanRequest, 'onProgress'>;
+  recommended: PlanCandidate;
+  candidates: PlanCandidate[];
+  gridsScreened: number;
+  /** the options of every simulated analysis, when simulated */
+  analysisOptions: Record<string, unknown> | null;
+  /** the assumptions the plan rests on, in plain words */
+  assumptions: string[];
+  notes: string[];
+}
+
+function candidate(s: ScoredDesign, role: CandidateRole): PlanCandidate {
+  return {
+    name: role === 'recommended' || role === 'runner-up' ? role : s.design.name,
+    role,
+    description: s.design.description,
+    wellCount: wellCount(s.design),
+    points: s.design.points,
+    expected: s.expected,
+    firmCallChance: s.firmCallChance,
+    meanLogDs: s.meanLogDs,
+    smallestRateShare: s.smallestRateShare,
+    predicted: null,
+  };
+}
+
+/** Mean over mechanisms of decisive-correct minus decisive-wrong (the Monte Carlo ranking). */
+export function monteCarloScore(predicted: Partial<Record<Mechanism, MechanismPrediction>>): number {
+  const xs = Object.values(predicted).map((p) => p!.decisiveCorrect - p!.decisiveWrong);
+  return xs.reduce((s, x) => s + x, 0) / Math.max(1, xs.length);
+}
+
+export function planExperiment(request: PlanRequest): PlanResult {
+  const c = request.constraints;
+  if (c.wells > c.plate) throw new Error(`${c.wells} wells do not fit a ${c.plate}-well plate`);
+  if (budgetUnits(c) < 6) throw new Error(`${c.wells} wells at ${c.replicates} replicates leave fewer than 6 design points; the mixed model needs more`);
+  const search = searchDesigns(request);
+  const top = search.recommendable.slice(0, 2);
+  const checked: Array<{ s: ScoredDesign; predicted: PlanCandidate['predicted'] }> = [...top, search.common, search.singleInhibitor].map((s) => ({ s, predicted: null }));
+  const notes: string[] = [];
+  if (request.simulations > 0) {
+    const total = checked.length * request.mechanisms.length * request.simulations;
+    let done = 0;
+    for (const entry of checked) {
+      const predicted: Partial<Record<Mechanism, MechanismPrediction>> = {};
+      for (const mech of request.mechanisms)
+        predicted[mech] = monteCarloPrediction(entry.s.design, mech, request.prior, request.noise, {
+          simulations: request.simulations,
+          seed: request.seed,
+          units: request.units,
+          onAnalysis: () => request.onProgress?.(++done, total),
+        });
+      entry.predicted = predicted;
+    }
+  }
+  const grids = checked.slice(0, top.length);
+  const bestIndex =
+    request.simulations > 0 && grids.length > 1 && monteCarloScore(grids[1].predicted!) > monteCarloScore(grids[0].predicted!) ? 1 : 0;
+  const out: PlanCandidate[] = [];
+  grids.forEach((g, k) => out.push({ ...candidate(g.s, k === bestIndex ? 'recommended' : 'runner-up'), predicted: g.predicted }));
+  out.sort((a, b) => (a.role === 'recommended' ? -1 : b.role === 'recommended' ? 1 : 0));
+  out.push({ ...candidate(search.common, 'common-grid'), predicted: checked[top.length].predicted });
+  out.push({ ...candidate(search.singleInhibitor, 'single-inhibitor'), predicted: checked[top.length + 1].predicted });
+  if (search.dsOptimum) out.push(candidate(search.dsOptimum, 'ds-optimum'));
+  notes.push(
+    `the smallest expected rate in the recommended design is ${(100 * out[0].smallestRateShare).toPrecision(2)}% of Vmax (over the prior range): the ${request.noise.model} noise model is assumed to hold down to it; if the assay has a noise floor there, plan with constant noise or a lower --max-inhibitor`,
+  );
+  if (request.enzyme !== undefined)
+    notes.push('[E] was given but is not yet used: the plan assumes [E] well below Ki (no tight-binding model in the plan)');
+  const { onProgress: _ignored, ...plain } = request;
+  return {
+    request: plain,
+    recommended: out[0],
+    candidates: out,
+    gridsScreened: search.gridsScreened,
+    analysisOptions: request.simulations > 0 ? { ...monteCarloAnalysisOptions(request.noise) } : null,
+    assumptions: planAssumptions(request),
+    notes,
+  };
+}
+
+export function planAssumptions(r: PlanRequest): string[] {
+  const noise = r.noise.model === 'constant' ? `constant noise, SD ${r.noise.level} (rate units, Vmax ${r.prior.vmax})` : `proportional noise, CV ${r.noise.level}`;
+  return [
+    `the models and cautions of the analysis hold (initial rates, reversible binding at equilibrium, [E] well below Ki, no time-dependent inhibition, aggregation or optical interference)`,
+    `the noise is ${noise}, independent between wells, with no plate or edge effects`,
+    `the constants lie in the stated ranges; the predictions are averages over those ranges (mixed inhibitors at alpha 0.25 and 4)`,
+    `the mechanisms in play are ${r.mechanisms.join(', ')}`,
+    `predicted shares are from ${r.simulations > 0 ? `${r.simulations} simulations per design and mechanism` : 'no simulation (information only)'}; they are estimates with their own sampling error`,
+  ];
+}
+
+export type { Design };
