@@ -1,0 +1,78 @@
+/** `mechanist plan` on the command line: JSON contract, files, usage errors with exit code 2. */
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../../src/cli/run-cli.js';
+import type { CliIo } from '../../src/cli/io.js';
+
+async function run(args: string[], cwd = process.cwd()) {
+  const io: CliIo & { stdout: string; stderr: string } = {
+    stdout: '',
+    stderr: '',
+    errIsTTY: false,
+    cwd,
+    out(t) {
+      io.stdout += t;
+    },
+    err(t) {
+      io.stderr += t;
+    },
+  };
+  const code = await runCli(args, io);
+  return { code, out: io.stdout, err: io.stderr };
+}
+
+const BASE = ['plan', '--km', '10uM..40uM', '--ki', '50nM..500nM', '--max-substrate', '400uM', '--max-inhibitor', '5uM', '--wells', '48', '--mechanisms', 'competitive,mixed'];
+
+describe('mechanist plan', () => {
+  it('--json --no-simulate: one document, units from the options, the recommended wells add up to the budget', async () => {
+    const r = await run([...BASE, '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    expect(r.err).toBe('');
+    const doc = JSON.parse(r.out);
+    expect(doc.recommended.units).toEqual({ substrate: 'uM', inhibitor: 'nM' });
+    expect(doc.recommended.wells.reduce((s: number, w: { replicates: number }) => s + w.replicates, 0)).toBe(48);
+    expect(Math.max(...doc.recommended.wells.map((w: { inhibitor: number }) => w.inhibitor))).toBeLessThanOrEqual(5000);
+    expect(doc.candidates.map((c: { name: string }) => c.name)).toEqual(expect.arrayContaining(['recommended', 'common-grid', 'single-inhibitor']));
+    expect(doc.settings.simulations).toBe(0);
+  });
+  it('--out writes plan.json, summary.txt and the plate map; --plate-map writes the CSV alone', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-'));
+    const r = await run([...BASE, '--simulations', '2', '--out', join(dir, 'out'), '--plate-map', join(dir, 'map.csv'), '--enzyme', '5nM']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/^Plan for 48 wells/);
+    expect(r.out).toMatch(/\[E\] was given but is not yet used/);
+    for (const f of ['plan.json', 'summary.txt', 'plate-map.csv']) expect(existsSync(join(dir, 'out', f))).toBe(true);
+    const csv = readFileSync(join(dir, 'map.csv'), 'utf8').trim().split('\n');
+    expect(csv[0]).toBe('well,substrate (uM),inhibitor (nM),replicate');
+    expect(csv).toHaveLength(49);
+    expect(csv[1]).toMatch(/^A1,/);
+    const doc = JSON.parse(readFileSync(join(dir, 'out', 'plan.json'), 'utf8'));
+    expect(doc.candidates[0].predicted.mixed.simulations).toBe(2);
+    expect(doc.settings.enzyme).toBe(5);
+  });
+  it('an IC50 with its [S] is accepted', async () => {
+    const r = await run(['plan', '--km', '20uM', '--ic50', '80nM', '--at-substrate', '20uM', '--no-simulate', '--wells', '48', '--json']);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).settings.prior.atSubstrate).toBe(20);
+  });
+  for (const [args, message] of [
+    [['plan', '--ki', '50nM'], /--km is required/],
+    [['plan', '--km', '20uM'], /give --ki/],
+    [['plan', '--km', '20', '--ki', '50nM'], /option --km: "20" is not a concentration/],
+    [['plan', '--km', '20uM', '--ic50', '80nM'], /--at-substrate/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--noise', 'gaussian'], /option --noise/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--noise', 'constant:0.5'], /--vmax/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--wells', '200'], /do not fit a 96-well plate/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--mechanisms', 'competitive,allosteric'], /"allosteric"/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--dilution', 'serial:1'], /option --dilution/],
+  ] as const)
+    it(`usage error: ${args.slice(1).join(' ')}`, async () => {
+      const r = await run([...args]);
+      expect(r.code).toBe(2);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+      expect(r.err).toMatch(message);
+      expect(r.out).toBe('');
+    });
+});
