@@ -42,3 +42,4 @@ export {
   type ConstantSummary,
   type IntervalKind,
 } from './batch/index.js';
+export * from './plan/index.js';

@@ -1,9 +1,10 @@
 /**
  * `planExperiment`: the whole plan. Search the candidate designs by expected Fisher information
  * (design-search.ts), then check the two best recommendable grids, the common grid and the
- * single-[I] design by Monte Carlo through the analysis (monte-carlo.ts); the better of the two
- * grids by that check (mean over the mechanisms of decisive-correct minus decisive-wrong shares)
- * is the recommendation. Without simulation the best grid by the information criteria is.
+ * single-[I] design by Monte Carlo through the analysis (monte-carlo.ts); the best of the two
+ * grids and the common grid by that check (mean over the mechanisms of decisive-correct minus
+ * decisive-wrong shares) is the recommendation. Without simulation the best grid by the
+ * information criteria is.
  */
 import type { ConcentrationUnit } from '../input/types.js';
 import type { Mechanism } from '../models/types.js';
@@ -53,9 +54,9 @@ export interface PlanResult {
   notes: string[];
 }
 
-function candidate(s: ScoredDesign, role: CandidateRole): PlanCandidate {
+function candidate(s: ScoredDesign, role: CandidateRole, name?: string): PlanCandidate {
   return {
-    name: role === 'recommended' || role === 'runner-up' ? role : s.design.name,
+    name: name ?? (role === 'recommended' ? role : s.design.name),
     role,
     description: s.design.description,
     wellCount: wellCount(s.design),
@@ -97,12 +98,21 @@ export function planExperiment(request: PlanRequest): PlanResult {
       entry.predicted = predicted;
     }
   }
-  const grids = checked.slice(0, top.length);
-  const bestIndex =
-    request.simulations > 0 && grids.length > 1 && monteCarloScore(grids[1].predicted!) > monteCarloScore(grids[0].predicted!) ? 1 : 0;
+  // the recommendation: the best by the Monte Carlo check among the two grids and the common grid
+  // (ties keep the earlier, i.e. the better by information); without simulation the best grid
+  const contenders = request.simulations > 0 ? [...checked.slice(0, top.length), checked[top.length]] : checked.slice(0, 1);
+  let bestIndex = 0;
+  contenders.forEach((entry, k) => {
+    if (monteCarloScore(entry.predicted ?? {}) > monteCarloScore(contenders[bestIndex].predicted ?? {})) bestIndex = k;
+  });
   const out: PlanCandidate[] = [];
-  grids.forEach((g, k) => out.push({ ...candidate(g.s, k === bestIndex ? 'recommended' : 'runner-up'), predicted: g.predicted }));
-  out.sort((a, b) => (a.role === 'recommended' ? -1 : b.role === 'recommended' ? 1 : 0));
+  const best = contenders[bestIndex];
+  out.push({ ...candidate(best.s, 'recommended'), predicted: best.predicted });
+  if (best.s === search.common) notes.push('the common grid did at least as well as the searched grids in the Monte Carlo check, so it is the recommendation');
+  checked
+    .slice(0, top.length)
+    .filter((g) => g !== best)
+    .forEach((g, k) => out.push({ ...candidate(g.s, 'runner-up', k === 0 ? 'runner-up' : `runner-up-${k + 1}`), predicted: g.predicted }));
   out.push({ ...candidate(search.common, 'common-grid'), predicted: checked[top.length].predicted });
   out.push({ ...candidate(search.singleInhibitor, 'single-inhibitor'), predicted: checked[top.length + 1].predicted });
   if (search.dsOptimum) out.push(candidate(search.dsOptimum, 'ds-optimum'));
