@@ -35,6 +35,13 @@ export interface PlanSettings {
   mechanisms: Mechanism[];
   noise: PlanNoise;
   constraints: PlanConstraints;
+  /** wells already measured (a follow-up plan): part of every design's information and simulations */
+  fixedPoints?: DesignPoint[];
+}
+
+/** The design's points with the wells already measured. */
+export function withMeasured(points: readonly DesignPoint[], settings: PlanSettings): DesignPoint[] {
+  return settings.fixedPoints && settings.fixedPoints.length > 0 ? [...settings.fixedPoints, ...points] : [...points];
 }
 
 export interface MechanismExpectation {
@@ -93,6 +100,7 @@ export function meanLogDs(points: readonly DesignPoint[], terms: readonly Criter
 
 /** Expected fold widths and firm-call chances per mechanism, and the overall scores. */
 export function scoreDesign(design: Design, settings: PlanSettings, terms: readonly CriterionTerm[]): ScoredDesign {
+  const all = withMeasured(design.points, settings);
   const expected: Partial<Record<Mechanism, MechanismExpectation>> = {};
   const chances: number[] = [];
   for (const mech of settings.mechanisms) {
@@ -101,11 +109,11 @@ export function scoreDesign(design: Design, settings: PlanSettings, terms: reado
     const logFold: Record<'Ki' | 'Kiu', number[]> = { Ki: [], Kiu: [] };
     let chance = 0;
     for (const pt of pts) {
-      const se = expectedLogStandardErrors(fisherInformation(model, paramsAt(model, pt), design.points, settings.noise), model.params.length);
+      const se = expectedLogStandardErrors(fisherInformation(model, paramsAt(model, pt), all, settings.noise), model.params.length);
       model.params.forEach((name, k) => {
         if (name === 'Ki' || name === 'Kiu') logFold[name].push(Math.log(foldWidth(se[k])));
       });
-      if (mech !== 'none') chance += chanceOfFirmCall(pt, settings.mechanisms, design.points, settings.noise);
+      if (mech !== 'none') chance += chanceOfFirmCall(pt, settings.mechanisms, all, settings.noise);
     }
     const gm = (xs: number[]) => (xs.length === 0 ? null : Math.exp(xs.reduce((s, x) => s + x, 0) / xs.length));
     const firm = mech === 'none' ? null : chance / pts.length;
@@ -116,7 +124,7 @@ export function scoreDesign(design: Design, settings: PlanSettings, terms: reado
     design,
     smallestRateShare: smallestRateShare(design.points, settings),
     firmCallChance: chances.length ? chances.reduce((s, x) => s + x, 0) / chances.length : 0,
-    meanLogDs: meanLogDs(design.points, terms, settings.noise),
+    meanLogDs: meanLogDs(all, terms, settings.noise),
     expected,
   };
 }
@@ -255,7 +263,7 @@ export function searchDesigns(settings: PlanSettings): SearchResult {
   const screened = grids
     .map((g) => ({ g, pts: uniformDesign(g, settings, terms) }))
     .filter((x): x is { g: GridSpec; pts: DesignPoint[] } => x.pts !== null)
-    .map((x) => ({ ...x, ds: meanLogDs(x.pts, terms, settings.noise) }))
+    .map((x) => ({ ...x, ds: meanLogDs(withMeasured(x.pts, settings), terms, settings.noise) }))
     .filter((x) => Number.isFinite(x.ds))
     .sort((a, b) => b.ds - a.ds)
     .slice(0, SCREENED_GRIDS);

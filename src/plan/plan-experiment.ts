@@ -10,7 +10,7 @@ import type { ConcentrationUnit } from '../input/types.js';
 import type { Mechanism } from '../models/types.js';
 import type { Design, DesignPoint } from './design-types.js';
 import { wellCount } from './design-types.js';
-import { searchDesigns, type MechanismExpectation, type PlanSettings, type ScoredDesign } from './design-search.js';
+import { searchDesigns, withMeasured, type MechanismExpectation, type PlanSettings, type ScoredDesign } from './design-search.js';
 import { monteCarloAnalysisOptions, monteCarloPrediction, type MechanismPrediction } from './monte-carlo.js';
 import { budgetUnits } from './candidate-designs.js';
 
@@ -21,6 +21,8 @@ export interface PlanRequest extends PlanSettings {
   seed: number;
   /** [E] when known: accepted and recorded, not yet used (tight binding is not modelled here) */
   enzyme?: number;
+  /** notes carried into the result (e.g. where a follow-up's prior came from) */
+  notes?: string[];
   /** progress of the Monte Carlo check: analyses done of total */
   onProgress?: (done: number, total: number) => void;
 }
@@ -82,14 +84,14 @@ export function planExperiment(request: PlanRequest): PlanResult {
   const search = searchDesigns(request);
   const top = search.recommendable.slice(0, 2);
   const checked: Array<{ s: ScoredDesign; predicted: PlanCandidate['predicted'] }> = [...top, search.common, search.singleInhibitor].map((s) => ({ s, predicted: null }));
-  const notes: string[] = [];
+  const notes: string[] = [...(request.notes ?? [])];
   if (request.simulations > 0) {
     const total = checked.length * request.mechanisms.length * request.simulations;
     let done = 0;
     for (const entry of checked) {
       const predicted: Partial<Record<Mechanism, MechanismPrediction>> = {};
       for (const mech of request.mechanisms)
-        predicted[mech] = monteCarloPrediction(entry.s.design, mech, request.prior, request.noise, {
+        predicted[mech] = monteCarloPrediction({ ...entry.s.design, points: withMeasured(entry.s.design.points, request) }, mech, request.prior, request.noise, {
           simulations: request.simulations,
           seed: request.seed,
           units: request.units,
@@ -121,7 +123,7 @@ export function planExperiment(request: PlanRequest): PlanResult {
   );
   if (request.enzyme !== undefined)
     notes.push('[E] was given but is not yet used: the plan assumes [E] well below Ki (no tight-binding model in the plan)');
-  const { onProgress: _ignored, ...plain } = request;
+  const { onProgress: _ignored, notes: _notes, ...plain } = request;
   return {
     request: plain,
     recommended: out[0],

@@ -67,6 +67,7 @@ export function planJson(plan: PlanResult) {
       noise: r.noise,
       constraints: { ...r.constraints, maxInhibitor: finite(r.constraints.maxInhibitor) },
       enzyme: r.enzyme ?? null,
+      measuredWells: (r.fixedPoints ?? []).reduce((t, p) => t + p.replicates, 0),
       simulations: r.simulations,
       seed: r.seed,
       analysisOptions: plan.analysisOptions,

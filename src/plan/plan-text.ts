@@ -46,6 +46,8 @@ export function planText(plan: PlanResult): string {
   const lines: string[] = [];
   lines.push(`Plan for ${r.constraints.wells} wells (${r.constraints.replicates} replicates per point, ${r.constraints.plate}-well plate); mechanisms in play: ${r.mechanisms.join(', ')}`);
   lines.push(`Concentrations: substrate in ${units.substrate}, inhibitor in ${units.inhibitor}`);
+  const measured = (r.fixedPoints ?? []).reduce((t, p) => t + p.replicates, 0);
+  if (measured > 0) lines.push(`Follow-up: the ${r.constraints.wells} wells are added to the ${measured} already measured; the tables below list the added wells only, the predictions cover both`);
   lines.push('');
   lines.push(`Recommended design (${plan.recommended.wellCount} wells, ${plan.recommended.points.length} distinct points): ${plan.recommended.description}`);
   lines.push('  wells per ([S], [I]):');

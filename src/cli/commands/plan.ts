@@ -17,6 +17,11 @@ import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption, numberList, numberOption, positiveNumber } from '../parse-option-values.js';
 import { progressBar } from '../progress-bar.js';
+import { readFile } from 'node:fs/promises';
+import { readRateFile } from '../../input/index.js';
+import { analyzeTable } from '../../analysis/analyze-table.js';
+import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
+import { chooseTables } from './analyze.js';
 
 /** Default simulations per design and true mechanism. */
 export const DEFAULT_PLAN_SIMULATIONS = 50;
@@ -27,8 +32,11 @@ interface PlanCliOptions {
   ic50?: string;
   atSubstrate?: string;
   mechanisms?: string;
-  noise: string;
+  noise?: string;
   vmax?: string;
+  from?: string;
+  error: string;
+  compound?: string;
   wells: string;
   replicates: string;
   plate: string;
@@ -91,8 +99,39 @@ function dilutionOption(o: PlanCliOptions): DilutionScheme {
   return { kind: 'serial', fold: numberOption('--dilution', m[1], (x) => x > 1, 'a fold above 1') };
 }
 
-/** Builds the library request from the options (exported for tests). */
-export function planRequestFrom(o: PlanCliOptions): PlanRequest {
+/** Reads --from: a rate table (analysed as `analyze` would, with --error) or the JSON of an analysis. */
+export async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBasis> {
+  const path = resolve(cwd, o.from!);
+  const bad = (e: unknown): never => {
+    throw new UsageError(`option --from: ${e instanceof Error ? e.message : String(e)}`);
+  };
+  if (/\.json$/i.test(path)) {
+    let doc;
+    try {
+      doc = JSON.parse(await readFile(path, 'utf8'));
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code) throw e;
+      return bad(new Error(`${o.from}: not valid JSON (${(e as Error).message})`));
+    }
+    try {
+      return followUpBasis(summaryFromJson(doc, o.from!));
+    } catch (e) {
+      return bad(e);
+    }
+  }
+  if (o.error !== 'constant' && o.error !== 'proportional') throw new UsageError(`option --error: "${o.error}" is not constant or proportional`);
+  const [table] = chooseTables(await readRateFile(path), o.compound, o.from!);
+  const result = analyzeTable(table, { errorModel: o.error, detail: 'summary' });
+  try {
+    return followUpBasis(summaryFromResult(result));
+  } catch (e) {
+    return bad(e);
+  }
+}
+
+/** Builds the library request from the options (exported for tests); `basis` from --from. */
+export function planRequestFrom(o: PlanCliOptions, basis?: FollowUpBasis): PlanRequest {
+  if (basis) return followUpRequest(o, basis);
   if (!o.km) throw new UsageError('option --km is required (a value such as 20uM or a range such as 10uM..40uM)');
   const km = usage('--km', () => parseConcentrationRange(o.km!));
   if (!o.ki && !o.ic50) throw new UsageError('give --ki (value or range) or --ic50 with --at-substrate');
@@ -100,7 +139,7 @@ export function planRequestFrom(o: PlanCliOptions): PlanRequest {
   const inhibition = usage(o.ki ? '--ki' : '--ic50', () => parseConcentrationRange((o.ki ?? o.ic50)!));
   const sUnit = km.unit;
   const iUnit = inhibition.unit;
-  const noise = noiseOption(o.noise);
+  const noise = noiseOption(o.noise ?? 'proportional:0.05');
   if (noise.model === 'constant' && o.vmax === undefined)
     throw new UsageError('constant noise needs --vmax (the expected Vmax, in the same rate unit as the SD)');
   const prior: PlanPrior = { km: km.range, vmax: o.vmax !== undefined ? positiveNumber('--vmax', o.vmax) : 1 };
@@ -109,28 +148,57 @@ export function planRequestFrom(o: PlanCliOptions): PlanRequest {
     if (!o.atSubstrate) throw new UsageError('option --ic50 needs --at-substrate (the [S] at which it was measured)');
     prior.ic50 = { range: inhibition.range, atSubstrate: concentrationIn('--at-substrate', o.atSubstrate, sUnit) };
   }
-  const plate = integerOption('--plate', o.plate, 1);
-  if (plate !== 96 && plate !== 384) throw new UsageError(`option --plate: "${o.plate}" is not 96 or 384`);
-  const wells = integerOption('--wells', o.wells, 1);
-  if (wells > plate) throw new UsageError(`option --wells: ${wells} wells do not fit a ${plate}-well plate`);
-  const replicates = integerOption('--replicates', o.replicates, 1);
-  const simulations = o.simulate ? integerOption('--simulations', o.simulations, 1) : 0;
   return {
     prior,
     mechanisms: mechanismsOption(o.mechanisms),
     noise,
-    constraints: {
-      maxSubstrate: o.maxSubstrate ? concentrationIn('--max-substrate', o.maxSubstrate, sUnit) : 10 * km.range[1],
-      maxInhibitor: o.maxInhibitor ? concentrationIn('--max-inhibitor', o.maxInhibitor, iUnit) : Infinity,
-      wells,
-      replicates,
-      plate,
-      dilution: dilutionOption(o),
-    },
+    constraints: constraintsFrom(o, sUnit, iUnit, 10 * km.range[1]),
     units: { substrate: sUnit, inhibitor: iUnit },
-    simulations,
+    ...commonSettings(o, iUnit),
+  };
+}
+
+function constraintsFrom(o: PlanCliOptions, sUnit: ConcentrationUnit, iUnit: ConcentrationUnit, defaultMaxSubstrate: number): PlanRequest['constraints'] {
+  const plate = integerOption('--plate', o.plate, 1);
+  if (plate !== 96 && plate !== 384) throw new UsageError(`option --plate: "${o.plate}" is not 96 or 384`);
+  const wells = integerOption('--wells', o.wells, 1);
+  if (wells > plate) throw new UsageError(`option --wells: ${wells} wells do not fit a ${plate}-well plate`);
+  return {
+    maxSubstrate: o.maxSubstrate ? concentrationIn('--max-substrate', o.maxSubstrate, sUnit) : defaultMaxSubstrate,
+    maxInhibitor: o.maxInhibitor ? concentrationIn('--max-inhibitor', o.maxInhibitor, iUnit) : Infinity,
+    wells,
+    replicates: integerOption('--replicates', o.replicates, 1),
+    plate,
+    dilution: dilutionOption(o),
+  };
+}
+
+function commonSettings(o: PlanCliOptions, iUnit: ConcentrationUnit) {
+  return {
+    simulations: o.simulate ? integerOption('--simulations', o.simulations, 1) : 0,
     seed: integerOption('--seed', o.seed, 0),
     ...(o.enzyme ? { enzyme: concentrationIn('--enzyme', o.enzyme, iUnit) } : {}),
+  };
+}
+
+/** A follow-up: prior, mechanisms and noise from the earlier analysis (--mechanisms and --noise override). */
+function followUpRequest(o: PlanCliOptions, basis: FollowUpBasis): PlanRequest {
+  if (o.km || o.ki || o.ic50) throw new UsageError('option --from takes Km and the inhibition constants from the analysis: leave out --km, --ki and --ic50');
+  const notes = [...basis.notes];
+  const units = { substrate: basis.units.substrate ?? 'uM', inhibitor: basis.units.inhibitor ?? 'uM' } as const;
+  if (!basis.units.substrate || !basis.units.inhibitor) notes.push('the analysed table gives no concentration unit; the plan uses its numbers as they are (labelled uM)');
+  const noise = o.noise ? noiseOption(o.noise) : basis.noise;
+  const mechanisms = o.mechanisms ? mechanismsOption(o.mechanisms) : basis.mechanisms;
+  const measuredTop = Math.max(0, ...basis.fixedPoints.map((p) => p.substrate));
+  return {
+    prior: { ...basis.prior, ...(o.vmax !== undefined ? { vmax: positiveNumber('--vmax', o.vmax) } : {}) },
+    mechanisms,
+    noise,
+    constraints: constraintsFrom(o, units.substrate, units.inhibitor, Math.max(10 * basis.prior.km[1], measuredTop)),
+    units,
+    fixedPoints: basis.fixedPoints,
+    notes,
+    ...commonSettings(o, units.inhibitor),
   };
 }
 
@@ -142,7 +210,7 @@ export function planCommand(io: CliIo): Command {
     .option('--ic50 <conc>', 'IC50 instead of --ki, value or range, measured at --at-substrate')
     .option('--at-substrate <conc>', '[S] at which the IC50 was measured')
     .option('--mechanisms <list>', `mechanisms still in play, comma-separated (default: all of ${MECHANISMS.map((m) => m.mechanism).join(', ')})`)
-    .option('--noise <model:level>', 'expected noise: proportional:CV or constant:SD', 'proportional:0.05')
+    .option('--noise <model:level>', 'expected noise: proportional:CV or constant:SD (default proportional:0.05; with --from, the fitted noise)')
     .option('--vmax <x>', 'expected Vmax in rate units (needed for constant noise)')
     .option('--wells <n>', 'wells for this compound', '96')
     .option('--replicates <n>', 'replicate wells per design point', '2')
@@ -159,8 +227,11 @@ export function planCommand(io: CliIo): Command {
     .option('--json', 'print the plan as one JSON document')
     .option('--out <dir>', 'write plan.json, summary.txt and plate-map.csv into this folder')
     .option('--plate-map <file>', 'write the recommended plate map (CSV) to this file')
-    .action((o: PlanCliOptions) => {
-      const request = planRequestFrom(o);
+    .option('--from <file>', 'plan a follow-up from a rate table (the wells to add) or from the JSON of an analysis')
+    .option('--error <model>', 'with --from a rate table: the error model of its analysis, constant or proportional', 'constant')
+    .option('--compound <name>', 'with --from: the compound of a multi-compound file')
+    .action(async (o: PlanCliOptions) => {
+      const request = planRequestFrom(o, o.from ? await readFollowUp(o, io.cwd) : undefined);
       const bar = io.errIsTTY && request.simulations > 0 ? progressBar('simulating') : null;
       if (bar) request.onProgress = (done, total) => bar.update(done, total);
       let plan;
