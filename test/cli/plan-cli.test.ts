@@ -1,6 +1,6 @@
 /** `mechanist plan` on the command line: JSON contract, files, usage errors with exit code 2. */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, existsSync } from 'node:fs';
+import { mkdtempSync, readFileSync, existsSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/run-cli.js';
@@ -75,4 +75,30 @@ describe('mechanist plan', () => {
       expect(r.err).toMatch(message);
       expect(r.out).toBe('');
     });
+});
+
+describe('mechanist plan --from', () => {
+  it('a rate table: the wells to add, with the measured ones counted', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
+    const sim = await run(['simulate', '--mechanism', 'mixed', '--km', '20', '--ki', '0.2', '--kiu', '1', '--substrate', '5,10,20,40', '--inhibitor', '0,0.1,0.2', '--replicates', '2', '--seed', '4', '-o', join(dir, 'plate.csv')]);
+    expect(sim.code).toBe(0);
+    const r = await run(['plan', '--from', join(dir, 'plate.csv'), '--error', 'proportional', '--wells', '24', '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    const doc = JSON.parse(r.out);
+    expect(doc.settings.measuredWells).toBe(24);
+    expect(doc.recommended.wellCount).toBe(24);
+    expect(doc.notes.join(' ')).toMatch(/follow-up of/);
+  });
+  it('usage errors: --from with --km, a JSON that is not an analysis', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
+    writeFileSync(join(dir, 'x.json'), '{"a": 1}');
+    const a = await run(['plan', '--from', join(dir, 'x.json'), '--km', '2uM']);
+    expect(a.code).toBe(2);
+    expect(a.err).toMatch(/leave out --km/);
+    const b = await run(['plan', '--from', join(dir, 'x.json')]);
+    expect(b.code).toBe(2);
+    expect(b.err).toMatch(/not the JSON of a mechanist analysis/);
+    const c = await run(['plan', '--from', join(dir, 'missing.csv')]);
+    expect(c.code).toBe(2);
+  });
 });

@@ -101,6 +101,7 @@ function dilutionOption(o: PlanCliOptions): DilutionScheme {
 
 /** Reads --from: a rate table (analysed as `analyze` would, with --error) or the JSON of an analysis. */
 export async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBasis> {
+  if (o.km || o.ki || o.ic50) throw new UsageError('option --from takes Km and the inhibition constants from the analysis: leave out --km, --ki and --ic50');
   const path = resolve(cwd, o.from!);
   const bad = (e: unknown): never => {
     throw new UsageError(`option --from: ${e instanceof Error ? e.message : String(e)}`);
