@@ -33,8 +33,9 @@ function predictionLines(c: PlanCandidate, mechanisms: readonly Mechanism[]): st
   return mechanisms.map((m) => {
     const p = c.predicted?.[m];
     const e = c.expected[m];
-    const sim = p ? `${pad(pct(p.decisiveCorrect), 9)}${pad(pct(p.decisiveWrong), 8)}${pad(fold(p.kiFoldWidth ?? p.kiuFoldWidth), 10)}` : pad('-', 27);
-    const info = `${pad(fold(e?.kiFoldWidth ?? e?.kiuFoldWidth), 10)}${e?.kiFoldWidth != null && e?.kiuFoldWidth != null ? fold(e.kiuFoldWidth) : ''}`;
+    const hasK = m !== 'none';
+    const sim = p ? `${pad(pct(p.decisiveCorrect), 9)}${pad(pct(p.decisiveWrong), 8)}${pad(hasK ? fold(p.kiFoldWidth ?? p.kiuFoldWidth) : '-', 10)}` : pad('-', 27);
+    const info = hasK ? `${pad(fold(e?.kiFoldWidth ?? e?.kiuFoldWidth), 10)}${e?.kiFoldWidth != null && e?.kiuFoldWidth != null ? fold(e.kiuFoldWidth) : ''}` : '-';
     const kiu = p?.kiFoldWidth != null && p?.kiuFoldWidth != null ? ` (Kiu ${fold(p.kiuFoldWidth)})` : '';
     return `    ${pad(m, 16)}${sim}${info}${kiu}`;
   });

@@ -43,7 +43,14 @@ describe('mechanist plan', () => {
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/^Plan for 48 wells/);
     expect(r.out).toMatch(/\[E\] was given but is not yet used/);
-    for (const f of ['plan.json', 'summary.txt', 'plate-map.csv']) expect(existsSync(join(dir, 'out', f))).toBe(true);
+    for (const f of ['plan.json', 'summary.txt', 'plate-map.csv', 'plan.html', 'figures/plan-grid.svg', 'figures/plan-wells.svg']) expect(existsSync(join(dir, 'out', f))).toBe(true);
+    const html = readFileSync(join(dir, 'out', 'plan.html'), 'utf8');
+    expect(html).not.toMatch(/<script/);
+    expect(html).toMatch(/id="fig-plan-grid"/);
+    expect(html).toMatch(/id="fig-plan-wells"/);
+    expect(html).toMatch(/The plan rests on its assumptions/);
+    expect(html).toMatch(/Research use only/);
+    expect(readFileSync(join(dir, 'out', 'figures', 'plan-grid.svg'), 'utf8')).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     const csv = readFileSync(join(dir, 'map.csv'), 'utf8').trim().split('\n');
     expect(csv[0]).toBe('well,substrate (uM),inhibitor (nM),replicate');
     expect(csv).toHaveLength(49);

@@ -22,6 +22,9 @@ import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
 import { chooseTables } from './analyze.js';
+import { planFigures } from '../../plan/plan-figures.js';
+import { wellsCurve } from '../../plan/wells-curve.js';
+import { planPage } from '../../plan/plan-page.js';
 
 /** Default simulations per design and true mechanism. */
 export const DEFAULT_PLAN_SIMULATIONS = 50;
@@ -226,7 +229,7 @@ export function planCommand(io: CliIo): Command {
     .option('--simulations <n>', 'simulations per design and true mechanism', String(DEFAULT_PLAN_SIMULATIONS))
     .option('--no-simulate', 'information criteria only, no Monte Carlo check')
     .option('--json', 'print the plan as one JSON document')
-    .option('--out <dir>', 'write plan.json, summary.txt and plate-map.csv into this folder')
+    .option('--out <dir>', 'write plan.html (with figures/), plan.json, summary.txt and plate-map.csv into this folder')
     .option('--plate-map <file>', 'write the recommended plate map (CSV) to this file')
     .option('--from <file>', 'plan a follow-up from a rate table (the wells to add) or from the JSON of an analysis')
     .option('--error <model>', 'with --from a rate table: the error model of its analysis, constant or proportional', 'constant')
@@ -254,6 +257,9 @@ export function planCommand(io: CliIo): Command {
         writeFileAtomic(resolve(dir, 'plan.json'), json);
         writeFileAtomic(resolve(dir, 'summary.txt'), text);
         writeFileAtomic(resolve(dir, 'plate-map.csv'), csv);
+        const figures = planFigures(plan, wellsCurve(request));
+        for (const f of figures) writeFileAtomic(resolve(dir, 'figures', f.file), f.svg);
+        writeFileAtomic(resolve(dir, 'plan.html'), planPage(plan, figures));
       }
       if (o.plateMap) writeFileAtomic(resolve(io.cwd, o.plateMap), csv);
       io.out(o.json ? json : text);
