@@ -170,7 +170,8 @@ export function candidateGrids(settings: PlanSettings): GridSpec[] {
   const roomy = units >= MIN_SUBSTRATE_LEVELS * (MIN_INHIBITOR_LEVELS + 1);
   const minS = roomy ? MIN_SUBSTRATE_LEVELS : 3;
   const minI = roomy ? MIN_INHIBITOR_LEVELS : 2;
-  const iLows = [kLow / 3, kLow];
+  const kRangeLow = inhibitionRange(settings.prior)[0];
+  const iLows = [kRangeLow / 3, kRangeLow];
   const seen = new Set<string>();
   const out: GridSpec[] = [];
   for (let nS = minS; nS <= 16; nS++)

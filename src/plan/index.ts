@@ -12,3 +12,7 @@ export { planJson } from './plan-json.js';
 export { planText } from './plan-text.js';
 export { parseConcentration, parseConcentrationRange } from './concentration-text.js';
 export type { Design, DesignPoint, PlanNoise, PriorPoint } from './design-types.js';
+export { planFigures, type WellsCurvePoint } from './plan-figures.js';
+export { planPage } from './plan-page.js';
+export { wellsCurve } from './wells-curve.js';
+export { followUpBasis, summaryFromResult, summaryFromJson, type FollowUpBasis, type FittedSummary } from './follow-up.js';

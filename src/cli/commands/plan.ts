@@ -22,9 +22,7 @@ import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
 import { chooseTables } from './analyze.js';
-import { planFigures } from '../../plan/plan-figures.js';
 import { wellsCurve } from '../../plan/wells-curve.js';
-import { planPage } from '../../plan/plan-page.js';
 
 /** Default simulations per design and true mechanism. */
 export const DEFAULT_PLAN_SIMULATIONS = 50;
@@ -257,6 +255,9 @@ export function planCommand(io: CliIo): Command {
         writeFileAtomic(resolve(dir, 'plan.json'), json);
         writeFileAtomic(resolve(dir, 'summary.txt'), text);
         writeFileAtomic(resolve(dir, 'plate-map.csv'), csv);
+        // the page and figure code (d3 on a DOM) is loaded only when a page is written
+        const { planFigures } = await import('../../plan/plan-figures.js');
+        const { planPage } = await import('../../plan/plan-page.js');
         const figures = planFigures(plan, wellsCurve(request));
         for (const f of figures) writeFileAtomic(resolve(dir, 'figures', f.file), f.svg);
         writeFileAtomic(resolve(dir, 'plan.html'), planPage(plan, figures));
