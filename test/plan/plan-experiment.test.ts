@@ -93,3 +93,24 @@ describe('planExperiment', () => {
     expect(() => planExperiment({ ...request(0), constraints: { ...request(0).constraints, wells: 10 } })).toThrow(/fewer than 6 design points/);
   });
 });
+
+describe('dilution schemes in a plan', () => {
+  const base = request(0);
+  it('serial dilution: every candidate level is the top level over a power of the fold', () => {
+    const plan = planExperiment({ ...base, constraints: { ...base.constraints, dilution: { kind: 'serial', fold: 3 } } });
+    for (const c of plan.candidates.filter((x) => x.role === 'recommended' || x.role === 'runner-up')) {
+      for (const key of ['substrate', 'inhibitor'] as const) {
+        const levels = [...new Set(c.points.map((p) => p[key]))].filter((x) => x > 0).sort((a, b) => a - b);
+        for (let k = 1; k < levels.length; k++) expect(Math.log(levels[k] / levels[k - 1]) / Math.log(3)).toBeCloseTo(1, 3);
+      }
+    }
+  });
+  it('a free list: the levels come from the lists only', () => {
+    const substrate = [1, 2, 4, 8, 16, 32, 64, 128, 256];
+    const inhibitor = [0.05, 0.1, 0.2, 0.4, 0.8, 1.6, 3.2];
+    const plan = planExperiment({ ...base, constraints: { ...base.constraints, dilution: { kind: 'list', substrate, inhibitor } } });
+    const r = plan.recommended.points;
+    expect(r.every((p) => substrate.includes(p.substrate))).toBe(true);
+    expect(r.every((p) => p.inhibitor === 0 || inhibitor.includes(p.inhibitor))).toBe(true);
+  });
+});
