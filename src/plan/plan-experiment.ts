@@ -1,9 +1,10 @@
 /**
  * `planExperiment`: the whole plan. Search the candidate designs by expected Fisher information
  * (design-search.ts), then check the two best recommendable grids, the common grid and the
- * single-[I] design by Monte Carlo through the analysis (monte-carlo.ts); the best of the two
- * grids and the common grid by that check (mean over the mechanisms of decisive-correct minus
- * decisive-wrong shares) is the recommendation. Without simulation the best grid by the
+ * single-[I] design by Monte Carlo through the analysis (monte-carlo.ts). Of the two grids and
+ * the common grid, those within MONTE_CARLO_TIE of the best check score (mean over the mechanisms
+ * of decisive-correct minus decisive-wrong shares) count as equally decisive, and the one with the
+ * narrowest median Ki/Kiu intervals among them is the recommendation. Without simulation the best grid by the
  * information criteria is.
  */
 import type { ConcentrationUnit } from '../input/types.js';
@@ -71,6 +72,36 @@ function candidate(s: ScoredDesign, role: CandidateRole, name?: string): PlanCan
   };
 }
 
+/**
+ * Contenders whose Monte Carlo score is within this of the best count as equally decisive (about
+ * one simulation in each of the five mechanisms at the default 50); among them the narrowest
+ * intervals win (this tool's choice).
+ */
+export const MONTE_CARLO_TIE = 0.02;
+
+/** Mean over the mechanisms with an inhibition constant of ln(median fold width) of Ki (Kiu when there is no Ki); open counts as OPEN_FOLD */
+export function meanLogFold(predicted: Partial<Record<Mechanism, MechanismPrediction>>): number {
+  const xs = Object.entries(predicted)
+    .filter(([m]) => m !== 'none')
+    .map(([, p]) => p!.kiFoldWidth ?? p!.kiuFoldWidth ?? OPEN_FOLD);
+  return xs.reduce((s, x) => s + Math.log(x), 0) / Math.max(1, xs.length);
+}
+
+/** The fold width an open or undetected interval counts as when designs are compared (this tool's choice). */
+export const OPEN_FOLD = 100;
+
+/** Index of the recommendation among simulated contenders (header rule); ties keep the earlier. */
+export function chooseRecommendation(predicted: ReadonlyArray<Partial<Record<Mechanism, MechanismPrediction>>>): number {
+  const scores = predicted.map(monteCarloScore);
+  const top = Math.max(...scores);
+  let best = -1;
+  predicted.forEach((p, k) => {
+    if (scores[k] < top - MONTE_CARLO_TIE) return;
+    if (best < 0 || meanLogFold(p) < meanLogFold(predicted[best]) - 1e-12) best = k;
+  });
+  return best;
+}
+
 /** Mean over mechanisms of decisive-correct minus decisive-wrong (the Monte Carlo ranking). */
 export function monteCarloScore(predicted: Partial<Record<Mechanism, MechanismPrediction>>): number {
   const xs = Object.values(predicted).map((p) => p!.decisiveCorrect - p!.decisiveWrong);
@@ -82,8 +113,8 @@ export function planExperiment(request: PlanRequest): PlanResult {
   if (c.wells > c.plate) throw new Error(`${c.wells} wells do not fit a ${c.plate}-well plate`);
   if (budgetUnits(c) < 6) throw new Error(`${c.wells} wells at ${c.replicates} replicates leave fewer than 6 design points; the mixed model needs more`);
   const search = searchDesigns(request);
-  const top = search.recommendable.slice(0, 2);
-  const checked: Array<{ s: ScoredDesign; predicted: PlanCandidate['predicted'] }> = [...top, search.common, search.singleInhibitor].map((s) => ({ s, predicted: null }));
+  const best2 = search.recommendable.slice(0, 2);
+  const checked: Array<{ s: ScoredDesign; predicted: PlanCandidate['predicted'] }> = [...best2, search.common, search.singleInhibitor].map((s) => ({ s, predicted: null }));
   const notes: string[] = [...(request.notes ?? [])];
   if (request.simulations > 0) {
     const total = checked.length * request.mechanisms.length * request.simulations;
@@ -100,23 +131,20 @@ export function planExperiment(request: PlanRequest): PlanResult {
       entry.predicted = predicted;
     }
   }
-  // the recommendation: the best by the Monte Carlo check among the two grids and the common grid
-  // (ties keep the earlier, i.e. the better by information); without simulation the best grid
-  const contenders = request.simulations > 0 ? [...checked.slice(0, top.length), checked[top.length]] : checked.slice(0, 1);
-  let bestIndex = 0;
-  contenders.forEach((entry, k) => {
-    if (monteCarloScore(entry.predicted ?? {}) > monteCarloScore(contenders[bestIndex].predicted ?? {})) bestIndex = k;
-  });
+  // the recommendation among the two grids and the common grid (see the header); without
+  // simulation the best grid by the information criteria
+  const contenders = request.simulations > 0 ? [...checked.slice(0, best2.length), checked[best2.length]] : checked.slice(0, 1);
+  const bestIndex = request.simulations > 0 ? chooseRecommendation(contenders.map((c) => c.predicted!)) : 0;
   const out: PlanCandidate[] = [];
   const best = contenders[bestIndex];
   out.push({ ...candidate(best.s, 'recommended'), predicted: best.predicted });
-  if (best.s === search.common) notes.push('the common grid did at least as well as the searched grids in the Monte Carlo check, so it is the recommendation');
+  if (best.s === search.common) notes.push('the common grid did as well as the searched grids in the Monte Carlo check, with intervals as narrow, so it is the recommendation');
   checked
-    .slice(0, top.length)
+    .slice(0, best2.length)
     .filter((g) => g !== best)
     .forEach((g, k) => out.push({ ...candidate(g.s, 'runner-up', k === 0 ? 'runner-up' : `runner-up-${k + 1}`), predicted: g.predicted }));
-  out.push({ ...candidate(search.common, 'common-grid'), predicted: checked[top.length].predicted });
-  out.push({ ...candidate(search.singleInhibitor, 'single-inhibitor'), predicted: checked[top.length + 1].predicted });
+  out.push({ ...candidate(search.common, 'common-grid'), predicted: checked[best2.length].predicted });
+  out.push({ ...candidate(search.singleInhibitor, 'single-inhibitor'), predicted: checked[best2.length + 1].predicted });
   if (search.dsOptimum) out.push(candidate(search.dsOptimum, 'ds-optimum'));
   notes.push(
     `the smallest expected rate in the recommended design is ${(100 * out[0].smallestRateShare).toPrecision(2)}% of Vmax (over the prior range): the ${request.noise.model} noise model is assumed to hold down to it; if the assay has a noise floor there, plan with constant noise or a lower --max-inhibitor`,

@@ -1,6 +1,6 @@
 /** The whole plan on a small invented scenario: contract, budget, seeding, and the real pipeline behind the predictions. */
 import { describe, expect, it } from 'vitest';
-import { planExperiment, type PlanRequest } from '../../src/plan/plan-experiment.js';
+import { chooseRecommendation, planExperiment, type PlanRequest } from '../../src/plan/plan-experiment.js';
 import { planJson } from '../../src/plan/plan-json.js';
 import { planText } from '../../src/plan/plan-text.js';
 import { drawTruth, monteCarloAnalysisOptions, simulateDesign, simulationSeed } from '../../src/plan/monte-carlo.js';
@@ -112,5 +112,20 @@ describe('dilution schemes in a plan', () => {
     const r = plan.recommended.points;
     expect(r.every((p) => substrate.includes(p.substrate))).toBe(true);
     expect(r.every((p) => p.inhibitor === 0 || inhibitor.includes(p.inhibitor))).toBe(true);
+  });
+});
+
+describe('choosing the recommendation from the check', () => {
+  const p = (correct: number, wrong: number, fold: number | null) => ({
+    competitive: { simulations: 50, decisiveCorrect: correct, decisiveWrong: wrong, kiFoldWidth: fold, kiuFoldWidth: null, calls: {} },
+  });
+  it('a clearly more decisive design wins whatever its intervals', () => {
+    expect(chooseRecommendation([p(0.8, 0, 1.1), p(0.95, 0, 1.5)])).toBe(1);
+  });
+  it('within the tie band the narrower intervals win; wrong calls count against', () => {
+    expect(chooseRecommendation([p(0.99, 0, 1.46), p(0.98, 0, 1.15)])).toBe(1);
+    expect(chooseRecommendation([p(0.99, 0.05, 1.1), p(0.98, 0, 1.3)])).toBe(1);
+    expect(chooseRecommendation([p(0.98, 0, 1.2), p(0.98, 0, 1.2)])).toBe(0);
+    expect(chooseRecommendation([p(0.98, 0, null), p(0.98, 0, 3)])).toBe(1);
   });
 });
