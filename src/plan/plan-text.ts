@@ -1,5 +1,6 @@
 /** The text summary of a plan: assumptions, the recommended grid as a table, the candidates side by side. */
 import type { Mechanism } from '../models/types.js';
+import { modelFor } from '../models/index.js';
 import type { DesignPoint } from './design-types.js';
 import type { PlanCandidate, PlanResult } from './plan-experiment.js';
 
@@ -33,11 +34,17 @@ function predictionLines(c: PlanCandidate, mechanisms: readonly Mechanism[]): st
   return mechanisms.map((m) => {
     const p = c.predicted?.[m];
     const e = c.expected[m];
-    const hasK = m !== 'none';
-    const sim = p ? `${pad(pct(p.decisiveCorrect), 9)}${pad(pct(p.decisiveWrong), 8)}${pad(hasK ? fold(p.kiFoldWidth ?? p.kiuFoldWidth) : '-', 10)}` : pad('-', 27);
-    const info = hasK ? `${pad(fold(e?.kiFoldWidth ?? e?.kiuFoldWidth), 10)}${e?.kiFoldWidth != null && e?.kiuFoldWidth != null ? fold(e.kiuFoldWidth) : ''}` : '-';
-    const kiu = p?.kiFoldWidth != null && p?.kiuFoldWidth != null ? ` (Kiu ${fold(p.kiuFoldWidth)})` : '';
-    return `    ${pad(m, 16)}${sim}${info}${kiu}`;
+    const names = modelFor(m).params;
+    const k = (name: 'Ki' | 'Kiu', x: number | null | undefined) => (names.includes(name) ? fold(x) : '-');
+    const cols = [
+      p ? pct(p.decisiveCorrect) : '-',
+      p ? pct(p.decisiveWrong) : '-',
+      p ? k('Ki', p.kiFoldWidth) : '-',
+      p ? k('Kiu', p.kiuFoldWidth) : '-',
+      k('Ki', e?.kiFoldWidth),
+      k('Kiu', e?.kiuFoldWidth),
+    ];
+    return `    ${pad(m, 16)}${cols.map((x) => pad(x, 10)).join('')}`.trimEnd();
   });
 }
 
@@ -60,8 +67,8 @@ export function planText(plan: PlanResult): string {
       ? `Candidates (Monte Carlo through the analysis, ${r.simulations} simulations per design and mechanism, seed ${r.seed}):`
       : 'Candidates (expected information only; run without --no-simulate for predicted calls):',
   );
-  lines.push(`    ${pad('true mechanism', 16)}${pad('correct', 9)}${pad('wrong', 8)}${pad('Ki fold', 10)}${pad('Ki fold', 10)}`);
-  lines.push(`    ${pad('', 16)}${pad('(firm)', 9)}${pad('(firm)', 8)}${pad('(sim.)', 10)}${pad('(info.)', 10)}`);
+  lines.push(`    ${pad('true mechanism', 16)}${['correct', 'wrong', 'Ki fold', 'Kiu fold', 'Ki fold', 'Kiu fold'].map((x) => pad(x, 10)).join('')}`.trimEnd());
+  lines.push(`    ${pad('', 16)}${['(firm)', '(firm)', '(sim.)', '(sim.)', '(info.)', '(info.)'].map((x) => pad(x, 10)).join('')}`.trimEnd());
   for (const c of plan.candidates) {
     if (c.role === 'ds-optimum') continue;
     lines.push(`  ${c.name} (${c.wellCount} wells): ${c.description}`);
@@ -71,7 +78,7 @@ export function planText(plan: PlanResult): string {
   if (ds)
     lines.push(`  for reference, the Ds-optimum has ${ds.points.length} distinct points (not recommended: too few levels to check the model)`);
   lines.push('');
-  lines.push('"correct"/"wrong": share of simulations with a firm call of the true / of another mechanism (for none: the no-inhibition outcome); "Ki fold": high/low of the 95% interval of Ki (Kiu for uncompetitive; median over simulations, or expected from the information).');
+  lines.push('"correct"/"wrong": share of simulations with a firm call of the true / of another mechanism (for none: the no-inhibition outcome); "Ki fold", "Kiu fold": high/low of the 95% interval (median over the simulations, or expected from the information); "-": the mechanism has no such constant.');
   lines.push('');
   lines.push('The plan rests on these assumptions:');
   for (const a of plan.assumptions) lines.push(`  - ${a}`);
