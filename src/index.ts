@@ -84,3 +84,4 @@ export {
 } from './reads/index.js';
 export { simulatePlate, apparentConstants, type PlateDesign, type SimulatedPlate } from './simulate/simulate-plate.js';
 export { readsReportHtml } from './report/html/reads-page.js';
+export * from './plan/index.js';

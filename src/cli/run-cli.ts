@@ -17,6 +17,7 @@ import { simulateCommand } from './commands/simulate.js';
 import { demoCommand } from './commands/demo.js';
 import { batchCommand } from './commands/batch.js';
 import { ratesCommand } from './commands/rates.js';
+import { planCommand } from './commands/plan.js';
 
 /** Exit code chosen by a command that finished without throwing (batch uses it). */
 export interface CommandOutcome {
@@ -30,7 +31,7 @@ function buildProgram(io: CliIo, outcome: CommandOutcome): Command {
     .addHelpText('after', `\n${EXIT_CODE_HELP}\n\nResearch use only: results support, and do not replace, expert judgement.`)
     .showHelpAfterError(false)
     .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
-  for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io), batchCommand(io, outcome), ratesCommand(io)]) {
+  for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io), batchCommand(io, outcome), ratesCommand(io), planCommand(io)]) {
     cmd.configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
     cmd.exitOverride();
     program.addCommand(cmd);

@@ -1,0 +1,111 @@
+/** `mechanist plan` on the command line: JSON contract, files, usage errors with exit code 2. */
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, existsSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../../src/cli/run-cli.js';
+import type { CliIo } from '../../src/cli/io.js';
+
+async function run(args: string[], cwd = process.cwd()) {
+  const io: CliIo & { stdout: string; stderr: string } = {
+    stdout: '',
+    stderr: '',
+    errIsTTY: false,
+    cwd,
+    out(t) {
+      io.stdout += t;
+    },
+    err(t) {
+      io.stderr += t;
+    },
+  };
+  const code = await runCli(args, io);
+  return { code, out: io.stdout, err: io.stderr };
+}
+
+const BASE = ['plan', '--km', '10uM..40uM', '--ki', '50nM..500nM', '--max-substrate', '400uM', '--max-inhibitor', '5uM', '--wells', '48', '--mechanisms', 'competitive,mixed'];
+
+describe('mechanist plan', () => {
+  it('--json --no-simulate: one document, units from the options, the recommended wells add up to the budget', async () => {
+    const r = await run([...BASE, '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    expect(r.err).toBe('');
+    const doc = JSON.parse(r.out);
+    expect(doc.recommended.units).toEqual({ substrate: 'uM', inhibitor: 'nM' });
+    expect(doc.recommended.wells.reduce((s: number, w: { replicates: number }) => s + w.replicates, 0)).toBe(48);
+    expect(Math.max(...doc.recommended.wells.map((w: { inhibitor: number }) => w.inhibitor))).toBeLessThanOrEqual(5000);
+    expect(doc.candidates.map((c: { name: string }) => c.name)).toEqual(expect.arrayContaining(['recommended', 'common-grid', 'single-inhibitor']));
+    expect(doc.settings.simulations).toBe(0);
+  });
+  it('--out writes plan.json, summary.txt and the plate map; --plate-map writes the CSV alone', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-'));
+    const r = await run([...BASE, '--simulations', '2', '--out', join(dir, 'out'), '--plate-map', join(dir, 'map.csv'), '--enzyme', '5nM']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/^Plan for 48 wells/);
+    expect(r.out).toMatch(/\[E\] was given but is not yet used/);
+    for (const f of ['plan.json', 'summary.txt', 'plate-map.csv', 'plan.html', 'figures/plan-grid.svg', 'figures/plan-wells.svg']) expect(existsSync(join(dir, 'out', f))).toBe(true);
+    const html = readFileSync(join(dir, 'out', 'plan.html'), 'utf8');
+    expect(html).not.toMatch(/<script/);
+    expect(html).toMatch(/id="fig-plan-grid"/);
+    expect(html).toMatch(/id="fig-plan-wells"/);
+    expect(html).toMatch(/The plan rests on its assumptions/);
+    expect(html).toMatch(/Research use only/);
+    expect(readFileSync(join(dir, 'out', 'figures', 'plan-grid.svg'), 'utf8')).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    const csv = readFileSync(join(dir, 'map.csv'), 'utf8').trim().split('\n');
+    expect(csv[0]).toBe('well,substrate (uM),inhibitor (nM),replicate');
+    expect(csv).toHaveLength(49);
+    expect(csv[1]).toMatch(/^A1,/);
+    const doc = JSON.parse(readFileSync(join(dir, 'out', 'plan.json'), 'utf8'));
+    expect(doc.candidates[0].predicted.mixed.simulations).toBe(2);
+    expect(doc.settings.enzyme).toBe(5);
+  });
+  it('an IC50 with its [S] is accepted', async () => {
+    const r = await run(['plan', '--km', '20uM', '--ic50', '80nM', '--at-substrate', '20uM', '--no-simulate', '--wells', '48', '--json']);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).settings.prior.atSubstrate).toBe(20);
+  });
+  for (const [args, message] of [
+    [['plan', '--ki', '50nM'], /--km is required/],
+    [['plan', '--km', '20uM'], /give --ki/],
+    [['plan', '--km', '20', '--ki', '50nM'], /option --km: "20" is not a concentration/],
+    [['plan', '--km', '20uM', '--ic50', '80nM'], /--at-substrate/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--noise', 'gaussian'], /option --noise/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--noise', 'constant:0.5'], /--vmax/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--wells', '200'], /do not fit a 96-well plate/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--mechanisms', 'competitive,allosteric'], /"allosteric"/],
+    [['plan', '--km', '20uM', '--ki', '50nM', '--dilution', 'serial:1'], /option --dilution/],
+  ] as const)
+    it(`usage error: ${args.slice(1).join(' ')}`, async () => {
+      const r = await run([...args]);
+      expect(r.code).toBe(2);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+      expect(r.err).toMatch(message);
+      expect(r.out).toBe('');
+    });
+});
+
+describe('mechanist plan --from', () => {
+  it('a rate table: the wells to add, with the measured ones counted', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
+    const sim = await run(['simulate', '--mechanism', 'mixed', '--km', '20', '--ki', '0.2', '--kiu', '1', '--substrate', '5,10,20,40', '--inhibitor', '0,0.1,0.2', '--replicates', '2', '--seed', '4', '-o', join(dir, 'plate.csv')]);
+    expect(sim.code).toBe(0);
+    const r = await run(['plan', '--from', join(dir, 'plate.csv'), '--error', 'proportional', '--wells', '24', '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    const doc = JSON.parse(r.out);
+    expect(doc.settings.measuredWells).toBe(24);
+    expect(doc.recommended.wellCount).toBe(24);
+    expect(doc.notes.join(' ')).toMatch(/follow-up of/);
+  });
+  it('usage errors: --from with --km, a JSON that is not an analysis', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
+    writeFileSync(join(dir, 'x.json'), '{"a": 1}');
+    const a = await run(['plan', '--from', join(dir, 'x.json'), '--km', '2uM']);
+    expect(a.code).toBe(2);
+    expect(a.err).toMatch(/leave out --km/);
+    const b = await run(['plan', '--from', join(dir, 'x.json')]);
+    expect(b.code).toBe(2);
+    expect(b.err).toMatch(/not the JSON of a mechanist analysis/);
+    const c = await run(['plan', '--from', join(dir, 'missing.csv')]);
+    expect(c.code).toBe(2);
+  });
+});
