@@ -11,7 +11,6 @@ import { textSummary } from '../../report/text-summary.js';
 import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { writeResultFiles } from '../write-results.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
 import { safeName } from '../../report/safe-name.js';
 
@@ -88,6 +87,9 @@ export function analyzeCommand(io: CliIo): Command {
     const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
     if (o.out) {
       const provenance = analyzeProvenance(input.bytes, file, cmd);
+      // The figure code (d3 on a jsdom document) is loaded only here, when figures are drawn:
+      // loading it costs about a second, which --help, --json and the text summary never pay.
+      const { writeResultFiles } = await import('../write-results.js');
       for (const r of results) writeResultFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, results.length > 1), provenance);
     }
     if (o.json) {

@@ -11,7 +11,6 @@ import { analyzeTable } from '../../analysis/analyze-table.js';
 import { textSummary } from '../../report/text-summary.js';
 import type { CliIo } from '../io.js';
 import { demoDataPath } from '../package-paths.js';
-import { writeResultFiles } from '../write-results.js';
 import { sha256Hex } from '../../report/html/provenance.js';
 
 export const DEMO_SOURCE_NAME = 'data/demo/hlx-amidase-kt0417.csv';
@@ -24,6 +23,8 @@ export function demoCommand(io: CliIo): Command {
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
       const dir = resolve(io.cwd, o.out);
+      // loaded here, not at start-up: the figure code (d3 on a jsdom document) takes about a second
+      const { writeResultFiles } = await import('../write-results.js');
       writeResultFiles(result, dir, {
         command: 'mechanist demo',
         inputSha256: sha256Hex(await readFile(demoDataPath())),
