@@ -19,6 +19,8 @@ import { toPortableOptions, type PortableAnalysisOptions } from './analyze-compo
 import { runCompoundJobs } from './worker-pool.js';
 import { summaryCounts, summaryCsv, summaryJson, type BatchSettings } from './summary-files.js';
 import { indexPage } from './index-page.js';
+import { harmoniseUnits } from './harmonise-units.js';
+import { concentrationIn, type Concentration } from '../input/units.js';
 import type { CompoundSummary } from './types.js';
 
 /** Names of the files written at the top of the output folder. */
@@ -45,6 +47,11 @@ export interface BatchOptions {
   onPlan?: (total: number) => void;
   /** how the run is named in each report's reproducibility footer; default "mechanist batch" */
   command?: string;
+  /**
+   * the [S] of the IC50 with its unit (`analysis.atSubstrate` is a bare number in the tables'
+   * unit); converted to the run's [S] unit once the tables are read
+   */
+  atSubstrate?: Concentration;
 }
 
 export interface BatchResult {
@@ -87,10 +94,19 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
     throw new InputError(`${what}; give files (.csv, .tsv, .txt) or folders holding them`, inputs[0] ?? '');
   }
   const jobs = await planCompounds(files, options.parse ?? {});
+  const harmonised = harmoniseUnits(jobs);
+  notes.push(...harmonised.notes);
   options.onPlan?.(jobs.length);
   const out = options.out ? resolve(cwd, options.out) : null;
-  const portable = toPortableOptions(options.analysis ?? {});
-  const settings = batchSettings(options, portable);
+  const analysisOptions = { ...(options.analysis ?? {}) };
+  if (options.atSubstrate !== undefined) {
+    const sUnit = harmonised.units.substrate;
+    if (options.atSubstrate.unit !== null && sUnit === null)
+      throw new InputError(`the inputs give no [S] unit to convert the IC50 [S] (${options.atSubstrate.value} ${options.atSubstrate.unit}) to; give --substrate-unit, or a plain number`, inputs[0] ?? '');
+    analysisOptions.atSubstrate = sUnit === null ? options.atSubstrate.value : concentrationIn(options.atSubstrate, sUnit);
+  }
+  const portable = toPortableOptions(analysisOptions);
+  const settings = batchSettings({ ...options, analysis: analysisOptions }, portable);
   let done = 0;
   const { rows, threadsUsed, workerProblem } = await runCompoundJobs(jobs, {
     threads: options.jobs ?? availableParallelism(),

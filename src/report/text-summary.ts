@@ -33,7 +33,7 @@ export function parameterLines(model: ModelResult, result: AnalysisResult): stri
   return model.estimates.map((e) => {
     const unit = unitOf(e.name, result);
     const profile = e.profile ? profileText(e.name, e.profile, unit, pct) : '';
-    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${e.note ?? 'not determined'}${profile ? `; ${profile}` : ''}`;
+    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${undetectedText(e, unit)}${profile ? `; ${profile}` : ''}`;
     const wald = e.wald ? `Wald ${pct} ${interval(e.wald[0], e.wald[1])}` : 'no interval';
     const line = `  ${pad(e.name, 6)}${padLeft(sig(e.value), 10)} ${pad(unit, 6)} SE ${pad(sig(e.se, 3), 9)} ${profile ? `${profile}  ` : ''}${wald}`;
     const boot = e.bootstrapPercentile
@@ -41,6 +41,17 @@ export function parameterLines(model: ModelResult, result: AnalysisResult): stri
       : '';
     return line + boot;
   });
+}
+
+/**
+ * Why a constant has no value, with the unit on the bound it exceeds ("Ki > 400 nM: ..."): the
+ * estimate's note carries the bound as a bare number, since the fit knows no units.
+ */
+function undetectedText(e: ModelResult['estimates'][number], unit: string): string {
+  const note = e.note ?? 'not determined';
+  if (e.exceeds === undefined || !unit) return note;
+  const tail = note.includes(': ') ? note.slice(note.indexOf(': ')) : '';
+  return `${e.name} > ${sig(e.exceeds)} ${unit}${tail}`;
 }
 
 /** A profile interval; an open end is written as a one-sided bound, e.g. "Kiu > 40 uM". */
@@ -59,13 +70,14 @@ export function derivedLines(model: ModelResult, result: AnalysisResult): string
   const lines: string[] = [];
   for (const d of model.derived ?? []) {
     if (d.name !== 'pKi' && d.name !== 'pKiu' && d.name !== 'IC50') continue;
-    const label = d.name === 'IC50' ? `IC50 at [S] = ${sig(d.substrate)}` : d.name;
+    const sUnit = result.input.units.substrate;
+    const label = d.name === 'IC50' ? `IC50 at [S] = ${sig(d.substrate)}${sUnit ? ` ${sUnit}` : ''}` : d.name;
     if (d.value === null) {
-      lines.push(`  ${label}: ${d.note ?? 'not determined'}${d.profile ? `; ${profileText(d.name, d.profile, '', pct)}` : ''}`);
+      lines.push(`  ${label}: ${d.note ?? 'not determined'}${d.profile ? `; ${profileText(d.name, d.profile, d.unit ?? '', pct)}` : ''}`);
       continue;
     }
     const parts = [`${sig(d.value)}${d.unit ? ` ${d.unit}` : ''}`];
-    if (d.profile) parts.push(profileText(d.name, d.profile, '', pct));
+    if (d.profile) parts.push(profileText(d.name, d.profile, d.unit ?? '', pct));
     if (d.wald) parts.push(`Wald ${pct} ${interval(d.wald[0], d.wald[1])}`);
     if (d.bootstrapBca) parts.push(`BCa ${interval(d.bootstrapBca[0], d.bootstrapBca[1])}`);
     lines.push(`  ${label}: ${parts.join('  ')}`);

@@ -8,7 +8,7 @@ import type { AnalysisResult } from '../../analysis/types.js';
 import type { RateTable } from '../../input/types.js';
 import { analysisJson } from '../../report/results-json.js';
 import { textSummary } from '../../report/text-summary.js';
-import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
+import { addSharedOptions, analysisOptionsFrom, atSubstrateFor, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
@@ -84,7 +84,11 @@ export function analyzeCommand(io: CliIo): Command {
     const path = resolve(io.cwd, file);
     const input = await readInputOnce(path, parse);
     const tables = chooseTables(input.tables, o.compound, file);
-    const results: AnalysisResult[] = tables.map((t) => analyzeTable({ ...t, source: file }, analysis));
+    const at = atSubstrateOption(o);
+    const results: AnalysisResult[] = tables.map((t) => {
+      const table = { ...t, source: file };
+      return analyzeTable(table, at === undefined ? analysis : { ...analysis, atSubstrate: atSubstrateFor(at, table) });
+    });
     if (o.out) {
       const provenance = analyzeProvenance(input.bytes, file, cmd);
       // The figure code (d3 on a jsdom document) is loaded only here, when figures are drawn:

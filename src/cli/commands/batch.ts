@@ -8,7 +8,7 @@ import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
 import { runBatch } from '../../batch/run-batch.js';
 import { progressBar, type ProgressBar } from '../progress-bar.js';
-import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
+import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption } from '../parse-option-values.js';
@@ -47,6 +47,7 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
       parse,
       analysis,
       cwd: io.cwd,
+      ...(o.atSubstrate !== undefined ? { atSubstrate: atSubstrateOption(o)! } : {}),
       onCompound: (_row, done, total) => bar?.update(done, total),
     });
     bar?.finish();
