@@ -18,15 +18,33 @@ export interface CommandOutcome {
   exitCode: number;
 }
 
+/**
+ * Where commander writes, with its usage errors in the one style of every other error:
+ * `mechanist: what is wrong` on one line (commander's own "error: " prefix and its separate
+ * "(Did you mean ...?)" line folded in).
+ */
+function output(io: CliIo) {
+  return {
+    writeOut: (s: string) => io.out(s),
+    writeErr: (s: string) => io.err(s),
+    outputError: (s: string) => io.err(`mechanist: ${usageLine(s)}\n`),
+  };
+}
+
+export function usageLine(commanderText: string): string {
+  const text = oneLine(commanderText.replace(/^error:\s*/i, ''));
+  return text.replace(/\(Did you mean/g, '(did you mean');
+}
+
 function buildProgram(io: CliIo, outcome: CommandOutcome): Command {
   const program = new Command('mechanist')
     .description('Global fits of reversible enzyme-inhibition mechanisms, ranked, with honest intervals.')
     .version(TOOL_VERSION)
     .addHelpText('after', `\n${EXIT_CODE_HELP}\n\nResearch use only: results support, and do not replace, expert judgement.`)
     .showHelpAfterError(false)
-    .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+    .configureOutput(output(io));
   for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io), batchCommand(io, outcome)]) {
-    cmd.configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+    cmd.configureOutput(output(io));
     cmd.exitOverride();
     program.addCommand(cmd);
   }

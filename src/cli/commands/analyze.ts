@@ -13,6 +13,7 @@ import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
 import { safeName } from '../../report/safe-name.js';
+import { listNames } from '../../input/messages.js';
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
@@ -25,10 +26,10 @@ export function chooseTables(tables: RateTable[], compound: string | undefined, 
   if (tables.length === 1 && compound === undefined) return tables;
   const names = tables.map((t) => t.compound ?? '(unnamed)');
   if (compound === undefined)
-    throw new UsageError(`${file} holds ${tables.length} compounds (${names.join(', ')}): choose one with --compound NAME, or use --compound all`);
+    throw new UsageError(`${file} holds ${tables.length} compounds (${listNames(names)}): choose one with --compound NAME, or use --compound all`);
   if (compound === 'all') return tables;
   const found = tables.filter((t) => t.compound === compound);
-  if (found.length === 0) throw new UsageError(`${file} has no compound "${compound}"; it holds ${names.join(', ')}`);
+  if (found.length === 0) throw new UsageError(`${file} has no compound "${compound}"; it holds ${listNames(names)}`);
   return found;
 }
 
@@ -75,7 +76,7 @@ export function analyzeCommand(io: CliIo): Command {
     .description('fit the five mechanisms to one rate table and rank them')
     .argument('<file>', 'CSV or TSV rate table')
     .option('--json', 'print one JSON document instead of the text summary')
-    .option('--out <dir>', 'write results.json, parameters.csv and summary.txt into this folder')
+    .option('--out <dir>', 'write the results folder: report.html, figures/*.svg, results.json, parameters.csv, summary.txt')
     .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)');
   addSharedOptions(cmd);
   cmd.action(async (file: string, o: AnalyzeCliOptions) => {

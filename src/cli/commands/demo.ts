@@ -29,6 +29,8 @@ export function demoCommand(io: CliIo): Command {
         command: 'mechanist demo',
         inputSha256: sha256Hex(await readFile(demoDataPath())),
         options: { '--error': 'proportional (fixed for the demo)' },
+        // no date: the committed reports/demo/ stays byte-identical when the README's demo is rerun
+        generatedAt: null,
       });
       io.out(textSummary(result));
       io.out(`\nResults written to ${o.out}/\n`);
