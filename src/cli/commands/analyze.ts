@@ -14,11 +14,34 @@ import type { CliIo } from '../io.js';
 import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
 import { safeName } from '../../report/safe-name.js';
 import { listNames } from '../../input/messages.js';
+import { analyzeSingleSubstrate, isSingleSubstrateTable, type SingleSubstrateResult } from '../../analysis/single-substrate.js';
+import { doseResponseJson, doseResponseText } from '../../report/dose-response-output.js';
+import { writeFileAtomic } from '../../report/write-atomic.js';
+import { concentrationOption } from '../parse-option-values.js';
+import type { Concentration } from '../../input/units.js';
+import { join } from 'node:path';
 
 interface AnalyzeCliOptions extends SharedCliOptions {
   json?: boolean;
   out?: string;
   compound?: string;
+  km?: string;
+}
+
+/** Km for the Cheng-Prusoff Ki of a one-[S] table, in the table's [S] unit. */
+function kmFor(km: Concentration, table: RateTable): number {
+  try {
+    return atSubstrateFor(km, table);
+  } catch (e) {
+    if (e instanceof UsageError) throw new UsageError(e.message.replace('option --at-substrate', 'option --km'));
+    throw e;
+  }
+}
+
+/** Writes results.json and summary.txt of a one-[S] analysis (no figures yet for this design). */
+function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): void {
+  writeFileAtomic(join(dir, 'results.json'), JSON.stringify(doseResponseJson(result), null, 2) + '\n');
+  writeFileAtomic(join(dir, 'summary.txt'), doseResponseText(result));
 }
 
 /** Picks the table(s) to analyse: the only one, the named compound, or all with --compound all. */
@@ -77,7 +100,8 @@ export function analyzeCommand(io: CliIo): Command {
     .argument('<file>', 'CSV or TSV rate table')
     .option('--json', 'print one JSON document instead of the text summary')
     .option('--out <dir>', 'write the results folder: report.html, figures/*.svg, results.json, parameters.csv, summary.txt')
-    .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)');
+    .option('--compound <name>', 'which compound of a multi-compound file ("all" for each)')
+    .option('--km <Km>', 'Km of the substrate with its unit (40uM), for the Ki each mechanism implies when the table has one [S] level (an IC50 curve)');
   addSharedOptions(cmd);
   cmd.action(async (file: string, o: AnalyzeCliOptions) => {
     const parse = parseOptionsFrom(o);
@@ -86,6 +110,23 @@ export function analyzeCommand(io: CliIo): Command {
     const input = await readInputOnce(path, parse);
     const tables = chooseTables(input.tables, o.compound, file);
     const at = atSubstrateOption(o);
+    const km = o.km === undefined ? undefined : concentrationOption('--km', o.km);
+    // One [S] level: an IC50 curve, fitted as a dose-response (src/analysis/single-substrate.ts)
+    const single = tables.filter(isSingleSubstrateTable);
+    if (single.length > 0) {
+      if (single.length !== tables.length)
+        throw new UsageError(`${file}: some compounds have one [S] level and some several; analyse them one at a time with --compound NAME`);
+      const doseResults = single.map((t) => {
+        const table = { ...t, source: file };
+        return analyzeSingleSubstrate(table, { level: analysis.level ?? 0.95, ...(km !== undefined ? { km: kmFor(km, table) } : {}) });
+      });
+      if (o.out) for (const r of doseResults) writeDoseResponseFiles(r, outputFolderFor(resolve(io.cwd, o.out), r.table, doseResults.length > 1));
+      if (o.json) {
+        const docs = doseResults.map(doseResponseJson);
+        io.out(JSON.stringify(docs.length === 1 ? docs[0] : docs, null, 2) + '\n');
+      } else io.out(doseResults.map(doseResponseText).join('\n'));
+      return;
+    }
     const results: AnalysisResult[] = tables.map((t) => {
       const table = { ...t, source: file };
       return analyzeTable(table, at === undefined ? analysis : { ...analysis, atSubstrate: atSubstrateFor(at, table) });
