@@ -121,7 +121,7 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   }
   lnKi.push(lnKi[0]);
   lnKiu.push(lnKiu[0]);
-  return { level, ki: lnKi.map(Math.exp), kiu: lnKiu.map(Math.exp), open };
+  return { level, ki: lnKi.map(Math.exp), kiu: lnKiu.map(Math.exp), open, box: { low: Math.exp(box.low), high: Math.exp(box.high) } };
 }
 
 /** Distance along `dir` from `from` to the edge of the square [low, high]^2. */

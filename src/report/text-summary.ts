@@ -3,6 +3,7 @@ import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
 import { describeTable } from '../input/describe-table.js';
+import { distinctAdvice } from './distinct-advice.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -100,9 +101,10 @@ export function textSummary(result: AnalysisResult): string {
   lines.push('');
   lines.push(`Verdict: ${v.headline} (${v.decisive ? 'decisive' : 'not decisive'})`);
   for (const r of v.reasons) lines.push(`  - ${r}`);
-  if (v.suggestions.length) {
+  const advice = distinctAdvice(v.suggestions, v.reasons);
+  if (advice.length) {
     lines.push('  To settle it:');
-    for (const s of v.suggestions) lines.push(`  * ${s}`);
+    for (const s of advice) lines.push(`  * ${s}`);
   }
   lines.push('');
   lines.push('Models, ranked by AICc:');

@@ -4,6 +4,7 @@ import { escapeHtml } from '../escape.js';
 import { sig, interval } from '../../format-number.js';
 import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';
+import { distinctAdvice } from '../../distinct-advice.js';
 
 const OUTCOME_LABEL: Record<string, string> = {
   decisive: 'firm call',
@@ -28,8 +29,9 @@ export function verdictSection(result: AnalysisResult): string {
     })
     .join('');
   const reasons = v.reasons.map((r) => `<li>${escapeHtml(r)}</li>`).join('');
-  const suggestions = v.suggestions.length
-    ? `<h3>What would settle it</h3><ul class="suggestions">${v.suggestions.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>`
+  const advice = distinctAdvice(v.suggestions, v.reasons);
+  const suggestions = advice.length
+    ? `<h3>What would settle it</h3><ul class="suggestions">${advice.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>`
     : '';
   return `<section id="verdict" class="verdict outcome-${escapeHtml(v.outcome)}">
 <p class="verdict-tag">${escapeHtml(OUTCOME_LABEL[v.outcome] ?? v.outcome)}</p>
