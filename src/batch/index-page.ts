@@ -33,6 +33,8 @@ interface PageColumn {
   unit?: keyof RunUnits;
   /** a class for the cells (and the heading), e.g. a wrapping text column */
   className?: string;
+  /** shown only when some row needs it (the IC50 of one-[S] compounds) */
+  onlyWhen?: (rows: readonly CompoundSummary[]) => boolean;
 }
 
 /** The units of the run: those of the first analysed compound (a batch converts all to one unit). */
@@ -117,6 +119,7 @@ const COLUMNS: PageColumn[] = [
   { heading: 'Ki', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.Ki, unitNote(r, u, 'inhibitor')) },
   { heading: 'Kiu', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.Kiu, unitNote(r, u, 'inhibitor')) },
   { heading: 'α', kind: 'number', cell: (r) => constantCell(r.alpha) },
+  { heading: 'IC50', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.IC50, unitNote(r, u, 'inhibitor')), onlyWhen: (rows) => rows.some((r) => r.IC50 !== null) },
   { heading: 'Km', kind: 'number', unit: 'substrate', cell: (r, u) => withUnitNote(number(r.Km), unitNote(r, u, 'substrate')) },
   { heading: 'Vmax', kind: 'number', unit: 'rate', cell: (r, u) => withUnitNote(number(r.Vmax), unitNote(r, u, 'rate')) },
   { heading: 'Rows used', kind: 'number', cell: rowsCell },
@@ -214,9 +217,9 @@ const SCRIPT = `
 
 const OUTCOME_CHOICES = ['decisive', 'mixed-lean', 'undecided', 'no-inhibition', 'failed'];
 
-function rowHtml(row: CompoundSummary, units: RunUnits): string {
+function rowHtml(row: CompoundSummary, units: RunUnits, columns: readonly PageColumn[]): string {
   const outcome = row.status === 'failed' ? 'failed' : (row.outcome ?? '');
-  const cells = COLUMNS.map((column) => {
+  const cells = columns.map((column) => {
     const c = column.cell(row, units);
     const attrs = [
       column.kind === 'number' ? ' class="num"' : column.className ? ` class="${column.className}"` : '',
@@ -236,7 +239,8 @@ export function indexPage(rows: readonly CompoundSummary[], context: IndexPageCo
     const unit = c.unit ? units[c.unit] : null;
     return `${escapeHtml(c.heading)}${unit ? ` <span class="unit">(${escapeHtml(unit)})</span>` : ''}`;
   };
-  const headings = COLUMNS.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${headingText(c)}<span class="arrow" aria-hidden="true"></span></button></th>`).join('');
+  const columns = COLUMNS.filter((c) => c.onlyWhen === undefined || c.onlyWhen(rows));
+  const headings = columns.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${headingText(c)}<span class="arrow" aria-hidden="true"></span></button></th>`).join('');
   const options = ['<option value="">all outcomes</option>', ...OUTCOME_CHOICES.map((o) => `<option value="${o}">${o}</option>`)].join('');
   return `<!doctype html>
 <html lang="en">
@@ -258,7 +262,7 @@ export function indexPage(rows: readonly CompoundSummary[], context: IndexPageCo
 <table id="compound-table">
 <thead><tr>${headings}</tr></thead>
 <tbody>
-${rows.map((r) => rowHtml(r, units)).join('\n')}
+${rows.map((r) => rowHtml(r, units, columns)).join('\n')}
 </tbody>
 </table>
 <p class="muted">Research use only: results support, and do not replace, expert judgement.</p>

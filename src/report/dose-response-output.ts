@@ -152,3 +152,11 @@ export function doseResponseText(result: SingleSubstrateResult): string {
   lines.push('Research use only: an IC50 depends on the assay [S]; compare compounds at the same [S], or as Ki under a stated mechanism.');
   return lines.join('\n') + '\n';
 }
+
+/** The files of a one-[S] result folder: results.json and summary.txt (no figures yet). */
+export function doseResponseFiles(result: SingleSubstrateResult): Array<[string, string]> {
+  return [
+    ['results.json', JSON.stringify(doseResponseJson(result), null, 2) + '\n'],
+    ['summary.txt', doseResponseText(result)],
+  ];
+}

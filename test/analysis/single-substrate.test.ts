@@ -105,3 +105,27 @@ describe('single-[S] tables', () => {
     expect(r.err).toMatch(/^mechanist: option --km: unknown concentration unit "kg"/);
   });
 });
+
+describe('single-[S] compounds in a batch', () => {
+  const root = mkdtempSync(join(tmpdir(), 'mechanist-ic50-batch-'));
+  writeFileSync(join(root, 'ic50.csv'), csvAt([50]));
+  writeFileSync(join(root, 'grid.csv'), csvAt([5, 10, 25, 50, 100, 200]));
+
+  it('get the dose-response IC50 in their row, no mechanism, and a headline saying one [S] cannot tell it', async () => {
+    const r = await cli(['batch', 'ic50.csv', 'grid.csv', '--out', 'out', '--reports', '--no-profile'], root);
+    expect(r.code).toBe(0);
+    const rows = JSON.parse(readFileSync(join(root, 'out', 'summary.json'), 'utf8')).compounds;
+    const alone = JSON.parse((await cli(['analyze', 'ic50.csv', '--json'], root)).out).doseResponse.ic50;
+    expect(rows[0].mechanism).toBeNull();
+    expect(rows[0].IC50.value).toBe(alone.value);
+    expect([rows[0].IC50.low, rows[0].IC50.high]).toEqual(alone.ci95);
+    expect(rows[0].headline).toMatch(/^One \[S\] level: IC50 [\d.]+ nM \(profile 95% \[[\d.]+, [\d.]+\]\); one \[S\] cannot tell the mechanism\.$/);
+    expect(rows[0].report).toBe('compounds/ic50/summary.txt');
+    expect(existsSync(join(root, 'out', 'compounds', 'ic50', 'results.json'))).toBe(true);
+    expect(rows[1].IC50).toBeNull();
+    expect(rows[1].mechanism).not.toBeNull();
+    const header = readFileSync(join(root, 'out', 'summary.csv'), 'utf8').split('\n')[0].split(',');
+    expect(header).toEqual(expect.arrayContaining(['ic50', 'ic50_ci95_low', 'ic50_ci95_high', 'ic50_interval', 'ic50_unit']));
+    expect(readFileSync(join(root, 'out', 'index.html'), 'utf8')).toContain('IC50 <span class="unit">(nM)</span>');
+  }, 60_000);
+});

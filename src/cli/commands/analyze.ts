@@ -15,7 +15,7 @@ import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.j
 import { safeName } from '../../report/safe-name.js';
 import { listNames } from '../../input/messages.js';
 import { analyzeSingleSubstrate, isSingleSubstrateTable, type SingleSubstrateResult } from '../../analysis/single-substrate.js';
-import { doseResponseJson, doseResponseText } from '../../report/dose-response-output.js';
+import { doseResponseFiles, doseResponseJson, doseResponseText } from '../../report/dose-response-output.js';
 import { writeFileAtomic } from '../../report/write-atomic.js';
 import { concentrationOption } from '../parse-option-values.js';
 import type { Concentration } from '../../input/units.js';
@@ -40,8 +40,7 @@ function kmFor(km: Concentration, table: RateTable): number {
 
 /** Writes results.json and summary.txt of a one-[S] analysis (no figures yet for this design). */
 function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): void {
-  writeFileAtomic(join(dir, 'results.json'), JSON.stringify(doseResponseJson(result), null, 2) + '\n');
-  writeFileAtomic(join(dir, 'summary.txt'), doseResponseText(result));
+  for (const [name, content] of doseResponseFiles(result)) writeFileAtomic(join(dir, name), content);
 }
 
 /** Picks the table(s) to analyse: the only one, the named compound, or all with --compound all. */
