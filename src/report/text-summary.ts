@@ -4,6 +4,7 @@ import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
 import { describeTable } from '../input/describe-table.js';
 import { distinctAdvice } from './distinct-advice.js';
+import { undetectedText } from './undetected-text.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -42,17 +43,6 @@ export function parameterLines(model: ModelResult, result: AnalysisResult): stri
       : '';
     return line + boot;
   });
-}
-
-/**
- * Why a constant has no value, with the unit on the bound it exceeds ("Ki > 400 nM: ..."): the
- * estimate's note carries the bound as a bare number, since the fit knows no units.
- */
-function undetectedText(e: ModelResult['estimates'][number], unit: string): string {
-  const note = e.note ?? 'not determined';
-  if (e.exceeds === undefined || !unit) return note;
-  const tail = note.includes(': ') ? note.slice(note.indexOf(': ')) : '';
-  return `${e.name} > ${sig(e.exceeds)} ${unit}${tail}`;
 }
 
 /** A profile interval; an open end is written as a one-sided bound, e.g. "Kiu > 40 uM". */

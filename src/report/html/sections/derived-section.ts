@@ -141,42 +141,42 @@ function unchanging(values: readonly (number | null)[]): boolean {
 }
 
 /**
- * One row per tested [I]; a column per apparent constant that changes with [I] (value, then each
- * interval computed), units in the headings. A constant the model leaves unchanged at every [I]
- * (Vmax_app of a competitive fit, Km_app of a noncompetitive one) is said in one sentence instead
- * of a column of equal numbers.
+ * One row per tested [I] and apparent constant that changes with [I] (its unit with its name, so no
+ * unit column of equal cells), the intervals computed in columns. A constant the model leaves
+ * unchanged at every [I] (Vmax_app of a competitive fit, Km_app of a noncompetitive one) is said in
+ * one sentence instead of rows of equal numbers.
  */
 function apparentTable(model: ModelResult, result: AnalysisResult, pct: number): string {
   const apparent = (model.derived ?? []).filter((q) => q.name === 'Vmax_app' || q.name === 'Km_app');
   if (apparent.length === 0) return '';
   const levels = [...new Set(apparent.map((q) => q.inhibitor!))].sort((a, b) => a - b);
-  const u = result.input.units;
-  const iu = displayUnit(u.inhibitor);
+  const iu = displayUnit(result.input.units.inhibitor);
   const names = (['Vmax_app', 'Km_app'] as const).filter((n) => apparent.some((q) => q.name === n));
   const of = (name: string, level: number) => apparent.find((q) => q.name === name && q.inhibitor === level) ?? null;
   const fixedNames = names.filter((n) => unchanging(levels.map((l) => of(n, l)?.value ?? null)));
-  const shown = names.filter((n) => !fixedNames.includes(n));
   const fixedText = fixedNames.map((n) => {
     const q = of(n, levels[0])!;
     const unit = displayUnit(q.unit);
     return `${n} = ${sig(q.value, 4)}${unit ? ' ' + unit : ''} at every [I]: the ${model.mechanism} model leaves it unchanged.`;
   });
-  const kinds = new Map(shown.map((n) => [n, intervalKinds(apparent.filter((q) => q.name === n), pct)]));
-  const headers: Cell[] = [cell(escapeHtml(iu ? `[I] (${iu})` : '[I]'), true)];
-  for (const n of shown) {
-    const unit = displayUnit(of(n, levels[0])?.unit ?? null);
-    headers.push(cell(escapeHtml(unit ? `${n} (${unit})` : n), true), ...kinds.get(n)!.map((k) => cell(escapeHtml(`${n} ${k.header}`), true)));
-  }
-  const rows = levels.map((level) => [
-    cell(escapeHtml(sig(level, 4)), true),
-    ...shown.flatMap((n) => {
-      const q = of(n, level);
-      const ks = kinds.get(n)!;
-      if (q === null || q.value === null) return [cell('not determined', false, 'undetected'), ...ks.map(() => cell('–', true))];
-      return [cell(escapeHtml(sig(q.value, 4)), true), ...intervalCells(q, ks, 4)];
-    }),
-  ]);
-  const table = shown.length ? htmlTable(headers, rows, 'data apparent') : '';
+  const shown = apparent.filter((q) => !fixedNames.includes(q.name as 'Vmax_app' | 'Km_app'));
+  // by [I], Vmax_app before Km_app
+  const order = [...shown].sort((a, b) => a.inhibitor! - b.inhibitor! || (a.name === 'Vmax_app' ? -1 : 1));
+  const kinds = intervalKinds(order, pct);
+  const rows = order.map((q, k) => {
+    const first = k === 0 || order[k - 1].inhibitor !== q.inhibitor;
+    const unit = displayUnit(q.unit);
+    return [
+      cell(first ? escapeHtml(sig(q.inhibitor, 4)) : '', true),
+      cell(escapeHtml(unit ? `${q.name} (${unit})` : q.name)),
+      ...(q.value === null
+        ? [cell('not determined', false, 'undetected'), ...kinds.map(() => cell('–', true))]
+        : [cell(escapeHtml(sig(q.value, 4)), true), ...intervalCells(q, kinds, 4)]),
+    ];
+  });
+  const table = order.length
+    ? htmlTable([cell(escapeHtml(iu ? `[I] (${iu})` : '[I]'), true), cell('quantity'), cell('value', true), ...kinds.map((k) => cell(escapeHtml(k.header), true))], rows, 'data apparent')
+    : '';
   return `<h3>Apparent constants at each tested [I]</h3>
 <p>${escapeHtml(`The Michaelis-Menten constants of the ${model.mechanism} curve at each [I]: Vmax_app = Vmax / (1 + [I]/Kiu), Km_app = Km (1 + [I]/Ki) / (1 + [I]/Kiu), with an absent arm at infinity (Segel 1975).${fixedText.length ? ' ' + fixedText.join(' ') : ''}`)}</p>
 ${table}`;

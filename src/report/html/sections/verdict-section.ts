@@ -5,6 +5,7 @@ import { sig, interval } from '../../format-number.js';
 import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { distinctAdvice } from '../../distinct-advice.js';
+import { undetectedText } from '../../undetected-text.js';
 
 const OUTCOME_LABEL: Record<string, string> = {
   decisive: 'firm call',
@@ -21,7 +22,7 @@ export function verdictSection(result: AnalysisResult): string {
     .filter((e) => e.name !== 'Vmax')
     .map((e) => {
       const unit = parameterUnit(e.name, result);
-      if (!e.detected || e.value === null) return `<li><span class="key-name">${escapeHtml(e.name)}</span> <span class="key-note">${escapeHtml(e.note ?? 'not determined')}</span></li>`;
+      if (!e.detected || e.value === null) return `<li><span class="key-name">${escapeHtml(e.name)}</span> <span class="key-note">${escapeHtml(undetectedText(e, unit))}</span></li>`;
       const best = e.profile ?? e.wald;
       const kind = e.profile ? 'profile' : 'Wald';
       const range = best ? ` <span class="key-range">${pct}% ${kind} ${escapeHtml(interval(best[0], best[1], 3))}</span>` : '';
