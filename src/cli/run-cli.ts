@@ -4,7 +4,6 @@
  */
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../input/types.js';
-import { AnalysisError } from '../analysis/analyze-table.js';
 import { TOOL_VERSION } from '../version.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_OK, UsageError } from './exit-codes.js';
 import type { CliIo } from './io.js';
@@ -72,6 +71,14 @@ function oneLine(s: string): string {
   return s.replace(/\s*\n\s*/g, ' ').trim();
 }
 
+/**
+ * An AnalysisError (src/analysis/analyze-table.ts), told by its name and exit code rather than by
+ * instanceof, so that the CLI does not load the analysis code at start-up just to recognise it.
+ */
+function isAnalysisError(e: unknown): e is Error {
+  return e instanceof Error && e.name === 'AnalysisError' && (e as { exitCode?: unknown }).exitCode === EXIT_ANALYSIS_FAILED;
+}
+
 export function reportFailure(e: unknown, io: CliIo): number {
   if (e instanceof CommanderError) {
     // help and version end in a CommanderError with exit code 0; commander already printed usage errors
@@ -82,7 +89,7 @@ export function reportFailure(e: unknown, io: CliIo): number {
     io.err(`mechanist: ${oneLine(e.message)}\n`);
     return EXIT_BAD_INPUT;
   }
-  if (e instanceof AnalysisError) {
+  if (isAnalysisError(e)) {
     io.err(`mechanist: analysis not completed: ${oneLine(e.message)}\n`);
     return EXIT_ANALYSIS_FAILED;
   }

@@ -42,6 +42,9 @@ describe('the figure code is loaded only when figures are drawn', () => {
       expect(packages.get('d3')).toBeUndefined();
     });
   }
+  it('src/cli/main.ts loads only commander at start-up: the analysis and its statistics library come with the command that needs them', () => {
+    expect([...staticPackages('src/cli/main.ts').keys()]).toEqual(['commander']);
+  });
   it('the walk does find d3 and jsdom from the figure code (the check can fail)', () => {
     const packages = staticPackages('src/cli/write-results.ts');
     expect(packages.has('d3')).toBe(true);

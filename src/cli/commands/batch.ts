@@ -6,7 +6,6 @@
 import { Command } from 'commander';
 import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
-import { runBatch } from '../../batch/run-batch.js';
 import { progressBar, type ProgressBar } from '../progress-bar.js';
 import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
@@ -40,6 +39,8 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
     // the shared bar draws on stderr when it is a terminal; --quiet (and a non-terminal io) turn it off
     const bar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('batch') : null;
+    // the batch and analysis code is loaded when the command runs, not at start-up (issue 13)
+    const { runBatch } = await import('../../batch/run-batch.js');
     const result = await runBatch(inputs, {
       out: o.out,
       reports: Boolean(o.reports),

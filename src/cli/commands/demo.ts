@@ -6,12 +6,8 @@
 import { Command } from 'commander';
 import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
-import { readRateFile } from '../../input/index.js';
-import { analyzeTable } from '../../analysis/analyze-table.js';
-import { textSummary } from '../../report/text-summary.js';
 import type { CliIo } from '../io.js';
 import { demoDataPath } from '../package-paths.js';
-import { sha256Hex } from '../../report/html/provenance.js';
 
 export const DEMO_SOURCE_NAME = 'data/demo/hlx-amidase-kt0417.csv';
 
@@ -20,6 +16,13 @@ export function demoCommand(io: CliIo): Command {
     .description('analyse the shipped demo dataset and write the results to reports/demo/')
     .option('--out <dir>', 'output folder', 'reports/demo')
     .action(async (o: { out: string }) => {
+      // loaded when the command runs, not at start-up (issue 13)
+      const [{ readRateFile }, { analyzeTable }, { textSummary }, { sha256Hex }] = await Promise.all([
+        import('../../input/index.js'),
+        import('../../analysis/analyze-table.js'),
+        import('../../report/text-summary.js'),
+        import('../../report/html/provenance.js'),
+      ]);
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
       const dir = resolve(io.cwd, o.out);
