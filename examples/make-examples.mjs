@@ -68,12 +68,12 @@ function matrixBlock(v, replicates) {
   const rows = SUBSTRATE_UM.map((S, s) => [S, ...INHIBITOR_NM.flatMap((_, i) => replicates.map((k) => v[s][i][k]))].join(','));
   return [header, ...rows].join('\n');
 }
-// matrix, replicates as repeated columns
-writeFileSync(join(here, 'matrix.csv'), matrixBlock(a, [0, 1]) + '\n');
-// matrix, replicates as repeated blocks
-writeFileSync(join(here, 'matrix-blocks.csv'), [matrixBlock(a, [0]), matrixBlock(a, [1])].join('\n\n') + '\n');
-// several compounds, one titled block per compound
+// matrix, one block per plate read (replicate 1, then replicate 2): the form shown in the README
+writeFileSync(join(here, 'matrix.csv'), [matrixBlock(a, [0]), matrixBlock(a, [1])].join('\n\n') + '\n');
+// matrix, replicates side by side as repeated [I] columns (also read)
+writeFileSync(join(here, 'matrix-side-by-side.csv'), matrixBlock(a, [0, 1]) + '\n');
+// several compounds: one titled block per compound and plate read
 writeFileSync(
   join(here, 'compounds-matrix.csv'),
-  Object.entries(data).map(([name, v]) => `compound,${name}\n${matrixBlock(v, [0, 1])}`).join('\n\n') + '\n',
+  Object.entries(data).flatMap(([name, v]) => [0, 1].map((k) => `compound,${name}\n${matrixBlock(v, [k])}`)).join('\n\n') + '\n',
 );

@@ -85,3 +85,13 @@ export {
 export { simulatePlate, apparentConstants, type PlateDesign, type SimulatedPlate } from './simulate/simulate-plate.js';
 export { readsReportHtml } from './report/html/reads-page.js';
 export * from './plan/index.js';
+// Single-[S] tables (IC50 curves): dose-response fits, IC50 intervals, Cheng-Prusoff Ki per mechanism (issue 13)
+export { isSingleSubstrateTable, substrateLevels, analyzeSingleSubstrate } from './analysis/single-substrate.js';
+export type { SingleSubstrateOptions, SingleSubstrateResult } from './analysis/single-substrate.js';
+export { fitDoseResponse, doseResponseRate, DOSE_RESPONSE_LABELS } from './fit/dose-response-fit.js';
+export type { DoseResponseFit, DoseResponseModel } from './fit/dose-response-fit.js';
+export { doseResponseEvidence, chengPrusoffKi } from './evidence/dose-response.js';
+export type { DoseResponseEvidence, DoseResponseModelResult, ImpliedKi, ChengPrusoffMechanism } from './evidence/dose-response.js';
+export { doseResponseJson, doseResponseText } from './report/dose-response-output.js';
+export { parseConcentration, concentrationIn } from './input/units.js';
+export type { Concentration } from './input/units.js';

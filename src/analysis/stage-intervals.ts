@@ -8,7 +8,7 @@
  * The ModelResults are completed in place; the bootstrap summary is returned.
  */
 import { MECHANISMS } from '../models/index.js';
-import { maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
 import { jointRegionKiKiu } from '../evidence/joint-region.js';
@@ -113,7 +113,7 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
       logCovariance: waldEstimates(model.fit, maxI, level).logCovariance,
       t: tQuantile(1 - (1 - level) / 2, model.fit.df),
     };
-    const derived = definitions.map((d) => derivedQuantity(model, d, profiles.get(model), run, level, maxI, waldBasis));
+    const derived = definitions.map((d) => derivedQuantity(model, d, profiles.get(model), run, level, maxI, waldBasis, units.inhibitor));
     model.derived = [
       ...derived,
       ...skipped.map((note): DerivedQuantity => ({ name: note.startsWith('pKiu') ? 'pKiu' : 'pKi', unit: null, value: null, se: null, wald: null, note })),
@@ -163,6 +163,7 @@ function derivedQuantity(
   level: number,
   maxI: number,
   wald: WaldBasis,
+  inhibitorUnit: string | null,
 ): DerivedQuantity {
   const fit = model.fit;
   const base: DerivedQuantity = {
@@ -187,7 +188,7 @@ function derivedQuantity(
   }
   const value = d.evaluate(fit.params);
   if (d.name === 'IC50' && !(value <= detectionBound(maxI))) {
-    base.note = `the IC50 lies beyond ${detectionBound(maxI)} (100 x the highest [I]): not reached in the tested range`;
+    base.note = `the IC50 lies beyond ${withUnit(String(detectionBound(maxI)), inhibitorUnit)} (100 x the highest [I]): not reached in the tested range`;
     return base;
   }
   base.value = value;

@@ -31,6 +31,11 @@ export interface JointRegion {
   kiu: number[];
   /** true when the contour leaves the searched box (the region is open on some side) */
   open: boolean;
+  /**
+   * the searched box, natural scale, the same for Ki and Kiu (src/evidence/profile-support.ts):
+   * outline points on its edge mark where the region leaves the searched range
+   */
+  box?: { low: number; high: number };
 }
 
 /** What a bootstrap run did, and how often each mechanism ranked first by AICc across resamples. */

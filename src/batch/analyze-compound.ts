@@ -8,7 +8,10 @@ import { analyzeTable, AnalysisError, type AnalysisOptions } from '../analysis/a
 import { modelFor } from '../models/index.js';
 import type { Mechanism } from '../models/types.js';
 import type { writeResultFiles } from '../cli/write-results.js';
-import { failedSummary, summarizeAnalysis } from './summarize.js';
+import { failedSummary, summarizeAnalysis, summarizeDoseResponse } from './summarize.js';
+import { analyzeSingleSubstrate, isSingleSubstrateTable } from '../analysis/single-substrate.js';
+import { doseResponseFiles } from '../report/dose-response-output.js';
+import { writeFileAtomic } from '../report/write-atomic.js';
 import type { CompoundJob, CompoundSummary } from './types.js';
 
 /** Sub-folder of the output folder that holds one report folder per compound. */
@@ -79,12 +82,43 @@ function reportLink(written: string[], root: string): string | null {
 }
 
 /**
+ * A compound with one [S] level (an IC50 curve): the dose-response fit `analyze` gives it, its
+ * results.json and summary.txt when reports are asked for, and its row.
+ */
+function doseResponseCompound(job: CompoundJob, identity: Parameters<typeof failedSummary>[0], settings: CompoundSettings): CompoundSummary {
+  const table = job.table!;
+  let result;
+  try {
+    result = analyzeSingleSubstrate(table, { level: settings.analysis.level ?? 0.95 });
+  } catch (error) {
+    return failedSummary(identity, failureText(error), table);
+  }
+  let report: string | null = null;
+  if (settings.reportRoot !== null) {
+    try {
+      const dir = join(settings.reportRoot, COMPOUNDS_FOLDER, job.folder);
+      const written = doseResponseFiles(result).map(([name, content]) => {
+        const path = join(dir, name);
+        writeFileAtomic(path, content);
+        return path;
+      });
+      report = reportLink(written, settings.reportRoot);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      return failedSummary(identity, `the report could not be written: ${oneLine(message)}`, table);
+    }
+  }
+  return summarizeDoseResponse(result, identity, report);
+}
+
+/**
  * Analyses one compound and returns its summary row (a failed row when anything goes wrong).
  * `writeReport` (see loadReportWriter) must be given when `settings.reportRoot` is set.
  */
 export function analyzeCompound(job: CompoundJob, settings: CompoundSettings, writeReport: ReportWriter | null = null): CompoundSummary {
   const identity = { position: job.position, compound: job.compound, nameInFile: job.nameInFile, source: job.source };
   if (job.table === null) return failedSummary(identity, job.readError ?? 'the file could not be read');
+  if (isSingleSubstrateTable(job.table)) return doseResponseCompound(job, identity, settings);
   let result;
   try {
     // Without reports, only what the summary row needs (the verdict and the named mechanism's

@@ -28,7 +28,35 @@ interface PageCell {
 interface PageColumn {
   heading: string;
   kind: 'number' | 'text';
-  cell: (row: CompoundSummary) => PageCell;
+  cell: (row: CompoundSummary, units: RunUnits) => PageCell;
+  /** which of the run's units the heading carries, e.g. "Ki (nM)" */
+  unit?: keyof RunUnits;
+  /** a class for the cells (and the heading), e.g. a wrapping text column */
+  className?: string;
+  /** shown only when some row needs it (the IC50 of one-[S] compounds) */
+  onlyWhen?: (rows: readonly CompoundSummary[]) => boolean;
+}
+
+/** The units of the run: those of the first analysed compound (a batch converts all to one unit). */
+type RunUnits = CompoundSummary['units'];
+
+function runUnits(rows: readonly CompoundSummary[]): RunUnits {
+  const pick = (axis: keyof RunUnits) => rows.find((r) => r.status === 'analysed' && r.units[axis] !== null)?.units[axis] ?? null;
+  return { substrate: pick('substrate'), inhibitor: pick('inhibitor'), rate: pick('rate') };
+}
+
+/** ` nM` after a value whose unit differs from the heading's (a compound whose unit is not known). */
+function unitNote(row: CompoundSummary, units: RunUnits, axis: keyof RunUnits): string {
+  const own = row.units[axis];
+  if (own === units[axis]) return '';
+  return own === null ? ' <span class="muted">(unit not known)</span>' : ` ${escapeHtml(own)}`;
+}
+
+/** The last part of a path: the page stays narrow; the whole path is in the cell's title. */
+function fileCell(source: string): PageCell {
+  const parts = source.split(/[\\/]/).filter((p) => p !== '');
+  const short = parts.length > 1 ? `…/${parts[parts.length - 1]}` : source;
+  return { html: escapeHtml(short), sort: source, ...(short !== source ? { title: source } : {}) };
 }
 
 function text(value: string | null): PageCell {
@@ -39,15 +67,19 @@ function number(value: number | null, digits = 4): PageCell {
   return value === null ? { html: '', sort: null } : { html: sig(value, digits), sort: value };
 }
 
-function constantCell(c: ConstantSummary | null): PageCell {
+function constantCell(c: ConstantSummary | null, unit = ''): PageCell {
   if (c === null) return { html: '', sort: null };
   if (c.interval === 'not-detected') {
     return c.low === null
       ? { html: 'not detected', sort: null, title: 'not detected in the tested range' }
-      : { html: `&gt; ${sig(c.low, 3)}`, sort: c.low, title: 'not detected: above the detection bound' };
+      : { html: `&gt; ${sig(c.low, 3)}${unit}`, sort: c.low, title: 'not detected: above the detection bound' };
   }
   const range = c.interval === 'unavailable' ? ' <span class="muted">(no interval)</span>' : ` <span class="ci">${interval(c.low, c.high)}</span>`;
-  return { html: `${sig(c.value)}${range}`, sort: c.value, title: `${c.interval} interval` };
+  return { html: `${sig(c.value)}${unit}${range}`, sort: c.value, title: `${c.interval} interval` };
+}
+
+function withUnitNote(cell: PageCell, note: string): PageCell {
+  return note === '' || cell.html === '' ? cell : { ...cell, html: cell.html + note };
 }
 
 function compoundCell(row: CompoundSummary): PageCell {
@@ -61,6 +93,13 @@ function outcomeCell(row: CompoundSummary): PageCell {
   return { html: `<span class="tag tag-${escapeHtml(label)}">${escapeHtml(label)}</span>`, sort: label, ...(row.headline ? { title: row.headline } : {}) };
 }
 
+/** Rows used, with the excluded count after it: "118 (4 excl.)". */
+function rowsCell(row: CompoundSummary): PageCell {
+  if (row.rowsUsed === null) return { html: '', sort: null };
+  const excluded = row.rowsExcluded ? ` <span class="muted excl">(${row.rowsExcluded} excl.)</span>` : '';
+  return { html: `${row.rowsUsed}${excluded}`, sort: row.rowsUsed, title: `${row.rowsUsed} points used, ${row.rowsExcluded ?? 0} rows or cells excluded` };
+}
+
 function flagsCell(row: CompoundSummary): PageCell {
   if (row.flags.length === 0) return { html: '0', sort: 0 };
   const list = row.flags.map((f) => `<li>${escapeHtml(f)}</li>`).join('');
@@ -70,37 +109,41 @@ function flagsCell(row: CompoundSummary): PageCell {
 const COLUMNS: PageColumn[] = [
   { heading: '#', kind: 'number', cell: (r) => number(r.position, 10) },
   { heading: 'Compound', kind: 'text', cell: compoundCell },
-  { heading: 'File', kind: 'text', cell: (r) => text(r.source) },
+  { heading: 'File', kind: 'text', cell: (r) => fileCell(r.source) },
   { heading: 'Outcome', kind: 'text', cell: outcomeCell },
   { heading: 'Mechanism', kind: 'text', cell: (r) => text(r.mechanism === null ? null : r.lean ? `${r.mechanism} (leans ${r.lean})` : r.mechanism) },
-  { heading: 'Decisive', kind: 'text', cell: (r) => text(r.decisive === null ? null : r.decisive ? 'yes' : 'no') },
+  { heading: 'Headline', kind: 'text', cell: (r) => text(r.error ?? r.headline), className: 'wrap' },
   { heading: 'Top model', kind: 'text', cell: (r) => text(r.topModel) },
   { heading: 'Akaike weight', kind: 'number', cell: (r) => number(r.topWeight, 3) },
   { heading: 'ΔAICc to 2nd', kind: 'number', cell: (r) => number(r.gapToSecond, 3) },
-  { heading: 'Ki', kind: 'number', cell: (r) => constantCell(r.Ki) },
-  { heading: 'Kiu', kind: 'number', cell: (r) => constantCell(r.Kiu) },
+  { heading: 'Ki', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.Ki, unitNote(r, u, 'inhibitor')) },
+  { heading: 'Kiu', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.Kiu, unitNote(r, u, 'inhibitor')) },
   { heading: 'α', kind: 'number', cell: (r) => constantCell(r.alpha) },
-  { heading: 'Km', kind: 'number', cell: (r) => number(r.Km) },
-  { heading: 'Vmax', kind: 'number', cell: (r) => number(r.Vmax) },
-  { heading: 'Rows used', kind: 'number', cell: (r) => number(r.rowsUsed, 10) },
-  { heading: 'Excluded', kind: 'number', cell: (r) => number(r.rowsExcluded, 10) },
+  { heading: 'IC50', kind: 'number', unit: 'inhibitor', cell: (r, u) => constantCell(r.IC50, unitNote(r, u, 'inhibitor')), onlyWhen: (rows) => rows.some((r) => r.IC50 !== null) },
+  { heading: 'Km', kind: 'number', unit: 'substrate', cell: (r, u) => withUnitNote(number(r.Km), unitNote(r, u, 'substrate')) },
+  { heading: 'Vmax', kind: 'number', unit: 'rate', cell: (r, u) => withUnitNote(number(r.Vmax), unitNote(r, u, 'rate')) },
+  { heading: 'Rows used', kind: 'number', cell: rowsCell },
   { heading: 'Flags', kind: 'number', cell: flagsCell },
-  { heading: 'Error', kind: 'text', cell: (r) => text(r.error) },
 ];
 
 const STYLE = `
-body{font:14px/1.4 system-ui,sans-serif;margin:1.5rem;color:#1d2327}
+body{font:14px/1.4 system-ui,sans-serif;margin:1rem;color:#1d2327}
 h1{font-size:1.3rem;margin:0 0 .3rem}
 .meta,.muted{color:#5f6b73}
 .controls{display:flex;gap:1rem;flex-wrap:wrap;align-items:center;margin:1rem 0}
 table{border-collapse:collapse;width:100%}
-th,td{border-bottom:1px solid #dde3e7;padding:.3rem .45rem;text-align:left;vertical-align:top}
+th,td{border-bottom:1px solid #dde3e7;padding:.3rem .3rem;text-align:left;vertical-align:top}
 th button{font:inherit;font-weight:600;background:none;border:0;padding:0;cursor:pointer;color:inherit;width:100%;text-align:inherit}
 th[aria-sort=ascending] .arrow::after{content:" ▲"}
 th[aria-sort=descending] .arrow::after{content:" ▼"}
 td.num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}
+td{overflow-wrap:anywhere}
+td.wrap{min-width:9rem;max-width:20rem;overflow-wrap:normal}
+td.num .ci,td.num .excl{display:block;font-size:12px}
+th .unit{font-weight:400;color:#5f6b73}
+body{max-width:100%}table{table-layout:auto;font-size:13px}
 .ci{color:#5f6b73}
-.tag{padding:0 .35rem;border-radius:.25rem;background:#eef1f3}
+.tag{padding:0 .35rem;border-radius:.25rem;background:#eef1f3;white-space:nowrap}
 .tag-decisive{background:#d9f0df}.tag-mixed-lean{background:#e3ecfa}
 .tag-undecided{background:#fbf0d2}.tag-failed{background:#f7d9d9}
 details ul{margin:.2rem 0 0 1rem;padding:0}
@@ -174,12 +217,12 @@ const SCRIPT = `
 
 const OUTCOME_CHOICES = ['decisive', 'mixed-lean', 'undecided', 'no-inhibition', 'failed'];
 
-function rowHtml(row: CompoundSummary): string {
+function rowHtml(row: CompoundSummary, units: RunUnits, columns: readonly PageColumn[]): string {
   const outcome = row.status === 'failed' ? 'failed' : (row.outcome ?? '');
-  const cells = COLUMNS.map((column) => {
-    const c = column.cell(row);
+  const cells = columns.map((column) => {
+    const c = column.cell(row, units);
     const attrs = [
-      column.kind === 'number' ? ' class="num"' : '',
+      column.kind === 'number' ? ' class="num"' : column.className ? ` class="${column.className}"` : '',
       c.sort === null ? '' : ` data-sort="${escapeHtml(String(c.sort))}"`,
       c.title ? ` title="${escapeHtml(c.title)}"` : '',
     ].join('');
@@ -191,7 +234,13 @@ function rowHtml(row: CompoundSummary): string {
 export function indexPage(rows: readonly CompoundSummary[], context: IndexPageContext): string {
   const counts = summaryCounts(rows);
   const s = context.settings;
-  const headings = COLUMNS.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${escapeHtml(c.heading)}<span class="arrow" aria-hidden="true"></span></button></th>`).join('');
+  const units = runUnits(rows);
+  const headingText = (c: PageColumn) => {
+    const unit = c.unit ? units[c.unit] : null;
+    return `${escapeHtml(c.heading)}${unit ? ` <span class="unit">(${escapeHtml(unit)})</span>` : ''}`;
+  };
+  const columns = COLUMNS.filter((c) => c.onlyWhen === undefined || c.onlyWhen(rows));
+  const headings = columns.map((c) => `<th scope="col" data-kind="${c.kind}"><button type="button">${headingText(c)}<span class="arrow" aria-hidden="true"></span></button></th>`).join('');
   const options = ['<option value="">all outcomes</option>', ...OUTCOME_CHOICES.map((o) => `<option value="${o}">${o}</option>`)].join('');
   return `<!doctype html>
 <html lang="en">
@@ -204,7 +253,7 @@ export function indexPage(rows: readonly CompoundSummary[], context: IndexPageCo
 <body>
 <h1>Batch of ${counts.compounds} compounds</h1>
 <p class="meta">${counts.analysed} analysed, ${counts.failed} failed · error model ${escapeHtml(s.errorModel)} · intervals at ${sig(s.level * 100, 4)}% · ${escapeHtml(TOOL_NAME)} ${escapeHtml(TOOL_VERSION)} · finished ${escapeHtml(context.finishedAt.toISOString())}</p>
-<p class="meta">Constants are those of the called mechanism, with profile-likelihood intervals where computed, else Wald; "&gt; x" marks a constant past the detection bound x. Click a column heading to sort; click again to reverse. The same table is in summary.csv and summary.json.</p>
+<p class="meta">Constants are those of the called mechanism, in the units of the headings (every compound converted to them), with profile-likelihood intervals where computed, else Wald; "&gt; x" marks a constant not detected: it lies past the detection bound x. Click a column heading to sort; click again to reverse. The same table is in summary.csv and summary.json.</p>
 <div class="controls">
 <label>Search <input id="search" type="search" placeholder="compound, file, mechanism…"></label>
 <label>Outcome <select id="outcome">${options}</select></label>
@@ -213,7 +262,7 @@ export function indexPage(rows: readonly CompoundSummary[], context: IndexPageCo
 <table id="compound-table">
 <thead><tr>${headings}</tr></thead>
 <tbody>
-${rows.map(rowHtml).join('\n')}
+${rows.map((r) => rowHtml(r, units, columns)).join('\n')}
 </tbody>
 </table>
 <p class="muted">Research use only: results support, and do not replace, expert judgement.</p>

@@ -29,6 +29,8 @@ import { toPortableOptions, type PortableAnalysisOptions } from './analyze-compo
 import { runCompoundJobs } from './worker-pool.js';
 import { summaryCounts, summaryCsv, summaryJson, type BatchSettings } from './summary-files.js';
 import { indexPage } from './index-page.js';
+import { harmoniseUnits } from './harmonise-units.js';
+import { concentrationIn, type Concentration } from '../input/units.js';
 import type { CompoundSummary } from './types.js';
 
 /** Names of the files written at the top of the output folder. */
@@ -59,6 +61,11 @@ export interface BatchOptions {
   command?: string;
   /** aborting stops the run: workers end, this run's temporary files go, the lock is released, and runBatch rejects with InterruptedError */
   signal?: AbortSignal;
+  /**
+   * the [S] of the IC50 with its unit (`analysis.atSubstrate` is a bare number in the tables'
+   * unit); converted to the run's [S] unit once the tables are read
+   */
+  atSubstrate?: Concentration;
 }
 
 export interface BatchResult {
@@ -138,9 +145,18 @@ async function runLocked(
   options: BatchOptions,
 ): Promise<BatchResult> {
   const jobs = await planCompounds(files, options.parse ?? {}, options.onRead);
+  const harmonised = harmoniseUnits(jobs);
+  notes.push(...harmonised.notes);
   options.onPlan?.(jobs.length);
-  const portable = toPortableOptions(options.analysis ?? {});
-  const settings = batchSettings(options, portable);
+  const analysisOptions = { ...(options.analysis ?? {}) };
+  if (options.atSubstrate !== undefined) {
+    const sUnit = harmonised.units.substrate;
+    if (options.atSubstrate.unit !== null && sUnit === null)
+      throw new InputError(`the inputs give no [S] unit to convert the IC50 [S] (${options.atSubstrate.value} ${options.atSubstrate.unit}) to; give --substrate-unit, or a plain number`, '');
+    analysisOptions.atSubstrate = sUnit === null ? options.atSubstrate.value : concentrationIn(options.atSubstrate, sUnit);
+  }
+  const portable = toPortableOptions(analysisOptions);
+  const settings = batchSettings({ ...options, analysis: analysisOptions }, portable);
   let done = 0;
   const { rows, threadsUsed, workerProblem } = await runCompoundJobs(jobs, {
     threads: options.jobs ?? availableParallelism(),

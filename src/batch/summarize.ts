@@ -11,6 +11,8 @@ import type { AnalysisResult } from '../analysis/types.js';
 import type { EstimateName, ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { RateTable } from '../input/types.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
+import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
+import { interval, sig } from '../report/format-number.js';
 
 /** Where the row of a compound sits and what it is called (set by the batch plan). */
 export interface RowIdentity {
@@ -78,6 +80,8 @@ export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<Row
     alpha: constant('alpha'),
     Km: finiteOrNull(estimate('Km')?.value),
     Vmax: finiteOrNull(estimate('Vmax')?.value),
+    IC50: null,
+    units: { substrate: result.input.units.substrate, inhibitor: result.input.units.inhibitor, rate: result.input.units.rate },
     rowsUsed: result.input.rowsUsed,
     rowsExcluded: result.input.excluded.length,
     flags: analysisFlags(result),
@@ -109,10 +113,37 @@ export function failedSummary(identity: RowIdentity, error: string, table?: Rate
     alpha: null,
     Km: null,
     Vmax: null,
+    IC50: null,
+    units: { substrate: table?.units.substrate ?? null, inhibitor: table?.units.inhibitor ?? null, rate: table?.units.rate ?? null },
     rowsUsed: table ? table.points.length : null,
     rowsExcluded: table ? table.excluded.length : null,
     flags: table ? table.warnings.map((w) => w.message) : [],
     error,
     report: null,
+  };
+}
+
+/**
+ * The row of a one-[S] compound (an IC50 curve): no mechanism is called, the IC50 of the preferred
+ * dose-response model fills `IC50` (profile interval when it has an end, else Wald), and the
+ * headline says that one [S] cannot tell the mechanism.
+ */
+export function summarizeDoseResponse(result: SingleSubstrateResult, identity: RowIdentity, report: string | null = null): CompoundSummary {
+  const e = result.evidence;
+  const chosen = e.models.find((m) => m.model === e.chosen)!;
+  const profiled = chosen.ic50.profile[0] !== null || chosen.ic50.profile[1] !== null;
+  const [low, high] = profiled ? chosen.ic50.profile : chosen.ic50.wald;
+  const unit = result.units.inhibitor ? ` ${result.units.inhibitor}` : '';
+  const pct = Math.round(result.level * 100);
+  const table = result.table;
+  return {
+    ...failedSummary(identity, '', table),
+    status: 'analysed',
+    error: null,
+    headline: `One [S] level: IC50 ${sig(chosen.ic50.value)}${unit} (${profiled ? 'profile' : 'Wald'} ${pct}% ${interval(low, high)}); one [S] cannot tell the mechanism.`,
+    topModel: null,
+    IC50: { value: finiteOrNull(chosen.ic50.value), low: finiteOrNull(low), high: finiteOrNull(high), interval: profiled ? 'profile' : 'wald' },
+    flags: [...table.warnings.map((w) => w.message), ...e.models.filter((m) => !m.converged).map((m) => `the ${m.label} fit did not converge`)],
+    report,
   };
 }

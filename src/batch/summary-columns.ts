@@ -15,17 +15,20 @@ export interface SummaryColumn {
   value: (row: CompoundSummary) => Cell;
 }
 
-type ConstantName = 'Ki' | 'Kiu' | 'alpha';
+type ConstantName = 'Ki' | 'Kiu' | 'alpha' | 'IC50';
 
 function constantColumns(name: ConstantName, level: number): SummaryColumn[] {
   const key = name.toLowerCase();
   const ci = levelKey('ci', level);
   const part = (row: CompoundSummary): ConstantSummary | null => row[name];
   return [
-    { name: key, meaning: `${name} of the called mechanism`, value: (r) => part(r)?.value ?? null },
+    { name: key, meaning: name === 'IC50' ? 'IC50 of a table with one [S] level (dose-response fit; blank for other tables)' : `${name} of the called mechanism`, value: (r) => part(r)?.value ?? null },
     { name: `${key}_${ci}_low`, meaning: `lower end of its interval (for a constant not detected: the detection bound it exceeds)`, value: (r) => part(r)?.low ?? null },
     { name: `${key}_${ci}_high`, meaning: `upper end of its interval (blank when open)`, value: (r) => part(r)?.high ?? null },
     { name: `${key}_interval`, meaning: 'profile, wald, not-detected or unavailable', value: (r) => part(r)?.interval ?? null },
+    ...(name === 'alpha'
+      ? []
+      : [{ name: `${key}_unit`, meaning: `unit of ${name} and its interval (the [I] unit of the run)`, value: (r: CompoundSummary) => r.units.inhibitor }]),
   ];
 }
 
@@ -50,7 +53,10 @@ export function summaryColumns(level: number): SummaryColumn[] {
     ...constantColumns('Kiu', level),
     ...constantColumns('alpha', level),
     { name: 'km', meaning: 'Km of the called mechanism', value: (r) => r.Km },
+    { name: 'km_unit', meaning: 'unit of Km (the [S] unit of the run)', value: (r) => r.units.substrate },
     { name: 'vmax', meaning: 'Vmax of the called mechanism', value: (r) => r.Vmax },
+    { name: 'vmax_unit', meaning: 'unit of Vmax (the rate unit of the file, as written)', value: (r) => r.units.rate },
+    ...constantColumns('IC50', level),
     { name: 'rows_used', meaning: 'points that entered the fit', value: (r) => r.rowsUsed },
     { name: 'rows_excluded', meaning: 'rows or cells kept out of the fit', value: (r) => r.rowsExcluded },
     { name: 'flag_count', meaning: 'number of flags', value: (r) => r.flags.length },

@@ -57,6 +57,13 @@ export interface CompoundSummary {
   alpha: ConstantSummary | null;
   Km: number | null;
   Vmax: number | null;
+  /**
+   * a table with one [S] level (an IC50 curve, src/analysis/single-substrate.ts): its IC50 from the
+   * dose-response fit, in the [I] unit; null for every other compound
+   */
+  IC50: ConstantSummary | null;
+  /** units of the constants: Km in the [S] unit, Ki and Kiu in the [I] unit, Vmax in the rate unit (null when not known) */
+  units: { substrate: string | null; inhibitor: string | null; rate: string | null };
   rowsUsed: number | null;
   rowsExcluded: number | null;
   /** input warnings and fits that did not converge, in plain words */

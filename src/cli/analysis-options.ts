@@ -6,7 +6,9 @@ import type { Command } from 'commander';
 import type { ParseOptions } from '../input/options.js';
 import type { AnalysisOptions } from '../analysis/analyze-table.js';
 import { availableParallelism } from 'node:os';
-import { errorModelOption, integerOption, numberOption, positiveNumber, unitOption } from './parse-option-values.js';
+import { concentrationOption, errorModelOption, integerOption, numberOption, unitOption } from './parse-option-values.js';
+import { concentrationIn, type Concentration } from '../input/units.js';
+import type { RateTable } from '../input/types.js';
 import { progressBar } from './progress-bar.js';
 import { UsageError } from './exit-codes.js';
 
@@ -44,7 +46,7 @@ export function addSharedOptions(cmd: Command): Command {
     .option('--bootstrap <n>', 'add a wild bootstrap with n resamples (percentile and BCa intervals, mechanism-selection frequencies)')
     .option('--seed <s>', 'seed of the bootstrap (same seed, same result)', '1')
     .option('--threads <t>', 'threads for the bootstrap (default: the available cores, at most 4)')
-    .option('--at-substrate <x>', 'report the IC50 at this [S] (Cheng-Prusoff, in the [S] unit of the report)')
+    .option('--at-substrate <x>', 'report the IC50 at this [S] (Cheng-Prusoff), with its unit (25uM; a plain number is in the [S] unit of the report)')
     .option('--no-profile', 'skip the profile-likelihood intervals (Wald only)');
 }
 
@@ -87,12 +89,15 @@ export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
 function intervalOptionsFrom(o: SharedCliOptions): AnalysisOptions {
   const out: AnalysisOptions = {};
   if (o.profile === false) out.profile = false;
-  if (o.atSubstrate !== undefined) out.atSubstrate = positiveNumber('--at-substrate', o.atSubstrate);
+  const at = atSubstrateOption(o);
+  if (at !== undefined && at.unit === null) out.atSubstrate = at.value;
+  // checked even without a bootstrap, so a typo is caught the first time, not when one is added
+  const seed = integerOption('--seed', o.seed ?? '1', 0);
   if (o.bootstrap !== undefined) {
     const threads = o.threads !== undefined ? integerOption('--threads', o.threads, 1) : Math.min(4, availableParallelism());
     out.bootstrap = {
       resamples: integerOption('--bootstrap', o.bootstrap, 1),
-      seed: integerOption('--seed', o.seed ?? '1', 0),
+      seed,
       workers: threads,
     };
     if (!o.json) {
@@ -101,4 +106,21 @@ function intervalOptionsFrom(o: SharedCliOptions): AnalysisOptions {
     }
   }
   return out;
+}
+
+/** --at-substrate as given: a number with its unit, or a plain number (unit null). */
+export function atSubstrateOption(o: SharedCliOptions): Concentration | undefined {
+  return o.atSubstrate === undefined ? undefined : concentrationOption('--at-substrate', o.atSubstrate);
+}
+
+/**
+ * The IC50 [S] of --at-substrate in the [S] unit of `table` (which the analysis works in); a plain
+ * number is used as it is. A unit given for a table whose [S] unit is unknown is a usage error.
+ */
+export function atSubstrateFor(at: Concentration, table: RateTable): number {
+  if (at.unit === null) return at.value;
+  const to = table.units.substrate;
+  if (to === null)
+    throw new UsageError(`option --at-substrate: ${table.source} gives no [S] unit to convert ${at.value} ${at.unit} to; give --substrate-unit, or a plain number`);
+  return concentrationIn(at, to);
 }

@@ -1,7 +1,7 @@
 /** Parsing of option values given on the command line, with one-line usage errors. */
 import { UsageError } from './exit-codes.js';
 import { ERROR_MODELS, type ErrorModel } from '../fit/error-models.js';
-import { parseConcentrationUnit } from '../input/units.js';
+import { parseConcentration, parseConcentrationUnit, type Concentration } from '../input/units.js';
 import type { ConcentrationUnit } from '../input/types.js';
 import { InputError } from '../input/types.js';
 
@@ -37,4 +37,17 @@ export function unitOption(name: string, text: string): ConcentrationUnit {
     if (e instanceof InputError) throw new UsageError(`option ${name}: ${e.message}`);
     throw e;
   }
+}
+
+/** A positive concentration with an optional unit (`25uM`, `25 uM`, `25`). */
+export function concentrationOption(name: string, text: string): Concentration {
+  let c: Concentration;
+  try {
+    c = parseConcentration(text);
+  } catch (e) {
+    if (e instanceof InputError) throw new UsageError(`option ${name}: ${e.message}`);
+    throw e;
+  }
+  if (!(c.value > 0)) throw new UsageError(`option ${name}: "${text}" is not a positive concentration`);
+  return c;
 }

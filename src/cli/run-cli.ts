@@ -4,7 +4,6 @@
  */
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../input/types.js';
-import { AnalysisError } from '../analysis/analyze-table.js';
 import { TOOL_VERSION } from '../version.js';
 import {
   EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_INTERRUPTED, EXIT_OK, EXIT_TERMINATED, EXIT_WRITE_FAILED, UsageError,
@@ -24,15 +23,33 @@ export interface CommandOutcome {
   exitCode: number;
 }
 
+/**
+ * Where commander writes, with its usage errors in the one style of every other error:
+ * `mechanist: what is wrong` on one line (commander's own "error: " prefix and its separate
+ * "(Did you mean ...?)" line folded in).
+ */
+function output(io: CliIo) {
+  return {
+    writeOut: (s: string) => io.out(s),
+    writeErr: (s: string) => io.err(s),
+    outputError: (s: string) => io.err(`mechanist: ${usageLine(s)}\n`),
+  };
+}
+
+export function usageLine(commanderText: string): string {
+  const text = oneLine(commanderText.replace(/^error:\s*/i, ''));
+  return text.replace(/\(Did you mean/g, '(did you mean');
+}
+
 function buildProgram(io: CliIo, outcome: CommandOutcome): Command {
   const program = new Command('mechanist')
     .description('Global fits of reversible enzyme-inhibition mechanisms, ranked, with honest intervals.')
     .version(TOOL_VERSION)
     .addHelpText('after', `\n${EXIT_CODE_HELP}\n\nResearch use only: results support, and do not replace, expert judgement.`)
     .showHelpAfterError(false)
-    .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+    .configureOutput(output(io));
   for (const cmd of [analyzeCommand(io), simulateCommand(io), demoCommand(io), batchCommand(io, outcome), ratesCommand(io), planCommand(io)]) {
-    cmd.configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) });
+    cmd.configureOutput(output(io));
     cmd.exitOverride();
     program.addCommand(cmd);
   }
@@ -60,6 +77,14 @@ function oneLine(s: string): string {
   return s.replace(/\s*\n\s*/g, ' ').trim();
 }
 
+/**
+ * An AnalysisError (src/analysis/analyze-table.ts), told by its name and exit code rather than by
+ * instanceof, so that the CLI does not load the analysis code at start-up just to recognise it.
+ */
+function isAnalysisError(e: unknown): e is Error {
+  return e instanceof Error && e.name === 'AnalysisError' && (e as { exitCode?: unknown }).exitCode === EXIT_ANALYSIS_FAILED;
+}
+
 export function reportFailure(e: unknown, io: CliIo): number {
   if (e instanceof CommanderError) {
     // help and version end in a CommanderError with exit code 0; commander already printed usage errors
@@ -79,7 +104,7 @@ export function reportFailure(e: unknown, io: CliIo): number {
     io.err(`mechanist: interrupted${signal ? ` (${signal})` : ''}; the summary was not written and temporary files were removed\n`);
     return signal === 'SIGTERM' ? EXIT_TERMINATED : EXIT_INTERRUPTED;
   }
-  if (e instanceof AnalysisError) {
+  if (isAnalysisError(e)) {
     io.err(`mechanist: analysis not completed: ${oneLine(e.message)}\n`);
     return EXIT_ANALYSIS_FAILED;
   }

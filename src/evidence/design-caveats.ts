@@ -9,7 +9,7 @@
  *  - a single non-zero [I]: the mechanism rests on one inhibited series (blocking);
  *  - highest [I] below the fitted inhibition constant: inhibition is weak over the whole range (warning).
  */
-import type { FitData } from '../fit/fit-data.js';
+import { withUnit, type FitData } from '../fit/fit-data.js';
 import type { Caveat } from './verdict.js';
 
 export interface FittedScale {
@@ -72,7 +72,7 @@ export function designCaveats(data: FitData, fitted: FittedScale): Caveat[] {
   if (fitted.K !== undefined && Number.isFinite(fitted.K) && imax < fitted.K) {
     out.push({
       code: 'inhibitor-below-k',
-      message: `the highest [I] (${fmt(imax)}) stays below the fitted inhibition constant (${fmt(fitted.K)}): inhibition is weak throughout`,
+      message: `the highest [I] (${withUnit(fmt(imax), data.units?.inhibitor)}) stays below the fitted inhibition constant (${withUnit(fmt(fitted.K), data.units?.inhibitor)}): inhibition is weak throughout`,
       blocking: false,
       suggestion: 'extend [I] to several times the inhibition constant',
     });

@@ -6,21 +6,23 @@
  * been missed.
  */
 import type { ModelResult } from '../analysis/types.js';
-import { maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
 import { sig } from '../report/format-number.js';
 
 export function noInhibitionReason(models: readonly ModelResult[], data: FitData): string {
   const imax = maxInhibitor(data);
+  // every concentration printed with its unit (issue 13): "highest [I] tested: 200 nM"
+  const c = (x: number) => withUnit(sig(x, 3), data.units?.inhibitor);
   const inhibited = models.find((m) => m.mechanism !== 'none' && m.p === 3);
   const est = inhibited?.estimates.find((e) => e.name === 'Ki' || e.name === 'Kiu');
-  if (!inhibited || !est) return `highest [I] tested: ${sig(imax, 3)}`;
+  if (!inhibited || !est) return `highest [I] tested: ${c(imax)}`;
   let lower: number | null = null;
   if (est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
   else if (est.detected && est.wald) lower = Math.max(est.wald[0], 0);
   else if (!est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
   else if (!est.detected && est.exceeds !== undefined)
-    return `highest [I] tested: ${sig(imax, 3)}; under ${inhibited.mechanism} the fitted ${est.name} runs past ${sig(est.exceeds, 3)} (100 x the highest [I])`;
+    return `highest [I] tested: ${c(imax)}; under ${inhibited.mechanism} the fitted ${est.name} runs past ${c(est.exceeds)} (100 x the highest [I])`;
   if (lower === null || !(lower > 0))
-    return `highest [I] tested: ${sig(imax, 3)}; the data do not bound the inhibition constant from below`;
-  return `highest [I] tested: ${sig(imax, 3)}, ${sig(imax / lower, 2)} x the smallest ${est.name} still compatible with the data under ${inhibited.mechanism} (${sig(lower, 3)})`;
+    return `highest [I] tested: ${c(imax)}; the data do not bound the inhibition constant from below`;
+  return `highest [I] tested: ${c(imax)}, ${sig(imax / lower, 2)} x the smallest ${est.name} still compatible with the data under ${inhibited.mechanism} (${c(lower)})`;
 }

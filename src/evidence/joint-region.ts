@@ -49,7 +49,9 @@ function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [
     residuals: (z, r) => full.residuals(fill(z), r),
     jacobian: (z, J) => {
       full.jacobian(fill(z), jFull);
-      for (let k = 0; k < n; k++) free.forEach((j, f) => (J[k * free.length + f] = jFull[k * m + j]));
+      // plain loops (no closure per row): this copy ran for every ray step and was a tenth of the analysis
+      const mFree = free.length;
+      for (let k = 0; k < n; k++) for (let f = 0; f < mFree; f++) J[k * mFree + f] = jFull[k * m + free[f]];
     },
   };
   return { problem, theta, free };
@@ -82,7 +84,8 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   const distanceAt = (dir: [number, number], t: number, warm: Float64Array): { d: number; z: Float64Array } => {
     fixed[0] = centre[0] + t * dir[0];
     fixed[1] = centre[1] + t * dir[1];
-    const r = levenbergMarquardt(problem, warm);
+    // only x and the SSE are used: no final Jacobian (x and the SSE are the same either way)
+    const r = levenbergMarquardt(problem, warm, { skipFinalJacobian: true });
     return { d: Math.sqrt(Math.max(0, r.sse - fit.sse) / s2), z: Float64Array.from(r.x) };
   };
 
@@ -121,7 +124,7 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   }
   lnKi.push(lnKi[0]);
   lnKiu.push(lnKiu[0]);
-  return { level, ki: lnKi.map(Math.exp), kiu: lnKiu.map(Math.exp), open };
+  return { level, ki: lnKi.map(Math.exp), kiu: lnKiu.map(Math.exp), open, box: { low: Math.exp(box.low), high: Math.exp(box.high) } };
 }
 
 /** Distance along `dir` from `from` to the edge of the square [low, high]^2. */

@@ -82,8 +82,19 @@ export function ticksOf(scale: NumericScale, spec: AxisSpec): number[] {
   return scale.ticks(spec.ticks ?? 5);
 }
 
-/** Powers of ten, with 2 and 5 between them when the axis spans less than three decades. */
+/**
+ * Powers of ten, with 2 and 5 between them when the axis spans less than three decades; an axis
+ * too narrow to hold two of those (less than a factor of about 2.5) gets plain linear ticks, so it
+ * is never left without labels.
+ */
 function logTicks(scale: NumericScale): number[] {
+  const found = logTicksOf(scale);
+  if (found.length >= 2) return found;
+  const [a, b] = scale.domain();
+  return d3.scaleLinear().domain([a, b]).ticks(4).filter((t) => t > 0);
+}
+
+function logTicksOf(scale: NumericScale): number[] {
   const [a, b] = scale.domain();
   const decades = Math.log10(b / a);
   const mult = decades < 1.2 ? [1, 2, 5] : decades < 3 ? [1, 3] : [1];

@@ -11,6 +11,7 @@ import { evidenceFigure } from './evidence-chart.js';
 import { lineFamilyReplotFigures } from './replot-figures.js';
 import { seriesReplotFigures } from './series-replots.js';
 import { uncertaintyFigures } from './uncertainty-figures.js';
+import { ic50ShiftFigure } from './ic50-shift-figure.js';
 
 export function renderFigures(result: AnalysisResult): FigureOutput[] {
   const ctx = figureContext(result);
@@ -19,6 +20,8 @@ export function renderFigures(result: AnalysisResult): FigureOutput[] {
     rateCurvesFigure(ctx, true),
     residualsBySubstrateFigure(ctx),
     residualsByFittedFigure(ctx),
+    // only for an IC50-shift design (2-3 [S] levels with full [I] series)
+    ...[ic50ShiftFigure(ctx)].filter((f): f is FigureOutput => f !== null),
     evidenceFigure(ctx),
     ...uncertaintyFigures(ctx),
     ...lineFamilyReplotFigures(ctx),

@@ -16,7 +16,6 @@ import { paddedExtent } from './axes.js';
 import { withUnit } from './axis-units.js';
 import { drawPolyline } from './model-lines.js';
 import { INK } from './palette.js';
-import { markerPath } from './markers.js';
 import { sig, interval } from '../report/format-number.js';
 
 const PROFILED = ['Ki', 'Kiu'] as const;
@@ -80,38 +79,84 @@ function profileFigure(ctx: FigureContext, model: ModelResult, curve: ProfileCur
   };
 }
 
+/** True when an outline point lies on the edge of the searched box (relative tolerance in the log). */
+function onBoxEdge(v: number, box: { low: number; high: number } | undefined): boolean {
+  if (!box) return false;
+  const near = (a: number, b: number) => Math.abs(Math.log(a) - Math.log(b)) < 1e-9;
+  return near(v, box.low) || near(v, box.high);
+}
+
+/**
+ * The outline split into runs: `edge` runs lie on the searched box (the region goes on beyond
+ * them: they are not part of the likelihood contour), the other runs are the contour itself.
+ */
+function outlineRuns(region: NonNullable<ModelResult['jointRegion']>): Array<{ edge: boolean; ki: number[]; kiu: number[] }> {
+  const runs: Array<{ edge: boolean; ki: number[]; kiu: number[] }> = [];
+  const n = region.ki.length;
+  for (let k = 0; k + 1 < n; k++) {
+    const a = onBoxEdge(region.ki[k], region.box) || onBoxEdge(region.kiu[k], region.box);
+    const b = onBoxEdge(region.ki[k + 1], region.box) || onBoxEdge(region.kiu[k + 1], region.box);
+    const edge = a && b;
+    const last = runs[runs.length - 1];
+    if (last && last.edge === edge) {
+      last.ki.push(region.ki[k + 1]);
+      last.kiu.push(region.kiu[k + 1]);
+    } else runs.push({ edge, ki: [region.ki[k], region.ki[k + 1]], kiu: [region.kiu[k], region.kiu[k + 1]] });
+  }
+  return runs;
+}
+
 function jointRegionFigure(ctx: FigureContext, model: ModelResult): FigureOutput | null {
   const region = model.jointRegion;
   if (!region || region.ki.length < 3) return null;
   const id = 'fig-joint-ki-kiu';
-  const title = `Joint ${Math.round(region.level * 100)}% region of Ki and Kiu (mixed)`;
+  const pct = Math.round(region.level * 100);
+  const title = `Joint ${pct}% region of Ki and Kiu (mixed)`;
   const ki = model.estimates.find((e) => e.name === 'Ki')?.value ?? null;
   const kiu = model.estimates.find((e) => e.name === 'Kiu')?.value ?? null;
   const xsAll = [...region.ki, ...(ki !== null ? [ki] : [])];
   const ysAll = [...region.kiu, ...(kiu !== null ? [kiu] : [])];
-  const log = Math.max(...xsAll) / Math.min(...xsAll) > 20 || Math.max(...ysAll) / Math.min(...ysAll) > 20;
   const unit = ctx.units.inhibitor;
-  const xDomain = paddedExtent(xsAll, 0.08, log);
-  const yDomain = paddedExtent(ysAll, 0.08, log);
+  // Ki and Kiu are ratios to a concentration: log axes, always, so a factor reads the same everywhere
+  const xDomain = paddedExtent(xsAll, 0.08, true);
+  const yDomain = paddedExtent(ysAll, 0.08, true);
+  const runs = outlineRuns(region);
+  const hasEdge = runs.some((r) => r.edge);
+  const lo = Math.max(xDomain[0], yDomain[0]);
+  const hi = Math.min(xDomain[1], yDomain[1]);
+  const drawsAlphaOne = hi > lo;
+  const drawsEstimate = ki !== null && kiu !== null;
   const notes = [
-    `Shaded: the likelihood region at ${Math.round(region.level * 100)}%${region.open ? ', open: it runs out of the searched range' : ''}. Dashed: Ki = Kiu (alpha = 1, noncompetitive); where the region crosses it, noncompetitive is not excluded.`,
+    `Shaded: the likelihood region at ${pct}%.`,
+    ...(hasEdge ? [`Dotted orange: the edge of the searched range${region.box ? ` (${sig(region.box.low, 2)} to ${sig(region.box.high, 2)}${unit ? ` ${unit}` : ''})` : ''}; the region goes on beyond it.`] : []),
+    ...(drawsAlphaOne ? ['Dashed: Ki = Kiu (alpha = 1, noncompetitive).'] : []),
+    ...(drawsEstimate ? ['Dot: the estimate.'] : []),
   ];
   const svg = renderXYFigure({
     id,
     title,
-    desc: `Joint confidence region of Ki and Kiu for the mixed model${ki !== null && kiu !== null ? `, estimate Ki = ${sig(ki, 3)}, Kiu = ${sig(kiu, 3)}` : ''}. ${notes[0]}`,
-    x: { title: withUnit('Ki', unit), domain: xDomain, kind: log ? 'log' : 'linear' },
-    y: { title: withUnit('Kiu', unit), domain: yDomain, kind: log ? 'log' : 'linear' },
-    notes,
+    desc: `Joint confidence region of Ki and Kiu for the mixed model${drawsEstimate ? `, estimate Ki = ${sig(ki, 3)}, Kiu = ${sig(kiu, 3)}` : ''}. ${notes.join(' ')}`,
+    x: { title: withUnit('Ki', unit), domain: xDomain, kind: 'log' },
+    y: { title: withUnit('Kiu', unit), domain: yDomain, kind: 'log' },
+    notes: [notes.join(' ')],
     plotHeight: 140,
     draw(g, x, y) {
       const pts = region.ki.map((v, k) => `${x(v).toFixed(2)},${y(region.kiu[k]).toFixed(2)}`).join(' ');
-      g.append('polygon').attr('class', 'region').attr('points', pts).attr('fill', INK.regionFill).attr('stroke', INK.accent).attr('stroke-width', 0.9);
-      const lo = Math.max(xDomain[0], yDomain[0]);
-      const hi = Math.min(xDomain[1], yDomain[1]);
-      if (hi > lo) drawPolyline(g, [lo, hi], [lo, hi], x, y, { colour: INK.reference, width: 0.7, dash: '3 2', className: 'alpha-one' });
-      if (ki !== null && kiu !== null) {
-        g.append('path').attr('class', 'estimate').attr('d', markerPath(5, 22)).attr('transform', `translate(${x(ki).toFixed(2)},${y(kiu).toFixed(2)})`).attr('fill', INK.text);
+      g.append('polygon').attr('class', 'region').attr('points', pts).attr('fill', INK.regionFill).attr('stroke', 'none');
+      for (const run of runs) {
+        drawPolyline(g, run.ki, run.kiu, x, y, run.edge
+          ? { colour: EDGE_COLOUR, width: 1.1, dash: '1 1.6', className: 'region-edge' }
+          : { colour: INK.accent, width: 0.9, className: 'region-contour' });
+      }
+      if (drawsAlphaOne) drawPolyline(g, [lo, hi], [lo, hi], x, y, { colour: INK.reference, width: 0.7, dash: '3 2', className: 'alpha-one' });
+      if (drawsEstimate) {
+        g.append('circle').attr('class', 'estimate').attr('cx', x(ki).toFixed(2)).attr('cy', y(kiu).toFixed(2)).attr('r', 2.2).attr('fill', INK.text);
+      }
+      if (hasEdge) {
+        const edge = runs.find((r) => r.edge)!;
+        const mid = Math.floor(edge.ki.length / 2);
+        g.append('text').attr('class', 'edge-label').attr('x', (x(edge.ki[mid]) + 3).toFixed(2)).attr('y', (y(edge.kiu[mid]) - 3).toFixed(2))
+          .attr('font-size', 8).attr('fill', EDGE_COLOUR).text('edge of searched range');
       }
     },
   });
@@ -120,10 +165,13 @@ function jointRegionFigure(ctx: FigureContext, model: ModelResult): FigureOutput
     file: 'joint-ki-kiu.svg',
     group: 'uncertainty',
     title,
-    caption: 'Ki and Kiu are estimated together, and their errors are correlated; the region shows which pairs the data allow at the stated level, the cross marks the estimate.',
+    caption: `The (Ki, Kiu) pairs the data allow at ${pct}%, on log axes.${hasEdge ? ' Where the outline is dotted the region is cut by the searched range, not closed by the data: the constant is not bounded on that side.' : ''}${drawsAlphaOne ? ' Where the region crosses the dashed line, noncompetitive (Ki = Kiu) is not excluded.' : ''}`,
     svg,
   };
 }
+
+/** The colour of the searched-range edge: apricot, the light end of the project's series path. */
+const EDGE_COLOUR = '#c8742c';
 
 export function uncertaintyFigures(ctx: FigureContext): FigureOutput[] {
   const out: FigureOutput[] = [];

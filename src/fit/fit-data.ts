@@ -10,6 +10,8 @@ export interface FitData {
   v: Float64Array;
   /** per-point SD from the file, when present for every point */
   sd?: Float64Array;
+  /** concentration units of s and i, when the table knows them (for messages only; never for the fit) */
+  units?: { substrate: string | null; inhibitor: string | null };
 }
 
 export function fitDataFromTable(table: RateTable): FitData {
@@ -25,7 +27,8 @@ export function fitDataFromTable(table: RateTable): FitData {
     if (sd && p.sd !== undefined && p.sd > 0) sd[k] = p.sd;
     else sd = undefined;
   });
-  return sd ? { s, i, v, sd } : { s, i, v };
+  const units = { substrate: table.units.substrate, inhibitor: table.units.inhibitor };
+  return sd ? { s, i, v, sd, units } : { s, i, v, units };
 }
 
 /** A FitData from plain arrays (library convenience). */
@@ -33,6 +36,11 @@ export function fitDataFromArrays(s: ArrayLike<number>, i: ArrayLike<number>, v:
   const data: FitData = { s: Float64Array.from(s), i: Float64Array.from(i), v: Float64Array.from(v) };
   if (sd) data.sd = Float64Array.from(sd);
   return data;
+}
+
+/** `200 nM`, or `200` when the unit is not known: a concentration as a message prints it. */
+export function withUnit(text: string, unit: string | null | undefined): string {
+  return unit ? `${text} ${unit}` : text;
 }
 
 /** The highest inhibitor concentration tested (0 for a table without inhibitor). */

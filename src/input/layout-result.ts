@@ -62,8 +62,12 @@ function problemReason(problem: CellProblem, cell: string, what: string, context
       return `${what} is blank`;
     case 'infinite':
       return `${what} is infinite (${quoteText(cell.trim())})`;
-    case 'text':
-      return `${what} ${quoteText(problem.text)} is not a number${decimalHint(problem.text, context)}`;
+    case 'text': {
+      const shown = quoteText(problem.text);
+      // quoteText describes a missing-value marker instead of quoting it: word the reason around that
+      if (!shown.startsWith('"')) return `${what} holds ${shown}, not a number`;
+      return `${what} ${shown} is not a number${decimalHint(problem.text, context)}`;
+    }
   }
 }
 

@@ -50,3 +50,9 @@ export function listLines(lines: number[]): string {
   const more = lines.length > 6 ? ` and ${lines.length - 6} more` : '';
   return `${lines.length === 1 ? 'line' : 'lines'} ${shown}${more}`;
 }
+
+/** Names quoted as given, at most `shown` of them, then `and N more`: "A, B, C and 1497 more". */
+export function listNames(names: readonly string[], shown = 5): string {
+  if (names.length <= shown) return names.join(', ');
+  return `${names.slice(0, shown).join(', ')} and ${names.length - shown} more`;
+}

@@ -1,6 +1,7 @@
 /** The "checks" block of the text summary: the main diagnostic flags of the winning model. */
 import type { AnalysisResult } from '../analysis/types.js';
 import { pPhrase, sig } from './format-number.js';
+import { pointsThatStandOut } from './standing-out.js';
 
 export function diagnosticLines(result: AnalysisResult): string[] {
   const mech = result.verdict.mechanism;
@@ -15,9 +16,13 @@ export function diagnosticLines(result: AnalysisResult): string[] {
     );
     lines.push(`  residual trend vs [S] ${pPhrase(d.trends.substrate.p)}, vs [I] ${pPhrase(d.trends.inhibitor.p)}, vs fitted ${pPhrase(d.trends.fitted.p)}`);
     if (d.normality) lines.push(`  normality of studentised residuals (Shapiro-Wilk): W = ${d.normality.W.toFixed(3)}, ${pPhrase(d.normality.p)}`);
-    for (const s of d.suspects) {
+    const u = result.input.units;
+    const withUnit = (x: number, unit: string | null) => (unit ? `${sig(x)} ${unit}` : sig(x));
+    const { suspects, leverageOnly } = pointsThatStandOut(d);
+    if (leverageOnly) lines.push(`  ${leverageOnly} high-leverage point${leverageOnly > 1 ? 's sit' : ' sits'} on the curve (a property of the design); not flagged`);
+    for (const s of suspects) {
       const line = result.table.points[s.index]?.line;
-      lines.push(`  ! suspect point, line ${line ?? '?'} ([S] ${sig(s.substrate)}, [I] ${sig(s.inhibitor)}, rate ${sig(s.rate)}): ${s.why}, studentised ${sig(s.studentised, 3)}, leverage ${sig(s.leverage, 2)}`);
+      lines.push(`  ! suspect point, line ${line ?? '?'} ([S] ${withUnit(s.substrate, u.substrate)}, [I] ${withUnit(s.inhibitor, u.inhibitor)}, rate ${withUnit(s.rate, u.rate)}): ${s.why}, studentised ${sig(s.studentised, 3)}, leverage ${sig(s.leverage, 2)}`);
     }
   }
   const em = result.errorModelCheck;

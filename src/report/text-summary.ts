@@ -3,6 +3,8 @@ import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
 import { describeTable } from '../input/describe-table.js';
+import { distinctAdvice } from './distinct-advice.js';
+import { undetectedText } from './undetected-text.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -33,7 +35,7 @@ export function parameterLines(model: ModelResult, result: AnalysisResult): stri
   return model.estimates.map((e) => {
     const unit = unitOf(e.name, result);
     const profile = e.profile ? profileText(e.name, e.profile, unit, pct) : '';
-    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${e.note ?? 'not determined'}${profile ? `; ${profile}` : ''}`;
+    if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${undetectedText(e, unit)}${profile ? `; ${profile}` : ''}`;
     const wald = e.wald ? `Wald ${pct} ${interval(e.wald[0], e.wald[1])}` : 'no interval';
     const line = `  ${pad(e.name, 6)}${padLeft(sig(e.value), 10)} ${pad(unit, 6)} SE ${pad(sig(e.se, 3), 9)} ${profile ? `${profile}  ` : ''}${wald}`;
     const boot = e.bootstrapPercentile
@@ -59,13 +61,14 @@ export function derivedLines(model: ModelResult, result: AnalysisResult): string
   const lines: string[] = [];
   for (const d of model.derived ?? []) {
     if (d.name !== 'pKi' && d.name !== 'pKiu' && d.name !== 'IC50') continue;
-    const label = d.name === 'IC50' ? `IC50 at [S] = ${sig(d.substrate)}` : d.name;
+    const sUnit = result.input.units.substrate;
+    const label = d.name === 'IC50' ? `IC50 at [S] = ${sig(d.substrate)}${sUnit ? ` ${sUnit}` : ''}` : d.name;
     if (d.value === null) {
-      lines.push(`  ${label}: ${d.note ?? 'not determined'}${d.profile ? `; ${profileText(d.name, d.profile, '', pct)}` : ''}`);
+      lines.push(`  ${label}: ${d.note ?? 'not determined'}${d.profile ? `; ${profileText(d.name, d.profile, d.unit ?? '', pct)}` : ''}`);
       continue;
     }
     const parts = [`${sig(d.value)}${d.unit ? ` ${d.unit}` : ''}`];
-    if (d.profile) parts.push(profileText(d.name, d.profile, '', pct));
+    if (d.profile) parts.push(profileText(d.name, d.profile, d.unit ?? '', pct));
     if (d.wald) parts.push(`Wald ${pct} ${interval(d.wald[0], d.wald[1])}`);
     if (d.bootstrapBca) parts.push(`BCa ${interval(d.bootstrapBca[0], d.bootstrapBca[1])}`);
     lines.push(`  ${label}: ${parts.join('  ')}`);
@@ -88,9 +91,10 @@ export function textSummary(result: AnalysisResult): string {
   lines.push('');
   lines.push(`Verdict: ${v.headline} (${v.decisive ? 'decisive' : 'not decisive'})`);
   for (const r of v.reasons) lines.push(`  - ${r}`);
-  if (v.suggestions.length) {
+  const advice = distinctAdvice(v.suggestions, v.reasons);
+  if (advice.length) {
     lines.push('  To settle it:');
-    for (const s of v.suggestions) lines.push(`  * ${s}`);
+    for (const s of advice) lines.push(`  * ${s}`);
   }
   lines.push('');
   lines.push('Models, ranked by AICc:');

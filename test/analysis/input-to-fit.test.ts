@@ -20,7 +20,7 @@ function params(r: ReturnType<typeof analyzeTable>) {
 describe('layouts give the same fits', () => {
   it('matrix (repeated columns), matrix (repeated blocks) and long layouts of the same plate', () => {
     const long = fitOf('long.csv');
-    for (const other of ['matrix.csv', 'matrix-blocks.csv', 'long.tsv', 'long-semicolon.csv']) {
+    for (const other of ['matrix.csv', 'matrix-side-by-side.csv', 'long.tsv', 'long-semicolon.csv']) {
       const r = fitOf(other);
       if (other === 'long.tsv') continue; // one row is flagged out in this file (see examples/README.md)
       expect(r.verdict.mechanism).toBe(long.verdict.mechanism);

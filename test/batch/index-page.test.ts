@@ -110,7 +110,7 @@ describe('batch index page in headless Chromium', () => {
   it('filters by outcome and by search text', async () => {
     await page.selectOption('#outcome', 'failed');
     expect(await column('Compound')).toEqual(['BAD']);
-    expect(await column('Error')).toEqual(['bad.csv:3:2: rate "x" is not a number']);
+    expect(await column('Headline')).toEqual(['bad.csv:3:2: rate "x" is not a number']);
     await page.selectOption('#outcome', 'decisive');
     expect(await column('Compound')).toEqual(['CPD-9', 'CPD-10', 'WEAK']);
     await page.fill('#search', 'cpd-1');
@@ -120,5 +120,51 @@ describe('batch index page in headless Chromium', () => {
     await page.fill('#search', '');
     expect(await column('Compound')).toHaveLength(6);
     expect(watch.problems).toEqual([]);
+  });
+});
+
+describe('batch index page at 1280 px with units, long paths and headlines (issue 13)', () => {
+  let browser: HeadlessBrowser;
+  let page: Page;
+  let dir: string;
+  const units = { substrate: 'uM', inhibitor: 'nM', rate: 'nM/s' };
+  const many: CompoundSummary[] = Array.from({ length: 20 }, (_, k) => ({
+    ...analysedRow(k + 1, `KT-${1000 + k}-hydroxy-variant`, k === 3 ? { value: null, low: 40000, high: null, interval: 'not-detected' } : wald(10 + k), 'decisive'),
+    source: `campaign-2026/plates/day-${k % 3}/reader-export-${k}-with-a-long-name.csv`,
+    headline: 'The data support mixed inhibition, leaning competitive.',
+    units: k === 5 ? { substrate: null, inhibitor: null, rate: null } : units,
+  }));
+
+  beforeAll(async () => {
+    dir = mkdtempSync(join(tmpdir(), 'mechanist-index-wide-'));
+    const file = join(dir, 'index.html');
+    writeFileSync(file, indexPage(many, { settings: { errorModel: 'constant', level: 0.95, reports: true, analysis: {} }, finishedAt: new Date(0) }));
+    browser = await launchChromium({ width: 1280, height: 900 });
+    page = await browser.context.newPage();
+    await page.goto(pathToFileURL(file).href);
+  });
+  afterAll(async () => {
+    await browser?.close();
+    if (dir) rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('fits the screen: no sideways scrolling at 1280 px', async () => {
+    const width = await page.evaluate(() => document.documentElement.scrollWidth);
+    expect(width).toBeLessThanOrEqual(1280);
+  });
+  it('headings carry the run units; a constant not detected reads "> bound unit"; paths are shortened, the whole path in the title', async () => {
+    const headings = await page.locator('th').allTextContents();
+    expect(headings).toContain('Ki (nM)');
+    expect(headings).toContain('Km (uM)');
+    expect(headings).toContain('Vmax (nM/s)');
+    expect(headings).toContain('Headline');
+    const row4 = page.locator('tbody tr').nth(3);
+    const cells = await row4.locator('td').allTextContents();
+    expect(cells).toContain('> 40000');
+    const file = row4.locator('td').nth(2);
+    expect(await file.textContent()).toBe('…/reader-export-3-with-a-long-name.csv');
+    expect(await file.getAttribute('title')).toBe('campaign-2026/plates/day-0/reader-export-3-with-a-long-name.csv');
+    // a compound whose unit is not known says so in the cell rather than passing for the heading's unit
+    expect(await page.locator('tbody tr').nth(5).textContent()).toContain('(unit not known)');
   });
 });

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/run-cli.js';
 import type { CliIo } from '../../src/cli/io.js';
-import { LARGE_FILE_BYTES } from '../../src/cli/commands/analyze.js';
+import { LARGE_FILE_BYTES } from '../../src/cli/commands/analyze-action.js';
 
 const ROOT = join(__dirname, '..', '..');
 

@@ -21,6 +21,16 @@ describe('exclusions', () => {
     expect(accounted(t)).toBe(true);
   });
 
+  it('a missing-value marker (NaN, undefined) is named as such, not quoted (issue 13); lower-case um and NM read', () => {
+    const [t] = readFixture('missing-marker-lowercase-units.csv', { requireMechanismDesign: false });
+    expect(t.units).toMatchObject({ substrate: 'uM', inhibitor: 'nM' });
+    expect(t.excluded).toMatchObject([
+      { line: 8, column: 3, reason: 'rate holds a missing-value marker, not a number' },
+      { line: 9, column: 3, reason: 'rate holds a missing-value marker, not a number' },
+    ]);
+    expect(accounted(t)).toBe(true);
+  });
+
   it('infinite values (written as Inf, infinity, or too large for a double)', () => {
     const [t] = readFixture('infinite-values.csv');
     expect(t.excluded).toMatchObject([

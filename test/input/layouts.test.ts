@@ -54,7 +54,7 @@ describe('matrix layout', () => {
     const long = sortedPoints(example('long.csv')[0]);
     expect(long).toHaveLength(60);
     expect(sortedPoints(example('matrix.csv')[0])).toEqual(long);
-    expect(sortedPoints(example('matrix-blocks.csv')[0])).toEqual(long);
+    expect(sortedPoints(example('matrix-side-by-side.csv')[0])).toEqual(long);
   });
 
   it('blocks must agree on units', () => {

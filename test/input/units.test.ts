@@ -13,8 +13,25 @@ describe('units', () => {
     );
   });
 
-  it('an unknown unit is an InputError naming it (case matters: MM is not mM)', () => {
-    for (const bad of ['MM', 'mg/mL', 'micromolar', '']) {
+  it('micro, nano and pico are read in any case (issue 13): no other unit could be meant', () => {
+    expect(['um', 'UM', 'Um', 'nm', 'NM', 'pm', 'PM', '\u00b5m', ' nm '].map((u) => parseConcentrationUnit(u))).toEqual(
+      ['uM', 'uM', 'uM', 'nM', 'nM', 'pM', 'pM', 'uM', 'nM'],
+    );
+  });
+
+  it('m and M stay strict: MM, mm, Mm and m are errors with a hint (issue 13)', () => {
+    for (const bad of ['MM', 'mm', 'Mm']) {
+      expect(inputErrorOf(() => parseConcentrationUnit(bad)).message).toBe(
+        `concentration unit "${bad}" is ambiguous; write mM for millimolar (m and M differ: m is milli, M is molar)`,
+      );
+    }
+    expect(inputErrorOf(() => parseConcentrationUnit('m')).message).toBe(
+      'concentration unit "m" is ambiguous; write M for molar or mM for millimolar (m and M differ: m is milli, M is molar)',
+    );
+  });
+
+  it('an unknown unit is an InputError naming it', () => {
+    for (const bad of ['mg/mL', 'micromolar', '']) {
       const error = inputErrorOf(() => parseConcentrationUnit(bad));
       expect(error).toBeInstanceOf(InputError);
       expect(error.message).toBe(`unknown concentration unit "${bad}"; use M, mM, uM (or \u00b5M), nM or pM`);

@@ -44,6 +44,12 @@ describe('committed demo report', () => {
     expect(stale, 'reports/demo is out of date: run "npm run build && node dist/cli/main.js demo"').toEqual([]);
   });
 
+  it('is byte-identical to a fresh run, date element included: running the README demo changes nothing (issue 13)', () => {
+    const differ = files(fresh).filter((path) => readFileSync(path, 'utf8') !== readFileSync(join(committed, relative(fresh, path)), 'utf8'));
+    expect(differ.map((p) => relative(fresh, p))).toEqual([]);
+    expect(readFileSync(join(committed, 'report.html'), 'utf8')).toContain('<time id="report-date">not recorded');
+  });
+
   it('carries exactly one date element', () => {
     const html = readFileSync(join(committed, 'report.html'), 'utf8');
     expect(html.match(DATE_ELEMENT_PATTERN)).toHaveLength(1);

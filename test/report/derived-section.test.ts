@@ -58,14 +58,18 @@ describe('derived quantities of a competitive fit', () => {
     expect(rows.some((r) => r[0].startsWith('pKiu') || r[0].startsWith('alpha'))).toBe(false);
   });
 
-  it('lists the apparent Vmax and Km at each inhibited level, Vmax / 1 and Km (1 + I/Ki)', () => {
+  it('lists Km_app = Km (1 + I/Ki) at each inhibited level, its unit with its name; Vmax_app, unchanged by a competitive inhibitor, in one sentence, not in rows (issue 13)', () => {
     const m = winner(result);
     const rows = rowsOf(section, 'apparent');
     const levels = [...new Set(result.table.points.map((p) => p.inhibitor))].filter((i) => i > 0);
-    expect(rows).toHaveLength(2 * levels.length);
-    const at8 = rows.findIndex((r) => r[0] === '8');
-    expect(rows[at8].slice(1, 3)).toEqual(['Vmax_app', sig(fitted(m, 'Vmax'), 4)]);
-    expect(rows[at8 + 1].slice(1, 3)).toEqual(['Km_app', sig(fitted(m, 'Km') * (1 + 8 / fitted(m, 'Ki')), 4)]);
+    expect(rows).toHaveLength(levels.length);
+    const at8 = rows.find((r) => r[0] === '8')!;
+    expect(at8.slice(1, 3)).toEqual(['Km_app (µM)', sig(fitted(m, 'Km') * (1 + 8 / fitted(m, 'Ki')), 4)]);
+    expect(rows.some((r) => r[1].startsWith('Vmax_app'))).toBe(false);
+    const headers = Array.from(section.querySelectorAll('table.apparent thead th')).map((th) => th.textContent ?? '');
+    expect(headers).not.toContain('unit');
+    expect(section.textContent).toContain(`Vmax_app = ${sig(fitted(m, 'Vmax'), 4)}`);
+    expect(section.textContent).toContain('at every [I]: the competitive model leaves it unchanged.');
   });
 
   it('has no bootstrap block when no bootstrap ran', () => {

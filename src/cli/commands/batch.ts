@@ -6,10 +6,8 @@
 import { Command } from 'commander';
 import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
-import { runBatch } from '../../batch/run-batch.js';
-import { InterruptedError } from '../../batch/worker-pool.js';
 import { progressBar, type ProgressBar } from '../progress-bar.js';
-import { addSharedOptions, analysisOptionsFrom, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
+import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption } from '../parse-option-values.js';
@@ -72,6 +70,8 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
       signalName = signal;
       interrupt.abort();
     });
+    // the batch and analysis code is loaded when the command runs, not at start-up (issue 13)
+    const [{ runBatch }, { InterruptedError }] = await Promise.all([import('../../batch/run-batch.js'), import('../../batch/worker-pool.js')]);
     const result = await runBatch(inputs, {
       signal: interrupt.signal,
       out: o.out,
@@ -82,6 +82,7 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
       cwd: io.cwd,
       onRead: (done, total) => readBar?.update(done, total),
       onPlan: () => readBar?.finish(),
+      ...(o.atSubstrate !== undefined ? { atSubstrate: atSubstrateOption(o)! } : {}),
       onCompound: (_row, done, total) => bar?.update(done, total),
     }).catch((error: unknown) => {
       if (error instanceof InterruptedError && signalName !== null) Object.assign(error, { signal: signalName });

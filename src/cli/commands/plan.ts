@@ -21,7 +21,7 @@ import { readFile } from 'node:fs/promises';
 import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
-import { chooseTables } from './analyze.js';
+import { chooseTables } from './analyze-action.js';
 import { wellsCurve } from '../../plan/wells-curve.js';
 
 /** Default simulations per design and true mechanism. */

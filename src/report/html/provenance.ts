@@ -14,8 +14,11 @@ export interface ReportProvenance {
   options?: Record<string, string>;
   /** seed of the random resampling, when one was used */
   seed?: number | null;
-  /** when the report was made; default: now */
-  generatedAt?: Date;
+  /**
+   * when the report was made; default: now. null leaves the date out (the demo report, which is
+   * committed and must come out byte-identical each time the README's demo is run)
+   */
+  generatedAt?: Date | null;
 }
 
 /** SHA-256 of the bytes, as lower-case hex (FIPS 180-4, via node:crypto). */

@@ -133,28 +133,53 @@ function scalarTable(model: ModelResult, result: AnalysisResult, pct: number): s
   );
 }
 
+/** True when every value is the same to 1e-12 relative (the model leaves it unchanged by [I]). */
+function unchanging(values: readonly (number | null)[]): boolean {
+  const xs = values.filter((v): v is number => v !== null);
+  if (xs.length !== values.length || xs.length === 0) return false;
+  return xs.every((v) => Math.abs(v - xs[0]) <= 1e-12 * Math.abs(xs[0]));
+}
+
+/**
+ * One row per tested [I] and apparent constant that changes with [I] (its unit with its name, so no
+ * unit column of equal cells), the intervals computed in columns. A constant the model leaves
+ * unchanged at every [I] (Vmax_app of a competitive fit, Km_app of a noncompetitive one) is said in
+ * one sentence instead of rows of equal numbers.
+ */
 function apparentTable(model: ModelResult, result: AnalysisResult, pct: number): string {
   const apparent = (model.derived ?? []).filter((q) => q.name === 'Vmax_app' || q.name === 'Km_app');
   if (apparent.length === 0) return '';
+  const levels = [...new Set(apparent.map((q) => q.inhibitor!))].sort((a, b) => a - b);
+  const iu = displayUnit(result.input.units.inhibitor);
+  const names = (['Vmax_app', 'Km_app'] as const).filter((n) => apparent.some((q) => q.name === n));
+  const of = (name: string, level: number) => apparent.find((q) => q.name === name && q.inhibitor === level) ?? null;
+  const fixedNames = names.filter((n) => unchanging(levels.map((l) => of(n, l)?.value ?? null)));
+  const fixedText = fixedNames.map((n) => {
+    const q = of(n, levels[0])!;
+    const unit = displayUnit(q.unit);
+    return `${n} = ${sig(q.value, 4)}${unit ? ' ' + unit : ''} at every [I]: the ${model.mechanism} model leaves it unchanged.`;
+  });
+  const shown = apparent.filter((q) => !fixedNames.includes(q.name as 'Vmax_app' | 'Km_app'));
   // by [I], Vmax_app before Km_app
-  const order = [...apparent].sort((a, b) => a.inhibitor! - b.inhibitor! || (a.name === 'Vmax_app' ? -1 : 1));
+  const order = [...shown].sort((a, b) => a.inhibitor! - b.inhibitor! || (a.name === 'Vmax_app' ? -1 : 1));
   const kinds = intervalKinds(order, pct);
-  const u = result.input.units;
-  const iu = displayUnit(u.inhibitor);
   const rows = order.map((q, k) => {
     const first = k === 0 || order[k - 1].inhibitor !== q.inhibitor;
-    const unit = escapeHtml(displayUnit(q.unit) ?? '');
+    const unit = displayUnit(q.unit);
     return [
       cell(first ? escapeHtml(sig(q.inhibitor, 4)) : '', true),
-      cell(escapeHtml(q.name)),
+      cell(escapeHtml(unit ? `${q.name} (${unit})` : q.name)),
       ...(q.value === null
-        ? [cell('not determined', false, 'undetected'), cell(unit), ...kinds.map(() => cell('–', true))]
-        : [cell(escapeHtml(sig(q.value, 4)), true), cell(unit), ...intervalCells(q, kinds, 4)]),
+        ? [cell('not determined', false, 'undetected'), ...kinds.map(() => cell('–', true))]
+        : [cell(escapeHtml(sig(q.value, 4)), true), ...intervalCells(q, kinds, 4)]),
     ];
   });
+  const table = order.length
+    ? htmlTable([cell(escapeHtml(iu ? `[I] (${iu})` : '[I]'), true), cell('quantity'), cell('value', true), ...kinds.map((k) => cell(escapeHtml(k.header), true))], rows, 'data apparent')
+    : '';
   return `<h3>Apparent constants at each tested [I]</h3>
-<p>${escapeHtml(`The Michaelis-Menten constants of the ${model.mechanism} curve at each [I]: Vmax_app = Vmax / (1 + [I]/Kiu), Km_app = Km (1 + [I]/Ki) / (1 + [I]/Kiu), with an absent arm at infinity (Segel 1975).`)}</p>
-${htmlTable([cell(escapeHtml(iu ? `[I] (${iu})` : '[I]'), true), cell('quantity'), cell('value', true), cell('unit'), ...kinds.map((k) => cell(escapeHtml(k.header), true))], rows, 'data apparent')}`;
+<p>${escapeHtml(`The Michaelis-Menten constants of the ${model.mechanism} curve at each [I]: Vmax_app = Vmax / (1 + [I]/Kiu), Km_app = Km (1 + [I]/Ki) / (1 + [I]/Kiu), with an absent arm at infinity (Segel 1975).${fixedText.length ? ' ' + fixedText.join(' ') : ''}`)}</p>
+${table}`;
 }
 
 function selectionBlock(result: AnalysisResult): string {

@@ -8,6 +8,7 @@
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
 import type { ResidualDiagnostics } from '../../../evidence/residual-diagnostics.js';
 import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/residual-diagnostics.js';
+import { LEVERAGED_RESIDUAL_LIMIT, pointsThatStandOut, standsOut } from '../../standing-out.js';
 import { CLEARLY_WORSE_DELTA } from '../../../evidence/error-model-check.js';
 import { apparentConstants } from '../../../evidence/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
@@ -115,11 +116,15 @@ function withUnit(q: string, unit: string | null): string {
 function suspectsBlock(result: AnalysisResult, model: ModelResult, d: ResidualDiagnostics): string {
   const u = units(result);
   const limit = (LEVERAGE_FACTOR * model.p) / model.n;
-  const rule = `externally studentised residual beyond ±${STUDENTISED_LIMIT}, or leverage above ${LEVERAGE_FACTOR}p/n = ${sig(limit, 2)}`;
-  if (d.suspects.length === 0) return `<p>No suspect point (${escapeHtml(rule)}).</p>`;
+  const rule = `externally studentised residual is beyond ±${STUDENTISED_LIMIT}, or the leverage is above ${LEVERAGE_FACTOR}p/n = ${sig(limit, 2)} and the residual beyond ±${LEVERAGED_RESIDUAL_LIMIT}`;
+  const { suspects, leverageOnly } = pointsThatStandOut(d);
+  const onCurve = leverageOnly
+    ? ` ${leverageOnly} point${leverageOnly > 1 ? 's have' : ' has'} high leverage but ${leverageOnly > 1 ? 'sit' : 'sits'} on the curve (a property of the design, such as the highest [S]); not listed.`
+    : '';
+  if (suspects.length === 0) return `<p>No point stands out (flagged when the ${escapeHtml(rule)}).${escapeHtml(onCurve)}</p>`;
   const table = htmlTable(
     [cell('line', true), cell(withUnit('[S]', u.s), true), cell(withUnit('[I]', u.i), true), cell(withUnit('v', u.v), true), cell('studentised residual', true), cell('leverage', true), cell('why')],
-    d.suspects.map((s) => [
+    suspects.map((s) => [
       cell(escapeHtml(String(result.table.points[s.index]?.line ?? '–')), true),
       cell(escapeHtml(sig(s.substrate, 4)), true),
       cell(escapeHtml(sig(s.inhibitor, 4)), true),
@@ -130,7 +135,7 @@ function suspectsBlock(result: AnalysisResult, model: ModelResult, d: ResidualDi
     ]),
     'data suspects',
   );
-  return `<p>Flagged when the ${escapeHtml(rule)}. Flagged points stay in the fit.</p>\n${table}`;
+  return `<p>Flagged when the ${escapeHtml(rule)}. Flagged points stay in the fit.${escapeHtml(onCurve)}</p>\n${table}`;
 }
 
 function errorModelBlock(result: AnalysisResult): string {
@@ -271,7 +276,7 @@ function otherMechanismsBlock(result: AnalysisResult, model: ModelResult): strin
       p(d.trends.inhibitor.p, flaggedBelow(d.trends.inhibitor.p)),
       p(d.trends.fitted.p, flaggedBelow(d.trends.fitted.p)),
       p(d.normality?.p, flaggedBelow(d.normality?.p ?? null)),
-      cell(escapeHtml(d.suspects.length ? d.suspects.map((s) => result.table.points[s.index]?.line ?? '?').join(', ') : 'none')),
+      cell(escapeHtml(d.suspects.some(standsOut) ? d.suspects.filter(standsOut).map((s) => result.table.points[s.index]?.line ?? '?').join(', ') : 'none')),
     ];
   });
   return `<details class="other-checks"><summary>Residual checks of the other mechanisms</summary>

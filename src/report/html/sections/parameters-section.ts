@@ -5,6 +5,7 @@
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
 import type { ParameterEstimate } from '../../../evidence/wald-estimates.js';
 import { escapeHtml } from '../escape.js';
+import { undetectedText } from '../../undetected-text.js';
 import { interval, sig } from '../../format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
 import { parameterUnit } from '../units-text.js';
@@ -27,7 +28,7 @@ function intervalColumns(models: readonly ModelResult[], pct: number): IntervalC
 function estimateRow(e: ParameterEstimate, result: AnalysisResult, cols: IntervalColumn[]): Cell[] {
   const unit = parameterUnit(e.name, result);
   if (!e.detected || e.value === null) {
-    return [cell(escapeHtml(e.name)), cell('not detected', false, 'undetected'), cell(escapeHtml(unit)), cell('–', true), ...cols.map(() => cell('–', true)), cell(escapeHtml(e.note ?? ''))];
+    return [cell(escapeHtml(e.name)), cell('not detected', false, 'undetected'), cell(escapeHtml(unit)), cell('–', true), ...cols.map(() => cell('–', true)), cell(escapeHtml(e.note ? undetectedText(e, unit) : ''))];
   }
   return [
     cell(escapeHtml(e.name)),

@@ -14,8 +14,11 @@ export const DATE_ELEMENT_ID = 'report-date';
 export const DATE_ELEMENT_PATTERN = /<time id="report-date"[^>]*>[^<]*<\/time>/g;
 
 export function provenanceFooter(result: AnalysisResult, provenance: ReportProvenance = {}): string {
-  const date = provenance.generatedAt ?? new Date();
-  const iso = date.toISOString();
+  const date = provenance.generatedAt === undefined ? new Date() : provenance.generatedAt;
+  const made =
+    date === null
+      ? `<time id="${DATE_ELEMENT_ID}">not recorded (kept out so that rerunning gives the same file)</time>`
+      : `<time id="${DATE_ELEMENT_ID}" datetime="${escapeHtml(date.toISOString())}">${escapeHtml(date.toISOString().replace('T', ' ').replace(/\.\d+Z$/, ' UTC'))}</time>`;
   const options: Array<[string, string]> = [
     ['error model', result.errorModel],
     ['confidence level', String(result.level)],
@@ -34,6 +37,6 @@ export function provenanceFooter(result: AnalysisResult, provenance: ReportProve
   ];
   return `<footer id="provenance">
 <h2>Reproducibility</h2>
-<dl>${rows.map(([k, v]) => `<dt>${escapeHtml(k)}</dt><dd>${k === 'input SHA-256' ? `<code>${escapeHtml(v)}</code>` : escapeHtml(v)}</dd>`).join('')}<dt>made</dt><dd><time id="${DATE_ELEMENT_ID}" datetime="${escapeHtml(iso)}">${escapeHtml(iso.replace('T', ' ').replace(/\.\d+Z$/, ' UTC'))}</time></dd></dl>
+<dl>${rows.map(([k, v]) => `<dt>${escapeHtml(k)}</dt><dd>${k === 'input SHA-256' ? `<code>${escapeHtml(v)}</code>` : escapeHtml(v)}</dd>`).join('')}<dt>made</dt><dd>${made}</dd></dl>
 </footer>`;
 }

@@ -4,6 +4,8 @@ import { escapeHtml } from '../escape.js';
 import { sig, interval } from '../../format-number.js';
 import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';
+import { distinctAdvice } from '../../distinct-advice.js';
+import { undetectedText } from '../../undetected-text.js';
 
 const OUTCOME_LABEL: Record<string, string> = {
   decisive: 'firm call',
@@ -20,7 +22,7 @@ export function verdictSection(result: AnalysisResult): string {
     .filter((e) => e.name !== 'Vmax')
     .map((e) => {
       const unit = parameterUnit(e.name, result);
-      if (!e.detected || e.value === null) return `<li><span class="key-name">${escapeHtml(e.name)}</span> <span class="key-note">${escapeHtml(e.note ?? 'not determined')}</span></li>`;
+      if (!e.detected || e.value === null) return `<li><span class="key-name">${escapeHtml(e.name)}</span> <span class="key-note">${escapeHtml(undetectedText(e, unit))}</span></li>`;
       const best = e.profile ?? e.wald;
       const kind = e.profile ? 'profile' : 'Wald';
       const range = best ? ` <span class="key-range">${pct}% ${kind} ${escapeHtml(interval(best[0], best[1], 3))}</span>` : '';
@@ -28,8 +30,9 @@ export function verdictSection(result: AnalysisResult): string {
     })
     .join('');
   const reasons = v.reasons.map((r) => `<li>${escapeHtml(r)}</li>`).join('');
-  const suggestions = v.suggestions.length
-    ? `<h3>What would settle it</h3><ul class="suggestions">${v.suggestions.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>`
+  const advice = distinctAdvice(v.suggestions, v.reasons);
+  const suggestions = advice.length
+    ? `<h3>What would settle it</h3><ul class="suggestions">${advice.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul>`
     : '';
   return `<section id="verdict" class="verdict outcome-${escapeHtml(v.outcome)}">
 <p class="verdict-tag">${escapeHtml(OUTCOME_LABEL[v.outcome] ?? v.outcome)}</p>
