@@ -14,7 +14,7 @@ import type { ErrorModelCheck } from '../evidence/error-model-check.js';
 
 /** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
 export interface ProfileCurve {
-  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
+  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
   /** natural-scale values of the parameter along the profile */
   values: number[];
   /** signed square root of the scaled SSE increase (profile t statistic tau) at each value */

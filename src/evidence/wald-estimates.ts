@@ -15,7 +15,7 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { tQuantile } from '../stats/distributions.js';
 import { detectionBound } from './detection-bound.js';
 
-export type EstimateName = 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
+export type EstimateName = 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
 
 export interface ParameterEstimate {
   name: EstimateName;

@@ -50,7 +50,7 @@ function warmStarts(model: MechanismModel, done: Map<Mechanism, MechanismFit>, d
 function weightedSseAt(model: MechanismModel, data: FitData, params: ArrayLike<number>, weights: Float64Array): number {
   let sse = 0;
   for (let k = 0; k < data.v.length; k++) {
-    const r = data.v[k] - model.rate(params, data.s[k], data.i[k]);
+    const r = data.v[k] - model.rate(params, data.s[k], data.i[k], data.e?.[k]);
     sse += weights[k] * r * r;
   }
   return sse;

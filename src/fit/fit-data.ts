@@ -10,6 +10,8 @@ export interface FitData {
   v: Float64Array;
   /** per-point SD from the file, when present for every point */
   sd?: Float64Array;
+  /** total active enzyme per point, in inhibitor units (tight-binding models only) */
+  e?: Float64Array;
 }
 
 export function fitDataFromTable(table: RateTable): FitData {
@@ -45,5 +47,5 @@ export function maxInhibitor(data: FitData): number {
 /** The points at the given indices, in that order. */
 export function subsetFitData(data: FitData, indices: readonly number[]): FitData {
   const pick = (a: Float64Array) => Float64Array.from(indices, (k) => a[k]);
-  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
+  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}), ...(data.e ? { e: pick(data.e) } : {}) };
 }
