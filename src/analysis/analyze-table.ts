@@ -20,6 +20,8 @@ import { robustRefit } from '../evidence/robust-refit.js';
 import { caveatsFor, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
 import { noInhibitionReason } from '../evidence/detection-limit.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
+import { runFamilies, type FamilyRequest } from './stage-families.js';
+import { familyCallFor } from './family-call.js';
 
 export interface AnalysisOptions {
   /** error model, or 'auto' to choose by likelihood; default 'constant' */
@@ -45,6 +47,10 @@ export interface AnalysisOptions {
   atSubstrate?: number;
   /** progress of long stages (the bootstrap): tasks done of total */
   onProgress?: (done: number, total: number) => void;
+  /** [E]t for the tight-binding family (a concentration, or 'fit'); an `enzyme` column is read without it */
+  enzyme?: FamilyRequest['enzyme'];
+  /** also fit the partial (hyperbolic) family */
+  partial?: boolean;
 }
 
 /** Thrown when the analysis cannot be completed (CLI exit code 1). */
@@ -108,9 +114,14 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
       });
   }
 
-  const verdict = verdictFrom(models, nested, caveats);
-  if (verdict.outcome === 'no-inhibition') verdict.reasons.push(noInhibitionReason(models, data));
-  if (choice.automatic) verdict.reasons.unshift(choice.reason);
+  const classicVerdict = verdictFrom(models, nested, caveats);
+  if (classicVerdict.outcome === 'no-inhibition') classicVerdict.reasons.push(noInhibitionReason(models, data));
+  if (choice.automatic) classicVerdict.reasons.unshift(choice.reason);
+
+  // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
+  // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
+  const families = runFamilies(table, data, errorModel, fits, level, { enzyme: options.enzyme, partial: options.partial }, { rank: rankModels, verdict: verdictFrom }, options.profile !== false);
+  const { family, verdict } = familyCallFor(classicVerdict, models, families, data, table);
 
   return {
     input: {
@@ -130,6 +141,9 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     models,
     nested,
     verdict,
+    family,
+    enzyme: families?.enzyme ?? null,
+    ...(families ? { familyModels: families.models } : {}),
     data,
     table,
     seriesFits: diagnostics.seriesFits,
