@@ -82,7 +82,8 @@ for (const c of cases) {
     const fit = r.familyModels.find((m) => m.modelId === c.model)?.fit;
     const name = c.mechanism === 'uncompetitive' ? 'Kiu' : 'Ki';
     if (fit) {
-      const iv = profileOfFit(fit, table.points.length ? r.data : r.data, name, { level: 0.95 }).interval;
+      const data = c.enzyme !== undefined ? { ...r.data, e: new Float64Array(r.data.v.length).fill(c.enzyme) } : r.data;
+      const iv = profileOfFit(fit, data, name, { level: 0.95 }).interval;
       const truth = c.params[name];
       t.coverN++;
       if ((iv[0] === null || iv[0] <= truth) && (iv[1] === null || truth <= iv[1])) t.covered++;

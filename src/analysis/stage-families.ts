@@ -14,7 +14,7 @@ import { InputError, type ConcentrationUnit, type RateTable } from '../input/typ
 import { parseConcentrationUnit, scaleByPowerOfTen, unitShift } from '../input/units.js';
 import { compareNested, type NestedComparison } from '../evidence/nested-comparisons.js';
 import { profileAllOfFit } from '../evidence/profile-likelihood.js';
-import { oneParameterTest, type BoundaryTest, type FamilyModelEvidence, type PartialEvidence, type TightBindingEvidence } from '../evidence/family-comparison.js';
+import { oneParameterTest, partialWinner, type BoundaryTest, type FamilyModelEvidence, type PartialEvidence, type TightBindingEvidence } from '../evidence/family-comparison.js';
 import type { Caveat, Verdict } from '../evidence/verdict.js';
 import { residualDiagnostics } from '../evidence/residual-diagnostics.js';
 import { caveatsFor } from './stage-diagnostics.js';
@@ -186,8 +186,6 @@ export function runFamilies(
     const models = registeredModels('partial');
     const fits = fitFamily(models, data, errorModel, classicFits);
     const ranked = tagged(tools.rank(fits, data, level));
-    if (profile) addProfiles(ranked[0], data, level);
-    const blocking = familyCaveats(ranked[0], data).filter((c) => c.blocking).map((c) => c.message);
     const againstFull: Record<string, BoundaryTest> = {};
     const withinFamily: Record<string, BoundaryTest> = {};
     for (const f of fits) {
@@ -200,7 +198,14 @@ export function runFamilies(
         if (rule && g !== f) withinFamily[modelId(g.model)] = oneParameterTest(g.logLik, f.logLik, rule.rules.some((r) => r.kind === 'limit'));
       }
     }
-    stage.partial = { models: ranked.map(evidenceOf), againstFull, withinFamily, blocking };
+    // the model the family comparison will name (same rule, src/evidence/family-comparison.ts) gets the profiles and the fit checks
+    const evidence = ranked.map(evidenceOf);
+    const usable = evidence.filter((m) => m.converged && Number.isFinite(m.aicc));
+    const pickId = usable.length ? partialWinner(usable, { models: evidence, againstFull, withinFamily, blocking: [] }).model.id : undefined;
+    const picked = ranked.find((m) => m.modelId === pickId);
+    if (profile) addProfiles(picked, data, level);
+    const blocking = familyCaveats(picked, data).filter((c) => c.blocking).map((c) => c.message);
+    stage.partial = { models: evidence, againstFull, withinFamily, blocking };
     stage.models.push(...ranked);
   }
   return stage;

@@ -182,7 +182,10 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
     const best = pick?.model;
     const full = best ? partial.againstFull[best.id] : undefined;
     const beta = estimate(best, 'beta');
-    const betaExcludesZero = best?.mechanism === 'competitive' ? estimate(best, 'Kiu')?.detected === true : beta?.profile ? beta.profile[0] !== null : false;
+    // the parameter that separates partial from full inhibition must be pinned down by its profile:
+    // beta's lower end above BETA_FLOOR, or (partial competitive) Kiu's upper end below the detection bound
+    const kiuProfile = estimate(best, 'Kiu')?.profile;
+    const betaExcludesZero = best?.mechanism === 'competitive' ? !!kiuProfile && kiuProfile[1] !== null : beta?.profile ? beta.profile[0] !== null : false;
     if (best && pick && full && full.p < FAMILY_LEVEL && best.aicc <= bestAicc - PARTIAL_AICC_MARGIN && betaExcludesZero) {
       const k = leadConstant(best);
       const betaText = best.mechanism === 'competitive' ? 'beta = 1 (the complex turns over at full speed)' : constantPhrase(beta, '');
@@ -228,7 +231,7 @@ function tightCall(v: Verdict, winner: FamilyModelEvidence, k: ParameterEstimate
  * partial competitive: beta = 1) at FAMILY_LEVEL; otherwise the better simpler model, not decisive
  * when the other simpler one stays within 4 AICc units (Burnham & Anderson 2002, sec. 2.6).
  */
-function partialWinner(ranked: readonly FamilyModelEvidence[], partial: PartialEvidence): { model: FamilyModelEvidence; decisive: boolean; reasons: string[] } {
+export function partialWinner(ranked: readonly FamilyModelEvidence[], partial: PartialEvidence): { model: FamilyModelEvidence; decisive: boolean; reasons: string[] } {
   const simpler = ranked.filter((m) => m.mechanism !== 'mixed');
   const mixed = ranked.find((m) => m.mechanism === 'mixed');
   const kept = simpler.filter((m) => !(mixed && mixed.aicc < m.aicc && (partial.withinFamily[m.id]?.p ?? 1) < FAMILY_LEVEL));

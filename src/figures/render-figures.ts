@@ -11,6 +11,7 @@ import { evidenceFigure } from './evidence-chart.js';
 import { lineFamilyReplotFigures } from './replot-figures.js';
 import { seriesReplotFigures } from './series-replots.js';
 import { uncertaintyFigures } from './uncertainty-figures.js';
+import { fractionalActivityFigures } from './fractional-activity.js';
 
 export function renderFigures(result: AnalysisResult): FigureOutput[] {
   const ctx = figureContext(result);
@@ -19,6 +20,7 @@ export function renderFigures(result: AnalysisResult): FigureOutput[] {
     rateCurvesFigure(ctx, true),
     residualsBySubstrateFigure(ctx),
     residualsByFittedFigure(ctx),
+    ...fractionalActivityFigures(ctx),
     evidenceFigure(ctx),
     ...uncertaintyFigures(ctx),
     ...lineFamilyReplotFigures(ctx),

@@ -5,7 +5,7 @@
  *  - every model starts (besides its own data-driven starts) from each already fitted model it
  *    contains, embedded by the rules with a switched-off constant at 100 x the highest [I] and a
  *    vanishing beta at 0.01, and from the classic model of the same mechanism (same parameter
- *    names; tight-binding constants also at 1/3 and 1/10, since the classic fit of tight-binding
+ *    names; tight-binding constants also at 1/5, since the classic fit of tight-binding
  *    data overestimates them; partial models also with beta 0.2 and 0.5);
  *  - nesting check: at the model's final weights no contained solution, embedded at the edge of
  *    the domain, may have a lower SSE; where one does, that embedding replaces the fit (as
@@ -38,7 +38,7 @@ function classicCounterpartStarts(model: MechanismModel, classic: readonly Mecha
       return NaN;
     });
   const out =
-    model.family === 'tight-binding' ? [base(1, NaN), base(1 / 3, NaN), base(0.1, NaN)] : [base(1, 0.2), base(0.5, 0.2), base(0.5, 0.5)];
+    model.family === 'tight-binding' ? [base(1, NaN), base(0.2, NaN)] : [base(1, 0.2), base(0.5, 0.2), base(0.5, 0.5)];
   return out.filter((s) => s.every(Number.isFinite));
 }
 
