@@ -120,7 +120,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
 
   // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
   // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
-  const families = runFamilies(table, data, errorModel, fits, level, { enzyme: options.enzyme, partial: options.partial }, { rank: rankModels, verdict: verdictFrom }, options.profile !== false);
+  const families = runFamilies(table, data, errorModel, fits, level, { enzyme: options.enzyme, partial: options.partial, bootstrap: options.bootstrap }, { rank: rankModels, verdict: verdictFrom }, options.profile !== false);
   const { family, verdict } = familyCallFor(classicVerdict, models, families, data, table);
 
   return {
@@ -143,7 +143,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     verdict,
     family,
     enzyme: families?.enzyme ?? null,
-    ...(families ? { familyModels: families.models } : {}),
+    ...(families ? { familyModels: families.models, familyResidualChecks: families.checks } : {}),
     data,
     table,
     seriesFits: diagnostics.seriesFits,

@@ -16,7 +16,9 @@ import { compareNested, type NestedComparison } from '../evidence/nested-compari
 import { profileAllOfFit } from '../evidence/profile-likelihood.js';
 import { oneParameterTest, partialWinner, type BoundaryTest, type FamilyModelEvidence, type PartialEvidence, type TightBindingEvidence } from '../evidence/family-comparison.js';
 import type { Caveat, Verdict } from '../evidence/verdict.js';
-import { residualDiagnostics } from '../evidence/residual-diagnostics.js';
+import { familyBootstrap } from '../evidence/family-bootstrap.js';
+import type { WildWeights } from '../evidence/bootstrap-tasks.js';
+import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import { caveatsFor } from './stage-diagnostics.js';
 import type { ModelResult } from './types.js';
 
@@ -30,6 +32,8 @@ export interface FamilyRequest {
   enzyme?: EnzymeOption;
   /** fit the partial family (docs/decisions/family-selection.md: on request only) */
   partial?: boolean;
+  /** wild bootstrap of the family models the call can name (src/evidence/family-bootstrap.ts) */
+  bootstrap?: { resamples: number; seed: number; weights?: WildWeights };
 }
 
 export interface FamilyTools {
@@ -45,6 +49,8 @@ export interface FamilyStage {
   partial?: PartialEvidence;
   /** the tight-binding verdict, when that family was fitted */
   tightVerdict?: Verdict;
+  /** residual diagnostics of the family models that can be named (by registry id) */
+  checks: Record<string, ResidualDiagnostics>;
 }
 
 /** An unusable enzyme setting is bad input (exit code 2), named by file and line where there is one. */
@@ -123,9 +129,22 @@ function addProfiles(model: ModelResult | undefined, data: FitData, level: numbe
  * constants (the classic winner's residual caveats say nothing about another family's fit). The
  * per-series comparison uses classic apparent constants and is left out.
  */
-export function familyCaveats(winner: ModelResult | undefined, data: FitData): Caveat[] {
+export function familyCaveats(winner: ModelResult | undefined, data: FitData, checks?: Record<string, ResidualDiagnostics>): Caveat[] {
   if (!winner || !(winner.fit.df > 0)) return [];
-  return caveatsFor(winner, { residuals: { [winner.mechanism]: residualDiagnostics(winner.fit, data) }, seriesFits: [], seriesDisagreements: [], errorModelCheck: null }, data);
+  const d = residualDiagnostics(winner.fit, data);
+  if (checks) checks[winner.modelId ?? winner.mechanism] = d;
+  return caveatsFor(winner, { residuals: { [winner.mechanism]: d }, seriesFits: [], seriesDisagreements: [], errorModelCheck: null }, data);
+}
+
+function addBootstrap(model: ModelResult | undefined, data: FitData, level: number, request: FamilyRequest['bootstrap']): void {
+  if (!request || !model || !(model.fit.df > 0) || !Number.isFinite(model.fit.sse)) return;
+  const found = familyBootstrap(model.fit, data, { ...request, level });
+  for (const e of model.estimates) {
+    const b = found[e.name];
+    if (!b || !e.detected) continue;
+    if (b.percentile) e.bootstrapPercentile = b.percentile;
+    if (b.bca) e.bootstrapBca = b.bca;
+  }
 }
 
 function registryLookup(id: string): MechanismModel | undefined {
@@ -144,7 +163,7 @@ export function runFamilies(
 ): FamilyStage | null {
   const enzyme = resolveEnzyme(table, request.enzyme);
   if (enzyme.input === null && !request.partial) return null;
-  const stage: FamilyStage = { enzyme: enzyme.input, models: [] };
+  const stage: FamilyStage = { enzyme: enzyme.input, models: [], checks: {} };
   const none = classicFits.find((f) => f.mechanism === 'none');
 
   if (enzyme.input !== null) {
@@ -162,9 +181,11 @@ export function runFamilies(
     const noneResult = none ? tools.rank([none], data, level) : [];
     const candidates = [...ranked, ...noneResult].sort((a, b) => a.aicc - b.aicc);
     const preliminary = tools.verdict(candidates, nested, []);
-    const caveats = familyCaveats(ranked.find((m) => m.mechanism === preliminary.mechanism), dataE);
+    const caveats = familyCaveats(ranked.find((m) => m.mechanism === preliminary.mechanism), dataE, stage.checks);
     const verdict = tools.verdict(candidates, nested, caveats);
+    if (verdict.mechanism !== preliminary.mechanism) familyCaveats(ranked.find((m) => m.mechanism === verdict.mechanism), dataE, stage.checks);
     if (profile) addProfiles(ranked.find((m) => m.mechanism === verdict.mechanism), dataE, level);
+    addBootstrap(ranked.find((m) => m.mechanism === verdict.mechanism), dataE, level, request.bootstrap);
     const againstClassic: Partial<Record<Mechanism, BoundaryTest>> = {};
     if (fitted)
       for (const f of fits) {
@@ -204,7 +225,8 @@ export function runFamilies(
     const pickId = usable.length ? partialWinner(usable, { models: evidence, againstFull, withinFamily, blocking: [] }).model.id : undefined;
     const picked = ranked.find((m) => m.modelId === pickId);
     if (profile) addProfiles(picked, data, level);
-    const blocking = familyCaveats(picked, data).filter((c) => c.blocking).map((c) => c.message);
+    addBootstrap(picked, data, level, request.bootstrap);
+    const blocking = familyCaveats(picked, data, stage.checks).filter((c) => c.blocking).map((c) => c.message);
     stage.partial = { models: evidence, againstFull, withinFamily, blocking };
     stage.models.push(...ranked);
   }

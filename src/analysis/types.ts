@@ -137,6 +137,8 @@ export interface AnalysisResult {
   enzyme: EnzymeInput;
   /** the fitted models of the other families (tight-binding, partial), when any were fitted */
   familyModels?: ModelResult[];
+  /** residual diagnostics of the family models the call can name, by registry id */
+  familyResidualChecks?: Record<string, ResidualDiagnostics>;
   /** bootstrap summary, when a bootstrap was run */
   bootstrap?: BootstrapSummary;
   /** per-series Michaelis-Menten fits (diagnostic input of the slope and intercept replots) */

@@ -25,6 +25,7 @@ import type { Mechanism, ModelFamily } from '../models/types.js';
 import type { Verdict } from './verdict.js';
 import type { ParameterEstimate } from './wald-estimates.js';
 import { chisqSurvival } from '../stats/distributions.js';
+import { BETA_FLOOR } from './profile-support.js';
 
 export const TIGHT_BINDING_RATIO = 10;
 export const FAMILY_LEVEL = 0.01;
@@ -163,7 +164,8 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
     } else {
       const et = estimate(winner, 'Et');
       const test = tight.againstClassic?.[winner.mechanism];
-      const closed = et?.profile && et.profile[0] !== null && et.profile[1] !== null;
+      const etInterval = et?.profile ?? et?.wald;
+      const closed = !!etInterval && etInterval[0] !== null && etInterval[1] !== null && etInterval[0] > 0;
       if (closed && test && test.p < FAMILY_LEVEL) {
         call = tightCall(v, winner, k, u, `[E]t is identified (${constantPhrase(et, u)}) and the tight-binding fit improves on the classic ${winner.mechanism} model (p ${test.p < 0.001 ? '< 0.001' : `= ${fmt(test.p)}`}, boundary test)`);
         bestAicc = winner.aicc;
@@ -184,8 +186,12 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
     const beta = estimate(best, 'beta');
     // the parameter that separates partial from full inhibition must be pinned down by its profile:
     // beta's lower end above BETA_FLOOR, or (partial competitive) Kiu's upper end below the detection bound
-    const kiuProfile = estimate(best, 'Kiu')?.profile;
-    const betaExcludesZero = best?.mechanism === 'competitive' ? !!kiuProfile && kiuProfile[1] !== null : beta?.profile ? beta.profile[0] !== null : false;
+    // (the Wald interval stands in when profiles are switched off)
+    const kiuEstimate = estimate(best, 'Kiu');
+    const kiuInterval = kiuEstimate?.profile ?? (kiuEstimate?.detected ? kiuEstimate.wald : null);
+    const betaInterval = beta?.profile ?? beta?.wald;
+    const betaExcludesZero =
+      best?.mechanism === 'competitive' ? !!kiuInterval && kiuInterval[1] !== null : betaInterval ? betaInterval[0] !== null && betaInterval[0] > BETA_FLOOR : false;
     if (best && pick && full && full.p < FAMILY_LEVEL && best.aicc <= bestAicc - PARTIAL_AICC_MARGIN && betaExcludesZero) {
       const k = leadConstant(best);
       const betaText = best.mechanism === 'competitive' ? 'beta = 1 (the complex turns over at full speed)' : constantPhrase(beta, '');

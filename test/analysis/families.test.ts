@@ -114,6 +114,18 @@ describe('partial inhibition', () => {
     expect(Object.keys(m.params.beta)).toEqual(expect.arrayContaining(['value', 'se', 'ci95', 'profile95']));
     expect(summarizeAnalysis(r).beta!.interval).toBe('profile');
   });
+  it('bootstrap intervals cover every new parameter of the called model (beta included)', () => {
+    const points = sim('partial noncompetitive', { Vmax: 100, Km: 10, Ki: 50, beta: 0.2 }, [0, 25, 50, 100, 200, 400, 800], 6);
+    const r = analyzeTable(tableOf(points), { errorModel: 'proportional', partial: true, profile: false, bootstrap: { resamples: 40, seed: 3 } });
+    const m = r.familyModels!.find((x) => x.modelId === r.family.model)!;
+    for (const e of m.estimates) {
+      expect(e.bootstrapPercentile, e.name).toBeDefined();
+      expect(e.bootstrapPercentile![0]).toBeLessThanOrEqual(e.value!);
+      expect(e.bootstrapPercentile![1]).toBeGreaterThanOrEqual(e.value!);
+    }
+    const json = analysisJson(r) as any;
+    expect(json.models.find((x: any) => x.model === r.family.model).params.beta.bootPercentile95).toHaveLength(2);
+  });
   it('full inhibition is a boundary: p is half the chi-square(1) tail (Self & Liang 1987, case 5)', () => {
     // chi-square(1) upper 10% point 2.7055 (standard tables)
     expect(oneParameterTest(0, 2.7055 / 2, true).p).toBeCloseTo(0.05, 4);

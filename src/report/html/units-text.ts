@@ -4,6 +4,6 @@ import { displayUnit } from '../../figures/axis-units.js';
 
 export function parameterUnit(name: string, result: AnalysisResult): string {
   const u = result.input.units;
-  const unit = name === 'Km' ? u.substrate : name === 'Ki' || name === 'Kiu' ? u.inhibitor : name === 'Vmax' ? u.rate : null;
+  const unit = name === 'Km' ? u.substrate : name === 'Ki' || name === 'Kiu' || name === 'Et' ? u.inhibitor : name === 'Vmax' ? u.rate : null;
   return displayUnit(unit) ?? '';
 }
