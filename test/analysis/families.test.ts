@@ -175,3 +175,18 @@ describe('command line', () => {
     expect(r.err).toMatch(/bad\.csv:4: the enzyme column holds "x"/);
   });
 });
+
+describe('figure curves come from the model itself', () => {
+  it('the rate curves and the fractional-activity curves call the drawn model\'s own rate function', () => {
+    const result = analyzeTable(tableOf(tbPoints), { errorModel: 'proportional', enzyme: { value: 5, unit: 'nM' }, profile: false });
+    const drawn = result.familyModels!.find((x) => x.modelId === result.family.model)!;
+    const own = drawn.fit.model;
+    let calls = 0;
+    const seen = new Set<number | undefined>();
+    drawn.fit = { ...drawn.fit, model: { ...own, rate: (p, s, i, e) => (calls++, seen.add(e), own.rate(p, s, i, e)) } };
+    const figures = renderFigures(result);
+    expect(calls).toBeGreaterThan(2 * 81 * 6); // two rate-curve figures x 81 points x 6 [I] levels, plus the fractional activity
+    expect([...seen]).toEqual([5]); // always with the analysis' [E]t
+    expect(figures.find((f) => f.id === 'fig-rate-curves')!.svg).toContain('tight-binding competitive (global fit)');
+  });
+});
