@@ -5,10 +5,10 @@
  * description here: model ids, the nested pairs to test, warm starts embedded from smaller
  * solutions, parameter units and starting scales.
  *
- * The classic five keep their own hand-written tables in fit/ and evidence/ (unchanged
- * behaviour); test/models/registry.test.ts checks that the tables derived here from their
- * descriptions equal those tables. The tight-binding and partial families use only what is
- * derived here.
+ * The nested pairs (src/evidence/nested-comparisons.ts) and the warm starts and nesting check of
+ * the classic five (src/fit/fit-all-mechanisms.ts) and of the other families
+ * (src/fit/fit-family.ts) are derived here. The classic apparent-constant, Cheng-Prusoff and replot
+ * geometry tables are still written by hand (their closed forms hold for the classic laws only).
  */
 import type { Containment, MechanismModel, ModelFamily, NestingRule, ParamDimension, ParamName } from './types.js';
 import { MECHANISMS } from './index.js';

@@ -93,7 +93,7 @@ describe('partial (hyperbolic) models (Segel 1975, ch. 4; BRIEF section 13)', ()
 });
 
 describe('the registry', () => {
-  it('derives exactly the classic nested pairs of src/evidence/nested-comparisons.ts', () => {
+  it('derives exactly the seven classic nested pairs (BRIEF sec. 2: none in all, the three-parameter models in mixed)', () => {
     const pairs = nestedPairsAmong(MECHANISMS).map((p) => `${p.simpler.mechanism}<${p.fuller.mechanism}`).sort();
     expect(pairs).toEqual(
       ['none<competitive', 'none<uncompetitive', 'none<noncompetitive', 'none<mixed', 'competitive<mixed', 'uncompetitive<mixed', 'noncompetitive<mixed'].sort(),
