@@ -112,6 +112,11 @@ export function dimensionOf(model: MechanismModel, name: ParamName): ParamDimens
   return CLASSIC_DIMENSIONS[name];
 }
 
+/** The dimension a parameter name has in every built-in model (alpha and other names: dimensionless). */
+export function dimensionOfName(name: string): ParamDimension {
+  return (CLASSIC_DIMENSIONS as Record<string, ParamDimension>)[name] ?? 'dimensionless';
+}
+
 const CLASSIC_DIMENSIONS: Record<ParamName, ParamDimension> = {
   Vmax: 'rate',
   Km: 'substrate',

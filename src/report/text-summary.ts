@@ -1,4 +1,5 @@
 /** The plain-text summary printed by `mechanist analyze` (without --json). */
+import { dimensionOfName, unitOfDimension } from '../models/registry.js';
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
@@ -12,12 +13,8 @@ function padLeft(s: string, w: number): string {
 }
 
 function unitOf(name: string, result: AnalysisResult): string {
-  const u = result.input.units;
-  if (name === 'Km') return u.substrate ?? '';
-  if (name === 'Ki' || name === 'Kiu') return u.inhibitor ?? '';
-  if (name === 'Vmax') return u.rate ?? '';
-  if (name === 'Et') return u.inhibitor ?? '';
-  return '';
+  // from the parameter's dimension (src/models/registry.ts)
+  return unitOfDimension(dimensionOfName(name), result.input.units);
 }
 
 export function modelTable(models: readonly ModelResult[]): string[] {
