@@ -190,3 +190,13 @@ describe('figure curves come from the model itself', () => {
     expect(figures.find((f) => f.id === 'fig-rate-curves')!.svg).toContain('tight-binding competitive (global fit)');
   });
 });
+
+describe('report page', () => {
+  it('shows the hint to give [E]t in the verdict section when the call stays classic', async () => {
+    const { verdictSection } = await import('../../src/report/html/sections/verdict-section.js');
+    const r = analyzeTable(tableOf(tbPoints), { errorModel: 'proportional', profile: false });
+    expect(verdictSection(r)).toContain('--enzyme');
+    const plain = analyzeTable(tableOf(sim('mixed', { Vmax: 100, Km: 10, Ki: 2, Kiu: 10 }, [0, 1, 2, 4, 8], 9)), { errorModel: 'proportional', profile: false });
+    expect(verdictSection(plain)).not.toContain('Tight binding and partial inhibition');
+  });
+});
