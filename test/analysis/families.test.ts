@@ -200,3 +200,16 @@ describe('report page', () => {
     expect(verdictSection(plain)).not.toContain('Tight binding and partial inhibition');
   });
 });
+
+describe('cautions', () => {
+  it('replace the "[E] well below Ki" caution when [E]t was given, and add the plateau caution for partial fits', async () => {
+    const { cautionsSection, CAUTIONS } = await import('../../src/report/html/sections/cautions-section.js');
+    const r = analyzeTable(tableOf(tbPoints), { errorModel: 'proportional', enzyme: { value: 5, unit: 'nM' }, partial: true, profile: false });
+    const html = cautionsSection(r);
+    expect(html).toContain('active-site titration');
+    expect(html).not.toContain('must be well below Ki');
+    expect(html).toContain('solubility limit');
+    expect(cautionsSection()).toContain('must be well below Ki');
+    expect(CAUTIONS.length).toBe(8);
+  });
+});
