@@ -95,3 +95,24 @@ export type { DoseResponseEvidence, DoseResponseModelResult, ImpliedKi, ChengPru
 export { doseResponseJson, doseResponseText } from './report/dose-response-output.js';
 export { parseConcentration, concentrationIn } from './input/units.js';
 export type { Concentration } from './input/units.js';
+// Model registry and the tight-binding and partial families (issue 10)
+export {
+  registerModel,
+  registeredModels,
+  lookupModel,
+  modelId,
+  familyOf,
+  nestedPairsAmong,
+  embedByRules,
+  dimensionOf,
+  unitOfDimension,
+  type DerivedPair,
+} from './models/registry.js';
+export type { ModelFamily, ParamSpec, ParamDimension, Containment, NestingRule, Covariate, ModelCapabilities } from './models/types.js';
+export { TIGHT_BINDING_GIVEN, TIGHT_BINDING_FITTED, apparentConstant } from './models/tight-binding.js';
+export { morrisonFractions, type MorrisonFractions } from './models/morrison.js';
+export { PARTIAL_MODELS, partialCompetitive, partialNoncompetitive, partialMixed } from './models/partial.js';
+export { fitFamily } from './fit/fit-family.js';
+export { compareFamilies, oneParameterTest, TIGHT_BINDING_RATIO, FAMILY_LEVEL, PARTIAL_AICC_MARGIN, type FamilyCall } from './evidence/family-comparison.js';
+export { resolveEnzyme, type EnzymeOption, type EnzymeInput, type FamilyRequest } from './analysis/stage-families.js';
+export { simulateModelRates, type ModelSimulation } from './simulate/simulate-model.js';

@@ -26,6 +26,8 @@ import { activationCaveat, saturatingInhibitorCaveat, substrateInhibitionCaveat 
 import { plausibilityCaveats } from '../evidence/plausibility-check.js';
 import { alphaExclusions, type AlphaExclusions } from '../evidence/alpha-exclusion.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
+import { runFamilies, type FamilyRequest } from './stage-families.js';
+import { familyCallFor } from './family-call.js';
 
 export interface AnalysisOptions {
   /** error model, or 'auto' (the default) to choose by likelihood among those the rates allow */
@@ -51,6 +53,10 @@ export interface AnalysisOptions {
   atSubstrate?: number;
   /** progress of long stages (the bootstrap): tasks done of total */
   onProgress?: (done: number, total: number) => void;
+  /** [E]t for the tight-binding family (a concentration, or 'fit'); an `enzyme` column is read without it */
+  enzyme?: FamilyRequest['enzyme'];
+  /** also fit the partial (hyperbolic) family */
+  partial?: boolean;
 }
 
 /** Thrown when the analysis cannot be completed (CLI exit code 1). */
@@ -122,9 +128,16 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     if (caveat) caveats.push(caveat);
   }
 
-  const verdict = verdictFrom(models, nested, caveats, evidence);
-  if (verdict.outcome === 'no-inhibition' && exact.length === 0) verdict.reasons.push(noInhibitionReason(models, data));
-  if (choice.automatic) verdict.reasons.unshift(choice.reason);
+  const classicVerdict = verdictFrom(models, nested, caveats, evidence);
+  if (classicVerdict.outcome === 'no-inhibition' && exact.length === 0) classicVerdict.reasons.push(noInhibitionReason(models, data));
+  if (choice.automatic) classicVerdict.reasons.unshift(choice.reason);
+
+  // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
+  // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
+  // A tight-binding call rests on the same exclusion tests, run on the tight-binding mixed fit.
+  const familyVerdict = (m: readonly ModelResult[], n: readonly NestedComparison[], c: readonly Caveat[], d: FitData) => verdictFrom(m, n, c, { exclusions: exclusionsOf(m, d) });
+  const families = runFamilies(table, data, errorModel, fits, level, { enzyme: options.enzyme, partial: options.partial, bootstrap: options.bootstrap }, { rank: rankModels, verdict: familyVerdict }, options.profile !== false);
+  const { family, verdict } = familyCallFor(classicVerdict, models, families, data, table);
 
   return {
     input: {
@@ -144,6 +157,9 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     models,
     nested,
     verdict,
+    family,
+    enzyme: families?.enzyme ?? null,
+    ...(families ? { familyModels: families.models, familyResidualChecks: families.checks } : {}),
     data,
     table,
     seriesFits: diagnostics.seriesFits,

@@ -1,5 +1,5 @@
 /** Result types of one analysis (one compound, one rate table). */
-import type { Mechanism } from '../models/types.js';
+import type { Mechanism, ModelFamily } from '../models/types.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { FitData } from '../fit/fit-data.js';
@@ -7,6 +7,8 @@ import type { Exclusion, InputWarning, RateTable } from '../input/types.js';
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { NestedComparison } from '../evidence/nested-comparisons.js';
 import type { Verdict } from '../evidence/verdict.js';
+import type { FamilyCall } from '../evidence/family-comparison.js';
+import type { EnzymeInput } from './stage-families.js';
 import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import type { SeriesDisagreement } from '../evidence/series-fits.js';
@@ -14,7 +16,7 @@ import type { ErrorModelCheck } from '../evidence/error-model-check.js';
 
 /** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
 export interface ProfileCurve {
-  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
+  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
   /** natural-scale values of the parameter along the profile */
   values: number[];
   /** signed square root of the scaled SSE increase (profile t statistic tau) at each value */
@@ -66,6 +68,10 @@ export interface SeriesFit {
 
 export interface ModelResult {
   mechanism: Mechanism;
+  /** model family (absent: classic; set for the tight-binding and partial models) */
+  family?: ModelFamily;
+  /** registry id (absent: the mechanism, for the classic five) */
+  modelId?: string;
   label: string;
   equation: string;
   converged: boolean;
@@ -130,6 +136,14 @@ export interface AnalysisResult {
   models: ModelResult[];
   nested: NestedComparison[];
   verdict: Verdict;
+  /** which family (classic, tight-binding, partial) the call belongs to, with its reasons */
+  family: FamilyCall;
+  /** [E]t used by the tight-binding family: a value (inhibitor units), 'fitted', or null */
+  enzyme: EnzymeInput;
+  /** the fitted models of the other families (tight-binding, partial), when any were fitted */
+  familyModels?: ModelResult[];
+  /** residual diagnostics of the family models the call can name, by registry id */
+  familyResidualChecks?: Record<string, ResidualDiagnostics>;
   /** bootstrap summary, when a bootstrap was run */
   bootstrap?: BootstrapSummary;
   /** per-series Michaelis-Menten fits (diagnostic input of the slope and intercept replots) */

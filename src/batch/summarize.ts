@@ -52,7 +52,11 @@ export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<Row
   const verdict = result.verdict;
   const top = result.models[0] ?? null;
   const second = result.models[1] ?? null;
-  const called = result.models.find((m) => m.mechanism === verdict.mechanism) ?? null;
+  const family = result.family?.family ?? 'classic';
+  const called =
+    (family === 'classic'
+      ? result.models.find((m) => m.mechanism === verdict.mechanism)
+      : result.familyModels?.find((m) => m.modelId === result.family.model)) ?? null;
   const estimate = (name: EstimateName) => called?.estimates.find((e) => e.name === name);
   const constant = (name: EstimateName) => {
     const e = estimate(name);
@@ -67,6 +71,7 @@ export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<Row
     status: 'analysed',
     outcome: verdict.outcome,
     mechanism: verdict.mechanism,
+    family,
     lean: verdict.lean ?? null,
     decisive: verdict.decisive,
     headline: verdict.headline,
@@ -78,6 +83,8 @@ export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<Row
     Ki: constant('Ki'),
     Kiu: constant('Kiu'),
     alpha: constant('alpha'),
+    beta: constant('beta'),
+    Et: constant('Et'),
     Km: finiteOrNull(estimate('Km')?.value),
     Vmax: finiteOrNull(estimate('Vmax')?.value),
     IC50: null,
@@ -100,6 +107,7 @@ export function failedSummary(identity: RowIdentity, error: string, table?: Rate
     status: 'failed',
     outcome: null,
     mechanism: null,
+    family: null,
     lean: null,
     decisive: null,
     headline: null,
@@ -111,6 +119,8 @@ export function failedSummary(identity: RowIdentity, error: string, table?: Rate
     Ki: null,
     Kiu: null,
     alpha: null,
+    beta: null,
+    Et: null,
     Km: null,
     Vmax: null,
     IC50: null,

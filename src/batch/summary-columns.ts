@@ -15,7 +15,7 @@ export interface SummaryColumn {
   value: (row: CompoundSummary) => Cell;
 }
 
-type ConstantName = 'Ki' | 'Kiu' | 'alpha' | 'IC50';
+type ConstantName = 'Ki' | 'Kiu' | 'alpha' | 'IC50' | 'beta' | 'Et';
 
 function constantColumns(name: ConstantName, level: number): SummaryColumn[] {
   const key = name.toLowerCase();
@@ -42,6 +42,7 @@ export function summaryColumns(level: number): SummaryColumn[] {
     { name: 'status', meaning: 'analysed or failed', value: (r) => r.status },
     { name: 'outcome', meaning: 'verdict outcome: decisive, mixed-lean, undecided or no-inhibition', value: (r) => r.outcome },
     { name: 'mechanism', meaning: 'called mechanism', value: (r) => r.mechanism },
+    { name: 'family', meaning: 'family of the call: classic, tight-binding or partial', value: (r) => r.family },
     { name: 'lean', meaning: 'for mixed-lean: the pure mechanism it leans to', value: (r) => r.lean },
     { name: 'decisive', meaning: 'yes when the call is decisive', value: (r) => r.decisive },
     { name: 'error_model', meaning: 'error model the compound was fitted with', value: (r) => r.errorModel },
@@ -52,6 +53,8 @@ export function summaryColumns(level: number): SummaryColumn[] {
     ...constantColumns('Ki', level),
     ...constantColumns('Kiu', level),
     ...constantColumns('alpha', level),
+    ...constantColumns('beta', level),
+    ...constantColumns('Et', level),
     { name: 'km', meaning: 'Km of the called mechanism', value: (r) => r.Km },
     { name: 'km_unit', meaning: 'unit of Km (the [S] unit of the run)', value: (r) => r.units.substrate },
     { name: 'vmax', meaning: 'Vmax of the called mechanism', value: (r) => r.Vmax },

@@ -41,6 +41,8 @@ export interface CompoundSummary {
   /** verdict outcome and called mechanism (null when failed) */
   outcome: VerdictOutcome | null;
   mechanism: Mechanism | null;
+  /** family of the call: classic, tight-binding or partial (null when failed) */
+  family: string | null;
   lean: 'competitive' | 'uncompetitive' | null;
   decisive: boolean | null;
   headline: string | null;
@@ -55,6 +57,9 @@ export interface CompoundSummary {
   Ki: ConstantSummary | null;
   Kiu: ConstantSummary | null;
   alpha: ConstantSummary | null;
+  /** residual activity of a partial call, and a fitted [E]t (null otherwise) */
+  beta: ConstantSummary | null;
+  Et: ConstantSummary | null;
   Km: number | null;
   Vmax: number | null;
   /**

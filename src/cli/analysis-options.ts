@@ -29,6 +29,8 @@ export interface SharedCliOptions {
   atSubstrate?: string;
   profile?: boolean;
   json?: boolean;
+  enzyme?: string;
+  partial?: boolean;
 }
 
 export function addSharedOptions(cmd: Command): Command {
@@ -47,7 +49,9 @@ export function addSharedOptions(cmd: Command): Command {
     .option('--seed <s>', 'seed of the bootstrap (same seed, same result)', '1')
     .option('--threads <t>', 'threads for the bootstrap (default: the available cores, at most 4)')
     .option('--at-substrate <x>', 'report the IC50 at this [S] (Cheng-Prusoff), with its unit (25uM; a plain number is in the [S] unit of the report)')
-    .option('--no-profile', 'skip the profile-likelihood intervals (Wald only)');
+    .option('--no-profile', 'skip the profile-likelihood intervals (Wald only)')
+    .option('--enzyme <conc>', 'total active enzyme for the tight-binding (Morrison) models, with its unit (5nM), or "fit" when unknown')
+    .option('--partial', 'also fit the partial (hyperbolic) models, where the inhibited complex still turns over');
 }
 
 export function parseOptionsFrom(o: SharedCliOptions): ParseOptions {
@@ -82,7 +86,25 @@ export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
     ...(o.robust ? { robust: true } : {}),
     level: numberOption('--level', o.level ?? '0.95', (x) => x > 0 && x < 1, 'a number between 0 and 1'),
     ...intervalOptionsFrom(o),
+    ...familyOptionsFrom(o),
   };
+}
+
+/** --enzyme CONC|fit and --partial. */
+export function familyOptionsFrom(o: Pick<SharedCliOptions, 'enzyme' | 'partial'>): AnalysisOptions {
+  const out: AnalysisOptions = {};
+  if (o.partial) out.partial = true;
+  if (o.enzyme !== undefined) {
+    const text = o.enzyme.trim();
+    if (text === 'fit') out.enzyme = 'fit';
+    else {
+      const m = /^([0-9]*\.?[0-9]+(?:[eE][+-]?[0-9]+)?)\s*(\S+)?$/.exec(text);
+      if (!m) throw new UsageError(`option --enzyme: "${o.enzyme}" is not a concentration with a unit (for example 5nM) or "fit"`);
+      if (!m[2]) throw new UsageError(`option --enzyme: "${o.enzyme}" needs a unit (M, mM, uM, nM or pM), for example ${m[1]}nM`);
+      out.enzyme = { value: Number(m[1]), unit: unitOption('--enzyme', m[2]) };
+    }
+  }
+  return out;
 }
 
 /** --bootstrap, --seed, --threads, --at-substrate and --no-profile; a progress bar unless --json. */

@@ -33,7 +33,7 @@ const MAX_REWEIGHT_PASSES = 40;
 const WEIGHT_CHANGE = 1e-7;
 
 function predict(model: MechanismModel, params: ArrayLike<number>, data: FitData, out: Float64Array): Float64Array {
-  for (let k = 0; k < out.length; k++) out[k] = model.rate(params, data.s[k], data.i[k]);
+  for (let k = 0; k < out.length; k++) out[k] = model.rate(params, data.s[k], data.i[k], data.e?.[k]);
   return out;
 }
 

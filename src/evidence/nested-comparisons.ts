@@ -15,6 +15,7 @@
  * Assoc. 82, 605-610): a small p is still strong evidence, a large one is not proof of absence.
  */
 import type { Mechanism } from '../models/types.js';
+import { nestedPairsAmong } from '../models/registry.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { weightsDependOnFit } from '../fit/error-models.js';
 import { extraSumOfSquaresTest } from '../stats/extra-sum-of-squares-test.js';
@@ -36,15 +37,10 @@ export interface NestedComparison {
   p: number;
 }
 
-const PAIRS: Array<[Mechanism, Mechanism]> = [
-  ['none', 'competitive'],
-  ['none', 'uncompetitive'],
-  ['none', 'noncompetitive'],
-  ['none', 'mixed'],
-  ['competitive', 'mixed'],
-  ['uncompetitive', 'mixed'],
-  ['noncompetitive', 'mixed'],
-];
+/**
+ * The pairs come from the models' own containment rules (src/models/registry.ts): for the classic
+ * five, none in each inhibited model, then competitive, uncompetitive and noncompetitive in mixed.
+ */
 
 export function compareNested(simpler: MechanismFit, fuller: MechanismFit): NestedComparison {
   const extra = fuller.p - simpler.p;
@@ -69,14 +65,8 @@ export function compareNested(simpler: MechanismFit, fuller: MechanismFit): Nest
   };
 }
 
-/** All standard nested pairs among the fits given (pairs with a missing model are skipped). */
+/** All nested pairs among the fits given, as their models declare them (pairs with a missing model are skipped). */
 export function nestedComparisons(fits: readonly MechanismFit[]): NestedComparison[] {
-  const by = new Map(fits.map((f) => [f.mechanism, f]));
-  const out: NestedComparison[] = [];
-  for (const [a, b] of PAIRS) {
-    const fa = by.get(a);
-    const fb = by.get(b);
-    if (fa && fb) out.push(compareNested(fa, fb));
-  }
-  return out;
+  const byModel = new Map(fits.map((f) => [f.model, f]));
+  return nestedPairsAmong(fits.map((f) => f.model)).map((pair) => compareNested(byModel.get(pair.simpler)!, byModel.get(pair.fuller)!));
 }

@@ -18,6 +18,13 @@ import type { ProfiledName } from './profiled-problem.js';
 
 export const SUPPORT_FACTOR = 1000;
 
+/**
+ * Residual activity below this is not told apart from full inhibition (0.1% of the uninhibited
+ * rate, under any assay's resolution; this project's choice): a beta profile that reaches it is
+ * open at the low end, i.e. consistent with beta = 0.
+ */
+export const BETA_FLOOR = 1e-3;
+
 export interface ProfileSupport {
   /** limits of the profiled quantity on the log scale */
   low: number;
@@ -55,5 +62,12 @@ export function profileSupport(data: FitData, name: ProfiledName): ProfileSuppor
       return { low: Math.log(vmax) - lnF, high: Math.log(vmax) + lnF, lnDetectionBound: lnBound };
     case 'alpha':
       return { low: lnLowK - lnBound, high: lnBound - lnLowK, lnDetectionBound: lnBound };
+    case 'beta':
+      // residual activity: from BETA_FLOOR (indistinguishable from full inhibition, the boundary
+      // beta = 0) up to SUPPORT_FACTOR (an activator at the far end)
+      return { low: Math.log(BETA_FLOOR), high: lnF, lnDetectionBound: lnBound };
+    case 'Et':
+      // total enzyme, on the inhibitor scale it is titrated against
+      return { low: lnLowK, high: lnBound, lnDetectionBound: lnBound };
   }
 }

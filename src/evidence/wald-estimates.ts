@@ -45,7 +45,7 @@ export function waldInterval(value: number, se: number, t: number, positive: boo
   return [value - t * se, value + t * se];
 }
 
-export type EstimateName = 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha';
+export type EstimateName = 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
 
 export interface ParameterEstimate {
   name: EstimateName;

@@ -37,9 +37,29 @@ function seriesLevels(values: Float64Array): SeriesLevels {
   return { values: levels, colours: seriesColours(levels.length), indexOf: Int32Array.from(values, (v) => at.get(v) ?? 0) };
 }
 
-/** The model the figures draw: the verdict's mechanism if it was fitted, else the AICc best. */
+/**
+ * The model the figures draw: the called model of another family when that family won (tight-binding,
+ * partial), else the classic model of the verdict's mechanism if it was fitted, else the AICc best.
+ */
 export function drawnModel(result: AnalysisResult): ModelResult {
+  const family = result.family && result.family.family !== 'classic' ? result.familyModels?.find((m) => m.modelId === result.family.model) : undefined;
+  return family ?? classicDrawnModel(result);
+}
+
+/** The classic model of the verdict's mechanism (the replots' line geometry is that of the classic laws). */
+export function classicDrawnModel(result: AnalysisResult): ModelResult {
   return result.models.find((m) => m.mechanism === result.verdict.mechanism) ?? result.models[0];
+}
+
+/** The name a figure or table gives a model: its registry id for the other families, else its mechanism. */
+export function modelName(m: ModelResult): string {
+  return m.modelId ?? m.mechanism;
+}
+
+/** v(S, I) of a fitted model from its own rate function ([E]t from the analysis for models that read it). */
+export function ownRate(result: AnalysisResult, m: ModelResult, s: number, i: number): number {
+  const e = result.enzyme && result.enzyme !== 'fitted' ? result.enzyme.value : undefined;
+  return m.fit.model.rate(m.fit.params, s, i, e);
 }
 
 /** The next model by AICc after the drawn one, when it converged. */
@@ -54,7 +74,7 @@ export function figureContext(result: AnalysisResult): FigureContext {
     result,
     units: axisUnits(result),
     best,
-    bestConstants: rateConstants(best),
+    bestConstants: rateConstants(best.family && best.family !== 'classic' ? classicDrawnModel(result) : best),
     runnerUp,
     runnerUpConstants: runnerUp ? rateConstants(runnerUp) : null,
     inhibitor: seriesLevels(result.data.i),

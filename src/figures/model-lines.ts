@@ -13,7 +13,7 @@ export const RUNNER_UP_DASH = '3.5 2';
 
 /** Key for the model lines of a figure. */
 export function modelLineKey(ctx: FigureContext, withRunnerUp: boolean): LegendItem[] {
-  const items: LegendItem[] = [{ label: `${ctx.best.mechanism} (global fit)`, colour: INK.text, line: true }];
+  const items: LegendItem[] = [{ label: `${ctx.best.modelId ?? ctx.best.mechanism} (global fit)`, colour: INK.text, line: true }];
   if (withRunnerUp && ctx.runnerUp) items.push({ label: `${ctx.runnerUp.mechanism} (runner-up)`, colour: INK.text, line: true, dash: RUNNER_UP_DASH });
   return items;
 }

@@ -10,7 +10,7 @@ import { renderXYFigure } from './xy-figure.js';
 import { paddedExtent } from './axes.js';
 import { withUnit } from './axis-units.js';
 import { drawMarkers, drawPolyline, grid, modelLineKey, BEST_LINE_WIDTH, RUNNER_UP_DASH, RUNNER_UP_LINE_WIDTH } from './model-lines.js';
-import { modelRate } from './replot-geometry.js';
+import { modelName, ownRate } from './figure-context.js';
 import type { LegendItem } from './legend.js';
 
 /** Legend items for the [I] series. */
@@ -30,7 +30,7 @@ export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): Fig
   const desc =
     `Measured initial rates against [S] for ${levels.length} inhibitor levels ` +
     `(${concentrationText(levels[0], ctx.units.inhibitor)} to ${concentrationText(levels[levels.length - 1], ctx.units.inhibitor)}), ` +
-    `with the curves of the global ${ctx.best.mechanism} fit` +
+    `with the curves of the global ${modelName(ctx.best)} fit` +
     (ctx.runnerUp ? ` (solid) and of ${ctx.runnerUp.mechanism}, the runner-up (dashed).` : '.') +
     (logSubstrate ? ' [S] on a logarithmic axis.' : '');
   const svg = renderXYFigure({
@@ -45,11 +45,10 @@ export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): Fig
     draw(g, x, y) {
       levels.forEach((level, k) => {
         const colour = ctx.inhibitor.colours[k];
-        if (ctx.runnerUpConstants) {
-          const c = ctx.runnerUpConstants;
-          drawPolyline(g, xs, xs.map((s) => modelRate(c, s, level)), x, y, { colour, width: RUNNER_UP_LINE_WIDTH, dash: RUNNER_UP_DASH, className: 'runner-up-line' });
-        }
-        drawPolyline(g, xs, xs.map((s) => modelRate(ctx.bestConstants, s, level)), x, y, { colour, width: BEST_LINE_WIDTH });
+        // every curve from the model's own rate function (MechanismModel.rate)
+        const runnerUp = ctx.runnerUp;
+        if (runnerUp) drawPolyline(g, xs, xs.map((s) => ownRate(ctx.result, runnerUp, s, level)), x, y, { colour, width: RUNNER_UP_LINE_WIDTH, dash: RUNNER_UP_DASH, className: 'runner-up-line' });
+        drawPolyline(g, xs, xs.map((s) => ownRate(ctx.result, ctx.best, s, level)), x, y, { colour, width: BEST_LINE_WIDTH });
       });
       drawMarkers(g, data.s, data.v, ctx.inhibitor.indexOf, ctx.inhibitor.colours, x, y);
     },
@@ -60,7 +59,7 @@ export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): Fig
     group: 'fit',
     title,
     caption:
-      `Points: measured rates (${data.v.length}), marker and shade per [I]. Lines: global ${ctx.best.mechanism} fit, all series at once` +
+      `Points: measured rates (${data.v.length}), marker and shade per [I]. Lines: global ${modelName(ctx.best)} fit, all series at once` +
       (ctx.runnerUp ? `; dashed: ${ctx.runnerUp.mechanism}, ranked second by AICc.` : '.'),
     svg,
   };

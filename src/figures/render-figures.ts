@@ -12,6 +12,7 @@ import { lineFamilyReplotFigures } from './replot-figures.js';
 import { seriesReplotFigures } from './series-replots.js';
 import { uncertaintyFigures } from './uncertainty-figures.js';
 import { ic50ShiftFigure } from './ic50-shift-figure.js';
+import { fractionalActivityFigures } from './fractional-activity.js';
 
 export function renderFigures(result: AnalysisResult): FigureOutput[] {
   const ctx = figureContext(result);
@@ -22,6 +23,7 @@ export function renderFigures(result: AnalysisResult): FigureOutput[] {
     residualsByFittedFigure(ctx),
     // only for an IC50-shift design (2-3 [S] levels with full [I] series)
     ...[ic50ShiftFigure(ctx)].filter((f): f is FigureOutput => f !== null),
+    ...fractionalActivityFigures(ctx),
     evidenceFigure(ctx),
     ...uncertaintyFigures(ctx),
     ...lineFamilyReplotFigures(ctx),

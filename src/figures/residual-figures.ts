@@ -6,7 +6,7 @@
  * within ±2 (common practice).
  */
 import type { FigureContext } from './figure-context.js';
-import { concentrationText } from './figure-context.js';
+import { concentrationText, modelName } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import type { Group } from './svg-document.js';
 import { serialiseSvg } from './svg-document.js';
@@ -76,12 +76,12 @@ export function residualsBySubstrateFigure(ctx: FigureContext): FigureOutput {
   const facetW = (COLUMN_WIDTH - left - EDGE - 4 - gapX * (cols - 1)) / cols;
   const rowH = titleH + facetH + FONT.tick + 10;
   const notes = [
-    `Model: global ${ctx.best.mechanism} fit. Dashed lines at ±2; the thin line joins the mean residual at each [S].`,
+    `Model: global ${modelName(ctx.best)} fit. Dashed lines at ±2; the thin line joins the mean residual at each [S].`,
   ];
   const inner = COLUMN_WIDTH - 2 * EDGE;
   const height = EDGE + rows * rowH + FONT.axisTitle + 6 + notesHeight(notes, inner) + 4 + EDGE;
   const desc =
-    `Scaled residuals of the global ${ctx.best.mechanism} fit against [S] (log axis), one panel per inhibitor level ` +
+    `Scaled residuals of the global ${modelName(ctx.best)} fit against [S] (log axis), one panel per inhibitor level ` +
     `(${levels.map((v) => concentrationText(v, ctx.units.inhibitor)).join(', ')}). A systematic run of positive or negative residuals within a panel points to a missed mechanism.`;
   const svg = startFigure({ id, title, desc, height: Math.ceil(height) });
   const root = svg.append('g') as unknown as Group;
@@ -143,7 +143,7 @@ export function residualsBySubstrateFigure(ctx: FigureContext): FigureOutput {
     file: 'residuals-substrate.svg',
     group: 'fit',
     title,
-    caption: `Residuals of the global ${ctx.best.mechanism} fit, scaled by the error model and the residual SD. A correct model scatters about zero in every panel; a run of same-signed residuals at high [S] or high [I] is the usual sign of a missed mechanism.`,
+    caption: `Residuals of the global ${modelName(ctx.best)} fit, scaled by the error model and the residual SD. A correct model scatters about zero in every panel; a run of same-signed residuals at high [S] or high [I] is the usual sign of a missed mechanism.`,
     svg: serialiseSvg(svg),
   };
 }
@@ -156,7 +156,7 @@ export function residualsByFittedFigure(ctx: FigureContext): FigureOutput {
   const svg = renderXYFigure({
     id,
     title,
-    desc: `Scaled residuals of the global ${ctx.best.mechanism} fit against the fitted rate, marker and shade per inhibitor level. A funnel shape suggests a different error model.`,
+    desc: `Scaled residuals of the global ${modelName(ctx.best)} fit against the fitted rate, marker and shade per inhibitor level. A funnel shape suggests a different error model.`,
     x: { title: withUnit('fitted v', ctx.units.rate), domain: paddedExtent(f, 0.05) },
     y: { title: RESIDUAL_TITLE, domain: residualDomain(r), ticks: 5 },
     seriesHeading: '[I]',

@@ -12,6 +12,8 @@ export interface FitData {
   sd?: Float64Array;
   /** concentration units of s and i, when the table knows them (for messages only; never for the fit) */
   units?: { substrate: string | null; inhibitor: string | null };
+  /** total active enzyme per point, in inhibitor units (tight-binding models only) */
+  e?: Float64Array;
 }
 
 export function fitDataFromTable(table: RateTable): FitData {
@@ -53,5 +55,5 @@ export function maxInhibitor(data: FitData): number {
 /** The points at the given indices, in that order. */
 export function subsetFitData(data: FitData, indices: readonly number[]): FitData {
   const pick = (a: Float64Array) => Float64Array.from(indices, (k) => a[k]);
-  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}) };
+  return { s: pick(data.s), i: pick(data.i), v: pick(data.v), ...(data.sd ? { sd: pick(data.sd) } : {}), ...(data.e ? { e: pick(data.e) } : {}) };
 }

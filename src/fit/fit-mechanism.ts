@@ -84,7 +84,7 @@ export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Flo
     residuals(x, r) {
       if (!toNatural(x)) return false;
       for (let k = 0; k < n; k++) {
-        const f = model.rate(p, data.s[k], data.i[k]);
+        const f = model.rate(p, data.s[k], data.i[k], data.e?.[k]);
         r[k] = sqrtW[k] * (data.v[k] - f);
         if (!Number.isFinite(r[k])) return false;
       }
@@ -93,7 +93,7 @@ export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Flo
     jacobian(x, J) {
       toNatural(x);
       for (let k = 0; k < n; k++) {
-        model.gradLog(p, data.s[k], data.i[k], grad, 0);
+        model.gradLog(p, data.s[k], data.i[k], grad, 0, data.e?.[k]);
         const row = k * m;
         for (let j = 0; j < m; j++) J[row + j] = -sqrtW[k] * grad[j];
       }
@@ -112,6 +112,10 @@ export function parameterLogScales(model: MechanismModel, data: FitData): Float6
     imax = Math.max(imax, data.i[k]);
   }
   const scale: Record<string, number> = { Vmax: vmax || 1, Km: smax || 1, Ki: imax || 1, Kiu: imax || 1 };
+  if (model.specs) {
+    const byDimension: Record<string, number> = { rate: vmax || 1, substrate: smax || 1, inhibitor: imax || 1, enzyme: imax || 1, dimensionless: 1 };
+    return Float64Array.from(model.specs.map((spec) => Math.log(byDimension[spec.dimension])));
+  }
   return Float64Array.from(model.params.map((name) => Math.log(scale[name])));
 }
 
@@ -213,6 +217,12 @@ export function domainEdge(model: MechanismModel, data: FitData, name: string): 
   return Math.exp(parameterLogScales(model, data)[j] + LOG_SPAN - 1);
 }
 
+/** The lower edge of a parameter's domain (a parameter whose effect vanishes at zero, e.g. beta). */
+export function domainLowEdge(model: MechanismModel, data: FitData, name: string): number {
+  const j = model.params.indexOf(name as never);
+  return Math.exp(parameterLogScales(model, data)[j] - LOG_SPAN + 1);
+}
+
 /**
  * The fit object of a model at given parameter values, without iterating (used to embed a nested
  * model's solution in a fuller model, where the extra constant sits at the edge of its domain).
@@ -271,7 +281,7 @@ function clampLog(x: number, centre: number): number {
 
 function predict(model: MechanismModel, theta: Float64Array, data: FitData, out: Float64Array): void {
   const p = theta.map(Math.exp);
-  for (let k = 0; k < out.length; k++) out[k] = model.rate(p, data.s[k], data.i[k]);
+  for (let k = 0; k < out.length; k++) out[k] = model.rate(p, data.s[k], data.i[k], data.e?.[k]);
 }
 
 function assembleFit(
@@ -302,7 +312,7 @@ function assembleFit(
   const jacobian = new Float64Array(n * m);
   const grad = new Float64Array(m);
   for (let k = 0; k < n; k++) {
-    model.gradLog(params, data.s[k], data.i[k], grad, 0);
+    model.gradLog(params, data.s[k], data.i[k], grad, 0, data.e?.[k]);
     for (let j = 0; j < m; j++) jacobian[k * m + j] = sqrtW[k] * grad[j];
   }
   const converged = result.converged && Number.isFinite(sse);

@@ -10,6 +10,7 @@ export const competitive: MechanismModel = {
   label: 'competitive',
   equation: 'v = Vmax·S / (Km·(1 + I/Ki) + S)',
   params: ['Vmax', 'Km', 'Ki'],
+  contains: [{ model: 'none', rules: [{ kind: 'limit', param: 'Ki', to: 'infinity' }] }],
   rate(p, s, i) {
     return (p[0] * s) / (p[1] * (1 + i / p[2]) + s);
   },

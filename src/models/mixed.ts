@@ -11,6 +11,12 @@ export const mixed: MechanismModel = {
   label: 'mixed',
   equation: 'v = Vmax·S / (Km·(1 + I/Ki) + S·(1 + I/Kiu))',
   params: ['Vmax', 'Km', 'Ki', 'Kiu'],
+  contains: [
+    { model: 'none', rules: [{ kind: 'limit', param: 'Ki', to: 'infinity' }, { kind: 'limit', param: 'Kiu', to: 'infinity' }] },
+    { model: 'competitive', rules: [{ kind: 'limit', param: 'Kiu', to: 'infinity' }] },
+    { model: 'uncompetitive', rules: [{ kind: 'limit', param: 'Ki', to: 'infinity' }] },
+    { model: 'noncompetitive', rules: [{ kind: 'equal', param: 'Kiu', sameAs: 'Ki' }] },
+  ],
   rate(p, s, i) {
     return (p[0] * s) / (p[1] * (1 + i / p[2]) + s * (1 + i / p[3]));
   },

@@ -10,6 +10,7 @@ export const noncompetitive: MechanismModel = {
   label: 'noncompetitive',
   equation: 'v = Vmax·S / ((Km + S)·(1 + I/Ki))',
   params: ['Vmax', 'Km', 'Ki'],
+  contains: [{ model: 'none', rules: [{ kind: 'limit', param: 'Ki', to: 'infinity' }] }],
   rate(p, s, i) {
     return (p[0] * s) / ((p[1] + s) * (1 + i / p[2]));
   },

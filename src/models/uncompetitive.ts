@@ -11,6 +11,7 @@ export const uncompetitive: MechanismModel = {
   label: 'uncompetitive',
   equation: 'v = Vmax·S / (Km + S·(1 + I/Kiu))',
   params: ['Vmax', 'Km', 'Kiu'],
+  contains: [{ model: 'none', rules: [{ kind: 'limit', param: 'Kiu', to: 'infinity' }] }],
   rate(p, s, i) {
     return (p[0] * s) / (p[1] + s * (1 + i / p[2]));
   },

@@ -18,7 +18,8 @@ import type { DesignPoint, PlanNoise, PriorPoint } from './design-types.js';
 /** The model's parameter vector (natural scale) at a prior point. */
 export function paramsAt(model: MechanismModel, point: PriorPoint): number[] {
   return model.params.map((name: ParamName) => {
-    const value = point[name];
+    // the plan covers the classic models: their constants are the fields of a prior point
+    const value = (point as unknown as Partial<Record<ParamName, number>>)[name];
     if (value === undefined || !(value > 0)) throw new Error(`prior point has no positive ${name} for ${model.label}`);
     return value;
   });

@@ -65,6 +65,8 @@ export function modelJson(m: ModelResult, level: number): { [key: string]: Json 
   for (const e of m.estimates) params[e.name] = estimateJson(e, level);
   return {
     mechanism: m.mechanism,
+    family: m.family ?? 'classic',
+    ...(m.modelId ? { model: m.modelId } : {}),
     equation: m.equation,
     converged: m.converged,
     message: m.message,
@@ -88,6 +90,12 @@ export function modelJson(m: ModelResult, level: number): { [key: string]: Json 
   };
 }
 
+/** `input.enzyme`: { value, unit, source } when [E]t was given, "fitted", or null. */
+function enzymeJson(e: AnalysisResult['enzyme']): Json {
+  if (e === null || e === 'fitted') return e;
+  return { value: jsonNumber(e.value), unit: e.unit, source: e.source };
+}
+
 export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
   const input = result.input;
   return {
@@ -106,10 +114,12 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
         : null,
       units: { substrate: input.units.substrate, inhibitor: input.units.inhibitor, rate: input.units.rate },
       warnings: input.warnings.map((w) => ({ code: w.code, message: w.message })),
+      enzyme: enzymeJson(result.enzyme),
     },
     errorModel: result.errorModel,
     level: result.level,
-    models: result.models.map((m) => modelJson(m, result.level)),
+    // the classic five ranked by AICc, then the models of the other families fitted (each family ranked within itself)
+    models: [...result.models, ...(result.familyModels ?? [])].map((m) => modelJson(m, result.level)),
     nested: result.nested.map((c) => ({
       simpler: c.simpler,
       fuller: c.fuller,
@@ -135,6 +145,9 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       : {}),
     verdict: {
       mechanism: result.verdict.mechanism,
+      family: result.family.family,
+      ...(result.family.family !== 'classic' ? { model: result.family.model } : {}),
+      ...(result.family.reasons.length || result.family.suggestions.length ? { familyNotes: [...new Set([...result.family.reasons, ...result.family.suggestions])] } : {}),
       outcome: result.verdict.outcome,
       ...(result.verdict.lean ? { lean: result.verdict.lean } : {}),
       decisive: result.verdict.decisive,

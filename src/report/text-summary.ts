@@ -1,4 +1,5 @@
 /** The plain-text summary printed by `mechanist analyze` (without --json). */
+import { dimensionOfName, unitOfDimension } from '../models/registry.js';
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from './format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
@@ -14,11 +15,8 @@ function padLeft(s: string, w: number): string {
 }
 
 function unitOf(name: string, result: AnalysisResult): string {
-  const u = result.input.units;
-  if (name === 'Km') return u.substrate ?? '';
-  if (name === 'Ki' || name === 'Kiu') return u.inhibitor ?? '';
-  if (name === 'Vmax') return u.rate ?? '';
-  return '';
+  // from the parameter's dimension (src/models/registry.ts)
+  return unitOfDimension(dimensionOfName(name), result.input.units);
 }
 
 export function modelTable(models: readonly ModelResult[]): string[] {
@@ -81,6 +79,18 @@ export function derivedLines(model: ModelResult, result: AnalysisResult): string
   return lines;
 }
 
+/** The family notes (tight-binding, partial, the hint to give [E]t), when there are any. */
+function familyLines(result: AnalysisResult): string[] {
+  const f = result.family;
+  if (!f || (f.family === 'classic' && f.reasons.length === 0 && f.suggestions.length === 0)) return [];
+  const out = [`  Family: ${f.family}${result.enzyme === 'fitted' ? ' ([E]t fitted)' : result.enzyme ? ` ([E]t = ${result.enzyme.value} ${result.enzyme.unit ?? ''}`.trimEnd() + ')' : ''}`];
+  if (f.family === 'classic') {
+    for (const r of f.reasons) out.push(`  - ${r}`);
+    for (const s of f.suggestions) out.push(`  * ${s}`);
+  }
+  return out;
+}
+
 export function textSummary(result: AnalysisResult): string {
   const inp = result.input;
   const v = result.verdict;
@@ -96,13 +106,25 @@ export function textSummary(result: AnalysisResult): string {
     lines.push('  To settle it:');
     for (const s of advice) lines.push(`  * ${s}`);
   }
+  lines.push(...familyLines(result));
   lines.push('');
   lines.push('Models, ranked by AICc:');
   lines.push(...modelTable(result.models));
+  const familyModel = result.family && result.family.family !== 'classic' ? result.familyModels?.find((m) => m.modelId === result.family.model) : undefined;
+  if (result.familyModels?.length) {
+    lines.push('');
+    lines.push('Other families (each ranked by AICc within itself):');
+    lines.push(...modelTable(result.familyModels.map((m) => ({ ...m, mechanism: (m.modelId ?? m.mechanism) as typeof m.mechanism }))));
+  }
   lines.push('');
-  lines.push(`Parameters of ${best.mechanism} (global fit):`);
-  lines.push(...parameterLines(best, result));
-  lines.push(...derivedLines(best, result));
+  if (familyModel) {
+    lines.push(`Parameters of ${familyModel.modelId} (global fit):`);
+    lines.push(...parameterLines(familyModel, result));
+  } else {
+    lines.push(`Parameters of ${best.mechanism} (global fit):`);
+    lines.push(...parameterLines(best, result));
+    lines.push(...derivedLines(best, result));
+  }
   const checks = diagnosticLines(result);
   if (checks.length) {
     lines.push('');

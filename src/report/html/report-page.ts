@@ -98,7 +98,7 @@ ${replots.length ? grid(replots) : '<p>No replots could be drawn.</p>'}
 </section>
 ${dataSection(result)}
 ${methodsSection(result)}
-${cautionsSection()}
+${cautionsSection(result)}
 </main>
 ${provenanceFooter(result, input.provenance)}
 </body>

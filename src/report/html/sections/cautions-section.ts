@@ -1,5 +1,6 @@
 /** What the models assume, and what the report cannot check for the reader (own wording). */
 import { escapeHtml } from '../escape.js';
+import type { AnalysisResult } from '../../../analysis/types.js';
 
 export const CAUTIONS: readonly string[] = [
   'This is a research tool. It organises the evidence; the call on a compound stays with someone who knows the assay.',
@@ -12,9 +13,19 @@ export const CAUTIONS: readonly string[] = [
   'The replots are drawn for the eye only. Every constant in this report comes from the global fit of the untransformed rates.',
 ];
 
-export function cautionsSection(): string {
+/** Cautions that replace or add to the list when the tight-binding or partial family was fitted. */
+export const TIGHT_BINDING_CAUTION =
+  'The tight-binding models take [E]t to be the concentration of active enzyme: a nominal protein concentration that includes inactive enzyme overstates it and biases Ki; an active-site titration gives the right value, and --enzyme fit estimates it when [I] spans it.';
+export const PARTIAL_CAUTION =
+  'A rate that levels off at high [I] can also come from the compound reaching its solubility limit or forming aggregates; check the top concentrations before reading the plateau as partial inhibition.';
+
+export function cautionsSection(result?: AnalysisResult): string {
+  const tight = result?.enzyme !== null && result?.enzyme !== undefined;
+  const partial = result?.familyModels?.some((m) => m.family === 'partial') ?? false;
+  const items = CAUTIONS.map((c, k) => (tight && k === 3 ? TIGHT_BINDING_CAUTION : c));
+  if (partial) items.push(PARTIAL_CAUTION);
   return `<section id="cautions">
 <h2>Before relying on these numbers</h2>
-<ul class="cautions">${CAUTIONS.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>
+<ul class="cautions">${items.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>
 </section>`;
 }

@@ -68,7 +68,7 @@ export function dataSection(result: AnalysisResult): string {
   }
   rows.sort((a, b) => a.line - b.line);
   const full = htmlTable(
-    [cell('line', true), cell(head('[S]', su), true), cell(head('[I]', iu), true), cell(head('v', vu), true), ...(hasSd ? [cell('sd', true)] : []), cell(escapeHtml(`fitted (${model.mechanism})`), true), cell('scaled residual', true), cell('status')],
+    [cell('line', true), cell(head('[S]', su), true), cell(head('[I]', iu), true), cell(head('v', vu), true), ...(hasSd ? [cell('sd', true)] : []), cell(escapeHtml(`fitted (${model.modelId ?? model.mechanism})`), true), cell('scaled residual', true), cell('status')],
     rows.map((r) => r.cells),
   );
   const inp = result.input;

@@ -290,13 +290,13 @@ ${htmlTable(
 
 export function fitChecksSection(result: AnalysisResult): string {
   const model = drawnModel(result);
-  const d = result.residualChecks?.[model.mechanism];
+  const d = model.modelId ? result.familyResidualChecks?.[model.modelId] : result.residualChecks?.[model.mechanism];
   const tests = d
     ? `${testsTable(d)}\n<h3>Suspect points</h3>\n${suspectsBlock(result, model, d)}`
     : '<p>The residual tests need residual degrees of freedom; this fit has none.</p>';
   return `<section id="checks">
-<h2>Checks on the ${escapeHtml(model.mechanism)} fit</h2>
-<p class="lead">${escapeHtml(`Does the ${model.mechanism} model miss the data somewhere? A check is marked when its p falls below ${DIAGNOSTIC_LEVEL}. Runs (Wald & Wolfowitz 1940) follow the mean residual of each condition along [S] within each [I] series; lack of fit compares with the replicate scatter (Draper & Smith 1998); trends are Spearman rank correlations; normality is Shapiro-Wilk (Royston 1995).`)}</p>
+<h2>Checks on the ${escapeHtml(model.modelId ?? model.mechanism)} fit</h2>
+<p class="lead">${escapeHtml(`Does the ${model.modelId ?? model.mechanism} model miss the data somewhere? A check is marked when its p falls below ${DIAGNOSTIC_LEVEL}. Runs (Wald & Wolfowitz 1940) follow the mean residual of each condition along [S] within each [I] series; lack of fit compares with the replicate scatter (Draper & Smith 1998); trends are Spearman rank correlations; normality is Shapiro-Wilk (Royston 1995).`)}</p>
 ${tests}
 <h3>Error model</h3>
 ${errorModelBlock(result)}

@@ -3,6 +3,7 @@
  * intervals, each with the publication it comes from. Only the methods this analysis used are
  * listed (profile and bootstrap intervals appear when they were computed).
  */
+import { FAMILY_LEVEL, TIGHT_BINDING_RATIO } from '../../../evidence/family-comparison.js';
 import type { AnalysisResult } from '../../../analysis/types.js';
 import type { ErrorModel } from '../../../fit/error-models.js';
 import { escapeHtml } from '../escape.js';
@@ -68,7 +69,7 @@ export function methodsSection(result: AnalysisResult): string {
 <h2>Methods</h2>
 <h3>Rate laws</h3>
 <p>Rapid-equilibrium, single-substrate, reversible inhibition with [E] well below Ki (Segel 1975; Cornish-Bowden 2012). S = [S], I = [I]; Ki is the dissociation constant of EI, Kiu that of ESI, and alpha = Kiu/Ki.</p>
-<ul class="equations">${equations}</ul>
+<ul class="equations">${equations}</ul>${familyMethods(result)}
 <h3>Fitting</h3>
 <p>All inhibitor series are fitted at once (global fit) by weighted nonlinear least squares on the untransformed rates, with the constants on the log scale so they stay positive, by Levenberg-Marquardt steps (Moré 1978) from several data-driven starts and warm starts from the nested models. Error model: ${escapeHtml(ERROR_MODEL_TEXT[result.errorModel])} Where the weights follow the fit they are iterated (Carroll &amp; Ruppert 1988) and the log-likelihood keeps the sum of log weights, so it stays comparable between mechanisms.</p>
 <p>An inhibition constant above ${DETECTION_FACTOR} times the highest [I] tested changes the rate by under 1% anywhere in the design; it is reported as not detected rather than as a number (this project's rule).</p>
@@ -85,6 +86,20 @@ export function methodsSection(result: AnalysisResult): string {
 <h3>References</h3>
 <ol class="references">${referenceList(usedOnlySometimes(result, hasBootstrap))}</ol>
 </section>`;
+}
+
+/** The other families' rate laws and rule, when any were fitted (empty otherwise). */
+function familyMethods(result: AnalysisResult): string {
+  const models = result.familyModels ?? [];
+  if (!models.length) return '';
+  const equations = models.map((m) => `<li><strong>${escapeHtml(m.modelId ?? m.mechanism)}</strong>: <code>${escapeHtml(m.equation)}</code></li>`).join('');
+  const tight = models.some((m) => m.family === 'tight-binding')
+    ? `<p>Tight binding: total enzyme E and total inhibitor I, the Morrison quadratic (Morrison, J. F. (1969) Biochim. Biophys. Acta 185, 269-286), with the mechanism in the apparent constant K = Ki_app([S]) (Williams &amp; Morrison 1979; Copeland 2013, ch. 7), computed without cancellation. It replaces the classic call when Ki_app is within ${TIGHT_BINDING_RATIO}-fold of [E]t.</p>`
+    : '';
+  const partial = models.some((m) => m.family === 'partial')
+    ? `<p>Partial (hyperbolic) inhibition: the enzyme-substrate-inhibitor complex turns over at beta times kcat (Segel 1975, ch. 4). Full inhibition, beta = 0, is a boundary, tested with the 50:50 chi-square mixture (Self &amp; Liang 1987) at p &lt; ${FAMILY_LEVEL}.</p>`
+    : '';
+  return `\n<h3>Other families fitted</h3>${tight}${partial}<ul class="equations">${equations}</ul>`;
 }
 
 /** References cited only when the method ran: true when it did. */

@@ -50,18 +50,19 @@ function headers(cols: IntervalColumn[]): Cell[] {
 export function parametersSection(result: AnalysisResult): string {
   const pct = Math.round(result.level * 100);
   const model = drawnModel(result);
-  const cols = intervalColumns(result.models, pct);
+  const all = [...result.models, ...(result.familyModels ?? [])];
+  const cols = intervalColumns(all, pct);
   const main = htmlTable(headers(cols), model.estimates.map((e) => estimateRow(e, result, cols)));
-  const others = result.models
+  const others = all
     .filter((m) => m !== model)
     .map(
-      (m) => `<h4>${escapeHtml(m.mechanism)} <span class="muted">(ΔAICc ${escapeHtml(Number.isFinite(m.deltaAicc) ? m.deltaAicc.toFixed(1) : '–')})</span></h4>
+      (m) => `<h4>${escapeHtml(m.modelId ?? m.mechanism)} <span class="muted">(ΔAICc ${escapeHtml(Number.isFinite(m.deltaAicc) ? m.deltaAicc.toFixed(1) : '–')})</span></h4>
 ${htmlTable(headers(cols), m.estimates.map((e) => estimateRow(e, result, cols)))}`,
     )
     .join('\n');
   const openEnds = model.estimates.some((e) => e.profile && (e.profile[0] === null || e.profile[1] === null));
   return `<section id="constants">
-<h2>Constants of the ${escapeHtml(model.mechanism)} model</h2>
+<h2>Constants of the ${escapeHtml(model.modelId ?? model.mechanism)} model</h2>
 <p class="lead">Global fit of all inhibitor series at once (${escapeHtml(model.equation)}). Intervals at ${pct}%; the Wald interval is symmetric by construction${cols.length > 1 ? ', the profile and bootstrap intervals need not be' : ''}.${openEnds ? ' An interval end shown as “…” is open: the data do not bound the constant on that side.' : ''}</p>
 ${main}
 <details class="other-models"><summary>Constants of the other mechanisms</summary>

@@ -14,6 +14,13 @@ const OUTCOME_LABEL: Record<string, string> = {
   'no-inhibition': 'no inhibition seen',
 };
 
+/** Notes on the other families when the call stayed classic (why, or the hint to give [E]t); '' when there are none. */
+function familyNotes(result: AnalysisResult): string {
+  const f = result.family;
+  if (!f || f.family !== 'classic' || (f.reasons.length === 0 && f.suggestions.length === 0)) return '';
+  return `\n<h3>Tight binding and partial inhibition</h3><ul class="family-notes">${[...f.reasons, ...f.suggestions].map((t) => `<li>${escapeHtml(t)}</li>`).join('')}</ul>`;
+}
+
 export function verdictSection(result: AnalysisResult): string {
   const v = result.verdict;
   const model = drawnModel(result);
@@ -40,6 +47,6 @@ export function verdictSection(result: AnalysisResult): string {
 <ul class="key-constants">${keys}</ul>
 <h3>Why</h3>
 <ul class="reasons">${reasons}</ul>
-${suggestions}
+${suggestions}${familyNotes(result)}
 </section>`;
 }
