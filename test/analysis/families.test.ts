@@ -169,7 +169,7 @@ describe('command line', () => {
   });
   it('a bad enzyme cell stops with file and line (exit 2)', async () => {
     const f = join(dir, 'bad.csv');
-    writeFileSync(f, 'substrate,inhibitor,rate,enzyme\n1,0,1,5\n2,0,1.5,5\n4,0,2,x\n8,1,2,5\n16,1,3,5\n1,2,0.5,5\n');
+    writeFileSync(f, 'substrate,inhibitor,rate,enzyme\n1,0,1,5\n2,0,1.5,5\n4,0,2,x\n8,1,2,5\n16,1,3,5\n1,2,0.5,5\n32,2,1.2,5\n'); // 7 points: the analysis floor
     const r = await run(['analyze', f]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/bad\.csv:4: the enzyme column holds "x"/);
