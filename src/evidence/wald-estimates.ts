@@ -111,38 +111,20 @@ export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0
 
   const t = fit.df > 0 ? tQuantile(0.5 + level / 2, fit.df) : NaN;
   const estimates: ParameterEstimate[] = names.map((name, j) => {
-    if (tooLow[j]) {
-      return {
-        name,
-        value: null,
-        se: null,
-        wald: null,
-        detected: false,
+    if (tooLow[j])
+      return withoutInterval(name, null, false, {
         below: lowBound,
         note: `${name} < ${formatBound(lowBound)}: not determined (the fit runs to zero along a ridge, where the data see only its ratio to another constant)`,
-      };
-    }
-    if (ridge[j]) {
-      return {
-        name,
-        value: fit.params[j],
-        se: null,
-        wald: null,
-        detected: true,
+      });
+    if (ridge[j])
+      return withoutInterval(name, fit.params[j], true, {
         note: `${name} is not determined: the fit runs along a ridge to ${formatBound(fit.params[j])}, over ${RIDGE_FACTOR} x the highest ${name === 'Vmax' ? 'rate' : '[S]'} measured`,
-      };
-    }
-    if (!detected[j]) {
-      return {
-        name,
-        value: null,
-        se: null,
-        wald: null,
-        detected: false,
+      });
+    if (!detected[j])
+      return withoutInterval(name, null, false, {
         exceeds: bound,
         note: `${name} > ${formatBound(bound)}: the ${ARM_NAMES[name]} is not detected in the tested inhibitor range`,
-      };
-    }
+      });
     const value = fit.params[j];
     const seTheta = Math.sqrt(cov[j * m + j]);
     return finiteEstimate(name, value, value * seTheta, t);
@@ -150,6 +132,11 @@ export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0
 
   if (fit.mechanism === 'mixed') estimates.push(alphaEstimate(fit, cov, detected, t));
   return { estimates, residualVariance: s2, logCovariance: cov, level };
+}
+
+/** An estimate reported without SE or interval, with the note that says why. */
+function withoutInterval(name: EstimateName, value: number | null, detected: boolean, extra: Pick<ParameterEstimate, 'below' | 'exceeds' | 'note'>): ParameterEstimate {
+  return { name, value, se: null, wald: null, detected, ...extra };
 }
 
 function finiteEstimate(name: EstimateName, value: number, se: number, t: number): ParameterEstimate {
