@@ -3,7 +3,6 @@
  * reads files, a plate map, the conversion and the window choice. Reads the files, runs the reads
  * stage and returns the rate table text with the notes to print.
  */
-import type { Command } from 'commander';
 import { existsSync, statSync } from 'node:fs';
 import { basename, extname, resolve } from 'node:path';
 import { InputError } from '../input/types.js';
@@ -20,29 +19,9 @@ import {
   type RatesOptions,
 } from '../reads/index.js';
 import { UsageError } from './exit-codes.js';
+import type { ReadsCliOptions } from './reads-options.js';
+export type { ReadsCliOptions } from './reads-options.js';
 import { numberOption, positiveNumber } from './parse-option-values.js';
-
-export interface ReadsCliOptions {
-  plateMap?: string;
-  conversion?: string;
-  pathLength?: string;
-  ceiling?: string;
-  rateFrom?: string;
-  depletionCorrection?: boolean;
-}
-
-/** Adds --plate-map, --conversion, --path-length, --ceiling and --rate-from. */
-export function addReadsOptions(cmd: Command, mapRequired: boolean): Command {
-  const map = '--plate-map <file>';
-  const mapHelp = 'plate map CSV: well,compound,substrate (unit),inhibitor (unit)[,role][,plate]';
-  (mapRequired ? cmd.requiredOption(map, mapHelp) : cmd.option(map, `${mapHelp} (with --reads)`));
-  return cmd
-    .option('--conversion <factor|file>', 'signal per product concentration (6.22/mM; 6220/M/cm with --path-length) or a standard-curve CSV (concentration (unit),signal)')
-    .option('--path-length <cm>', 'optical path length in cm, for a conversion per cm (Beer-Lambert law)')
-    .option('--ceiling <signal>', 'detector ceiling: reads at or above it are saturated (default: the plate top value, when repeated)')
-    .option('--no-depletion-correction', 'report the window slope as it is, without correcting it for the substrate used in the window')
-    .option('--rate-from <method>', 'window (straight early window, default) | integrated (v0 of the integrated Michaelis-Menten fit where valid)', 'window');
-}
 
 export interface ReadsRun {
   result: PlateRates;

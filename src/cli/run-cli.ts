@@ -9,7 +9,6 @@ import {
   EXIT_ANALYSIS_FAILED, EXIT_BAD_INPUT, EXIT_CODE_HELP, EXIT_INTERRUPTED, EXIT_OK, EXIT_TERMINATED, EXIT_WRITE_FAILED, UsageError,
 } from './exit-codes.js';
 import { OutputError } from '../report/output-error.js';
-import { InterruptedError } from '../batch/worker-pool.js';
 import type { CliIo } from './io.js';
 import { analyzeCommand } from './commands/analyze.js';
 import { simulateCommand } from './commands/simulate.js';
@@ -81,6 +80,11 @@ function oneLine(s: string): string {
  * An AnalysisError (src/analysis/analyze-table.ts), told by its name and exit code rather than by
  * instanceof, so that the CLI does not load the analysis code at start-up just to recognise it.
  */
+/** A batch stopped by Ctrl-C or SIGTERM (src/batch/worker-pool.ts), known by name so that the batch code is not loaded at start-up. */
+function isInterrupted(e: unknown): e is Error & { signal?: string } {
+  return e instanceof Error && e.name === 'InterruptedError';
+}
+
 function isAnalysisError(e: unknown): e is Error {
   return e instanceof Error && e.name === 'AnalysisError' && (e as { exitCode?: unknown }).exitCode === EXIT_ANALYSIS_FAILED;
 }
@@ -99,8 +103,8 @@ export function reportFailure(e: unknown, io: CliIo): number {
     io.err(`mechanist: ${oneLine(e.message)}\n`);
     return e.stage === 'check' ? EXIT_BAD_INPUT : EXIT_WRITE_FAILED;
   }
-  if (e instanceof InterruptedError) {
-    const signal = (e as InterruptedError & { signal?: string }).signal;
+  if (isInterrupted(e)) {
+    const signal = e.signal;
     io.err(`mechanist: interrupted${signal ? ` (${signal})` : ''}; the summary was not written and temporary files were removed\n`);
     return signal === 'SIGTERM' ? EXIT_TERMINATED : EXIT_INTERRUPTED;
   }

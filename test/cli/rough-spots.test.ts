@@ -19,7 +19,7 @@ async function cli(args: string[], cwd = process.cwd()): Promise<{ code: number;
 
 describe('one style for every error message: "mechanist: ..." on one line, exit 2 for usage', () => {
   const cases: Array<[string[], string]> = [
-    [['analyze'], "mechanist: missing required argument 'file'\n"],
+    [['analyze'], 'mechanist: analyze needs a rate table FILE, or --reads READS --plate-map MAP\n'],
     [['analyze', 'x.csv', '--bogus'], "mechanist: unknown option '--bogus' (did you mean --robust?)\n"],
     [['frob'], "mechanist: unknown command 'frob'\n"],
     [['batch', 'x.csv'], "mechanist: required option '--out <dir>' not specified\n"],

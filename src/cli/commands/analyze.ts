@@ -2,7 +2,7 @@
 import { Command } from 'commander';
 import { addSharedOptions } from '../analysis-options.js';
 import type { CliIo } from '../io.js';
-import { addReadsOptions } from '../reads-input.js';
+import { addReadsOptions } from '../reads-options.js';
 import type { AnalyzeCliOptions } from './analyze-action.js';
 
 export function analyzeCommand(io: CliIo): Command {

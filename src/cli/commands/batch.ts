@@ -11,7 +11,7 @@ import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsF
 import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption } from '../parse-option-values.js';
-import { addReadsOptions, readsSummaryLine, runReads, type ReadsCliOptions } from '../reads-input.js';
+import { addReadsOptions, type ReadsCliOptions } from '../reads-options.js';
 import { writeFileAtomic } from '../../report/write-atomic.js';
 import { join, resolve } from 'node:path';
 import { UsageError } from '../exit-codes.js';
@@ -46,6 +46,8 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
   cmd.action(async (given: string[], o: BatchCliOptions) => {
     const inputs = [...given];
     if (o.reads !== undefined) {
+      // the reads code is loaded only when reads are given
+      const { readsSummaryLine, runReads } = await import('../reads-input.js');
       const run = await runReads(o.reads, o, io.cwd);
       if (!o.quiet) for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
       if (!o.quiet) io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);

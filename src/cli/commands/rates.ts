@@ -3,16 +3,13 @@
  * written as a long rate table that `analyze` and `batch` read as it is.
  */
 import { Command } from 'commander';
-import { join, resolve } from 'node:path';
-import { readsReportHtml } from '../../report/html/reads-page.js';
+import type { CliIo } from '../io.js';
+import { addReadsOptions, type ReadsCliOptions } from '../reads-options.js';
 
 /** The page that --report writes. */
 export const READS_PAGE = 'reads.html';
-import { writeFileAtomic } from '../../report/write-atomic.js';
-import type { CliIo } from '../io.js';
-import { addReadsOptions, readsSummaryLine, runReads, type ReadsCliOptions } from '../reads-input.js';
 
-interface RatesCliOptions extends ReadsCliOptions {
+export interface RatesCliOptions extends ReadsCliOptions {
   out?: string;
   report?: string;
   quiet?: boolean;
@@ -26,21 +23,7 @@ export function ratesCommand(io: CliIo): Command {
     .option('--report <dir>', 'also write <dir>/reads.html: one panel per well with its reads, window and line, by compound, [S] and [I]')
     .option('--quiet', 'no notes on stderr');
   addReadsOptions(cmd, true);
-  cmd.action(async (readsPaths: string[], o: RatesCliOptions) => {
-    const run = await runReads(readsPaths, o, io.cwd);
-    if (o.out) {
-      writeFileAtomic(resolve(io.cwd, o.out), run.text);
-    } else {
-      io.out(run.text);
-    }
-    if (o.report) {
-      const page = join(resolve(io.cwd, o.report), READS_PAGE);
-      writeFileAtomic(page, readsReportHtml(run.result, { date: new Date().toISOString().slice(0, 10) }));
-    }
-    if (!o.quiet) {
-      for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
-      io.err(`mechanist: ${readsSummaryLine(run.result)}${o.out ? `; wrote ${o.out}` : ''}${o.report ? `; page ${join(o.report, READS_PAGE)}` : ''}\n`);
-    }
-  });
+  // the reads code is loaded when the command runs, not at start-up
+  cmd.action(async (readsPaths: string[], o: RatesCliOptions) => (await import('./rates-action.js')).runRates(io, readsPaths, o));
   return cmd;
 }
