@@ -15,11 +15,13 @@
  * mixed; a "mixed, leaning ..." call of mixed data is right). The analysis runs with the CLI's
  * defaults (the error model chosen by likelihood), detail 'summary' (the same verdict as 'full').
  *
- *   node bench/verdict-space-bench.mjs [datasets-per-cell=40] [--write] [--features FILE] [--error MODEL]
- * --write writes docs/verdict-design-space.md; --features writes one JSON line per dataset.
+ *   node bench/verdict-space-bench.mjs [datasets-per-cell=40] [--write] [--features FILE] [--error MODEL] [--compare FILE]
+ * --write writes docs/verdict-design-space.md; --features writes one JSON line per dataset;
+ * --compare FILE adds the firm shares of an earlier run's --features file (the same seeds) beside
+ * the pooled table, for a before/after comparison.
  */
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { cpus } from 'node:os';
 import { fileURLToPath } from 'node:url';
 
@@ -75,7 +77,7 @@ async function runTask(t, lib) {
     mixedAlpha: pick(est('alpha')), mixedKi: pick(est('Ki')), mixedKiu: pick(est('Kiu')),
     aicc: Object.fromEntries(r.models.map((x) => [x.mechanism, x.aicc])),
     nested: r.nested.map((c) => [c.simpler, c.fuller, c.p]),
-    ...(workerData.features && mixed ? { taus: Object.fromEntries([0.05, 0.1, 0.2, 0.5, 1 / 1.5, 1.5, 2, 5, 10, 20].map((a) => [a, lib.profileTauAt(mixed.fit, r.data, 'alpha', a).tau])), df: mixed.fit.df } : {}),
+    ...(workerData.features && mixed && lib.profileTauAt ? { taus: Object.fromEntries([0.05, 0.1, 0.2, 0.5, 1 / 1.5, 1.5, 2, 5, 10, 20].map((a) => [a, lib.profileTauAt(mixed.fit, r.data, 'alpha', a).tau])), df: mixed.fit.df } : {}),
   };
 }
 
@@ -165,12 +167,32 @@ if (!isMainThread) {
           out.push(`| ${design} | ${placement} | ${noise * 100}% | ${truth.name} | ${t.n} | ${pct(t.firmRight, t.n)} | ${pct(t.wrong, t.n)} | ${pct(t.right, t.n)} |`);
         }
   out.push('', `summary: worst split cell: firm and wrong ${pct(worstSplit.share, 1)} (${worstSplit.label})`);
-  out.push('', '## Pooled over placement and noise', '', '| design | truth | n | firm, right | firm, wrong |', '|---|---|---:|---:|---:|');
+  const compareAt = args.indexOf('--compare');
+  const before = compareAt >= 0 ? readFileSync(args[compareAt + 1], 'utf8').trim().split('\n').map((l) => JSON.parse(l)) : null;
+  const pooledHeader = before
+    ? ['| design | truth | n | firm, right | firm, wrong | before: firm, right | before: firm, wrong |', '|---|---|---:|---:|---:|---:|---:|']
+    : ['| design | truth | n | firm, right | firm, wrong |', '|---|---|---:|---:|---:|'];
+  out.push('', '## Pooled over placement and noise', '', ...pooledHeader);
   for (const design of Object.keys(DESIGNS))
     for (const truth of TRUTHS) {
       const t = tally(rows.filter((r) => r.design === design && r.truth === truth.name));
-      out.push(`| ${design} | ${truth.name} | ${t.n} | ${pct(t.firmRight, t.n)} | ${pct(t.wrong, t.n)} |`);
+      const row = `| ${design} | ${truth.name} | ${t.n} | ${pct(t.firmRight, t.n)} | ${pct(t.wrong, t.n)} |`;
+      if (!before) out.push(row);
+      else {
+        const b = tally(before.filter((r) => r.design === design && r.truth === truth.name));
+        out.push(`${row} ${pct(b.firmRight, b.n)} | ${pct(b.wrong, b.n)} |`);
+      }
     }
+  if (before) {
+    out.push('', '## Before and after, per design', '', '| design | firm, right | firm, wrong | before: firm, right | before: firm, wrong |', '|---|---:|---:|---:|---:|');
+    for (const design of [...Object.keys(DESIGNS), 'all']) {
+      const pick = (list) => list.filter((r) => design === 'all' || r.design === design);
+      const t = tally(pick(rows));
+      const b = tally(pick(before));
+      out.push(`| ${design} | ${pct(t.firmRight, t.n)} | ${pct(t.wrong, t.n)} | ${pct(b.firmRight, b.n)} | ${pct(b.wrong, b.n)} |`);
+    }
+    out.push('', `"before": the same ${before.length} compounds (same seeds) analysed by the tool as it was before issue 15 (commit 58d3093, default error model constant), from \`--compare\`.`);
+  }
   const text = out.join('\n') + '\n';
   console.log(text);
   if (args.includes('--write')) writeFileSync(new URL('../docs/verdict-design-space.md', import.meta.url), text);
