@@ -126,6 +126,10 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     robust = robustSummary(data, errorModel, models, level, table, preliminary);
     const caveat = robustCaveat(robust, preliminary);
     if (caveat) caveats.push(caveat);
+    else if (!options.robust)
+      caveats.push({ code: 'robust', message: `a robust (bisquare) refit, run because a point stands out, gives no point less than half weight; the call stays ${robust.verdict.mechanism}`, blocking: false });
+    // the refit has been run: the suspect-point advice need not send the user to --robust
+    for (const c of caveats) if (c.code === 'suspect-points') c.suggestion = 'inspect the flagged wells (listed in the report); the robust refit above says whether the call depends on them';
   }
 
   const classicVerdict = verdictFrom(models, nested, caveats, evidence);

@@ -63,7 +63,7 @@ ${htmlTable(headers(cols), m.estimates.map((e) => estimateRow(e, result, cols)))
   const openEnds = model.estimates.some((e) => e.profile && (e.profile[0] === null || e.profile[1] === null));
   return `<section id="constants">
 <h2>Constants of the ${escapeHtml(model.modelId ?? model.mechanism)} model</h2>
-<p class="lead">Global fit of all inhibitor series at once (${escapeHtml(model.equation)}). Intervals at ${pct}%; the Wald interval is symmetric by construction${cols.length > 1 ? ', the profile and bootstrap intervals need not be' : ''}.${openEnds ? ' An interval end shown as “…” is open: the data do not bound the constant on that side.' : ''}</p>
+<p class="lead">Global fit of all inhibitor series at once (${escapeHtml(model.equation)}). Intervals at ${pct}%; the Wald interval is symmetric on the log scale, where the fit is done${cols.length > 1 ? '; the profile and bootstrap intervals follow the data and need not be symmetric on any scale' : ''}.${openEnds ? ' An interval end shown as “…” is open: the data do not bound the constant on that side.' : ''}</p>
 ${main}
 <details class="other-models"><summary>Constants of the other mechanisms</summary>
 ${others}
