@@ -43,6 +43,7 @@ export function designCaveats(data: FitData, fitted: FittedScale): Caveat[] {
         message: `the highest [S] is only ${fmt(top)} x Km: effects on the enzyme-substrate complex are barely visible`,
         blocking: true,
         suggestion: 'add substrate concentrations up to 5-10 x Km',
+        headline: `The highest [S] is only ${fmt(top)} x Km, too low to tell the mechanisms apart: no firm call.`,
       });
     } else if (top < 5) {
       out.push({

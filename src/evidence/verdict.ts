@@ -266,7 +266,8 @@ export function decideVerdict(input: VerdictInput): Verdict {
   if (blocked && (outcome === 'decisive' || outcome === 'mixed-lean')) outcome = 'undecided';
 
   const decisive = outcome === 'decisive' || outcome === 'mixed-lean';
-  const leadingCaveat = caveats.find((c) => c.blocking && c.headline);
+  // the sentence of a blocking caveat leads: first one marked `leading` (the first thing to fix), else any
+  const leadingCaveat = caveats.find((c) => c.blocking && c.headline && c.leading) ?? caveats.find((c) => c.blocking && c.headline);
   return {
     outcome,
     mechanism: winner.mechanism,

@@ -116,6 +116,8 @@ describe('constants the data cannot determine', () => {
     expect(vmax.wald).toBeNull();
     expect(vmax.note).toMatch(/Vmax is not determined: the fit runs along a ridge/);
     expect(r.verdict.decisive).toBe(false);
+    // the design shortfall behind the ridge leads the verdict
+    expect(r.verdict.headline).toMatch(/^The highest \[S\] is only 0\.\d+ x Km, too low to tell the mechanisms apart/);
   });
   it('Wald intervals of positive constants are formed on the log scale and stay positive', async () => {
     const r = await analysed('clean-competitive');

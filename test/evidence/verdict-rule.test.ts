@@ -102,6 +102,15 @@ describe('verdict rule (DEVELOPERS.md, "The verdict rule")', () => {
     expect(v.reasons).toContain('systematic residuals');
     expect(v.suggestions).toContain('look again');
   });
+  it('the headline of a blocking caveat leads, a caveat marked leading first', () => {
+    const base = { models: models({ competitive: 0, mixed: 2.1, noncompetitive: 30, uncompetitive: 50, none: 80 }), nested: tests({ ...inhibited, 'competitive>mixed': 0.8 }), alphaInterval: null, exclusions: exclusions(1e-4) };
+    const design = { code: 'd', message: 'design', blocking: true, headline: 'Design first.' };
+    const outlier = { code: 'o', message: 'outlier', blocking: true, headline: 'Outlier first.', leading: true };
+    expect(decideVerdict({ ...base, caveats: [design] }).headline).toBe('Design first.');
+    expect(decideVerdict({ ...base, caveats: [design, outlier] }).headline).toBe('Outlier first.');
+    // a caveat that does not block never takes the headline
+    expect(decideVerdict({ ...base, caveats: [{ ...outlier, blocking: false }] }).headline).toBe('The data support competitive inhibition.');
+  });
   it('says so when nothing converged', () => {
     const v = decideVerdict({ models: [{ mechanism: 'none', aicc: Infinity, weight: 0, converged: false }], nested: [], alphaInterval: null });
     expect(v.mechanism).toBeNull();
