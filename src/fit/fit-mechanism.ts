@@ -50,7 +50,7 @@ export interface MechanismFit {
 export interface FitOptions {
   /** extra natural-scale starting vectors (e.g. warm starts from nested models) */
   extraStarts?: number[][];
-  /** maximum reweighting passes for fit-dependent weights; default 60 */
+  /** maximum reweighting passes for fit-dependent weights; default 200 */
   maxReweightPasses?: number;
   /**
    * fixed multipliers of the error-model weights, one per point (robust refits: bounded-influence

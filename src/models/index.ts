@@ -1,6 +1,6 @@
 /**
  * The registry of mechanisms. Adding a mechanism: write one file exporting a `MechanismModel`,
- * then list it here (see DEVELOPERS.md, "Adding a model").
+ * then list it here (see DEVELOPERS.md, "The model contract (adding a model)").
  */
 import type { Mechanism, MechanismModel } from './types.js';
 import { noInhibition } from './no-inhibition.js';

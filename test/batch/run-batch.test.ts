@@ -27,15 +27,19 @@ function summaryRows(out: string): CompoundSummary[] {
 describe('mechanist batch: mixed inputs', () => {
   const inputs = writeBatchInputs();
   const out = join(inputs.root, 'out');
-  let result: { code: number; out: string; err: string };
-  let rows: CompoundSummary[] = [];
+  // One batch run shared by the tests below, started by whichever test runs first: each test awaits it, so
+  // any one of them can run alone (vitest -t) and none depends on another having run before it.
+  let run: Promise<{ result: { code: number; out: string; err: string }; rows: CompoundSummary[] }> | undefined;
+  const batchRun = () =>
+    (run ??= cli(['batch', 'plates', 'loose-noncompetitive.csv', 'screen.csv', '--out', 'out', '--reports'], inputs.root).then(
+      (result) => ({ result, rows: result.code === 0 ? summaryRows(out) : [] }),
+    ));
 
   it('reads a folder, a file and a compound-column file, in input order, with unique ids', async () => {
-    result = await cli(['batch', 'plates', 'loose-noncompetitive.csv', 'screen.csv', '--out', 'out', '--reports'], inputs.root);
+    const { result, rows } = await batchRun();
     expect(result.err).toBe('');
     expect(result.code).toBe(0);
     expect(result.out).toMatch(/^7 of 7 compounds analysed; wrote out\/summary\.csv, out\/summary\.json, out\/index\.html\n$/);
-    rows = summaryRows(out);
     expect(rows.map((r) => [r.position, r.compound, r.source, r.nameInFile])).toEqual([
       [1, 'competitive.csv', 'plates/competitive.csv', null],
       [2, 'mixed', 'plates/mixed.csv', null],
@@ -54,6 +58,8 @@ describe('mechanist batch: mixed inputs', () => {
   });
 
   it('gives each compound the values `mechanist analyze` gives it alone', async () => {
+    const { rows } = await batchRun();
+    expect(rows).toHaveLength(7);
     const level = 0.95;
     for (const row of rows) {
       const args = ['analyze', row.source, '--json', ...(row.nameInFile !== null ? ['--compound', row.nameInFile] : [])];
@@ -94,6 +100,8 @@ describe('mechanist batch: mixed inputs', () => {
   });
 
   it('writes each report folder as `analyze --out` does, and links it from the summary', async () => {
+    const { rows } = await batchRun();
+    expect(rows).toHaveLength(7);
     for (const row of rows) {
       expect(row.report).not.toBeNull();
       expect(existsSync(join(out, row.report!))).toBe(true);
@@ -106,7 +114,8 @@ describe('mechanist batch: mixed inputs', () => {
     expect(readFileSync(join(folder, 'parameters.csv'), 'utf8')).toBe(readFileSync(join(inputs.root, 'alone', 'parameters.csv'), 'utf8'));
   });
 
-  it('puts no date or timing into summary.csv and summary.json, and a run date into index.html', () => {
+  it('puts no date or timing into summary.csv and summary.json, and a run date into index.html', async () => {
+    await batchRun();
     const stamp = /\d{4}-\d\d-\d\dT\d\d:\d\d/;
     expect(readFileSync(join(out, 'summary.csv'), 'utf8')).not.toMatch(stamp);
     expect(readFileSync(join(out, 'summary.json'), 'utf8')).not.toMatch(stamp);

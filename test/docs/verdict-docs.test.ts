@@ -4,7 +4,8 @@ import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../src/evidence/alpha-exclusion.js';
-import { MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict.js';
+import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict.js';
+import { DIAGNOSTIC_LEVEL } from '../../src/analysis/stage-diagnostics.js';
 import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -19,7 +20,9 @@ describe('documents and constants agree', () => {
     expect(readme).toContain(`The mechanism analysis\n  needs ${MINIMUM_ANALYSIS_POINTS}`);
   });
   it('DEVELOPERS.md: the verdict rule with its levels', () => {
+    expect(guide).toContain(`in the nested test at p < ${INHIBITION_LEVEL}`);
     expect(guide).toContain(`p < ${MIXED_LEVEL}`);
+    expect(guide).toContain(`lack-of-fit F test at p < ${DIAGNOSTIC_LEVEL}`);
     expect(guide).toContain(`within ${RIVAL_DELTA} AICc units`);
     expect(guide).toContain(`one-sided p < ${EXCLUSION_LEVEL}`);
     expect(guide).toContain(`alpha ≤ ${ALPHA_FAR}`);

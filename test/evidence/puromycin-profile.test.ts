@@ -5,7 +5,7 @@
  * model (no inhibition) with constant error.
  *
  * Reference: R 4.2.2 `confint` on the `nls` fit (profile t), copied from
- * /work/shared/reference/README.md. R locates each end by interpolating a spline through a coarse
+ * the reference notes given to the project (outside the repository). R locates each end by interpolating a spline through a coarse
  * profile, not by solving |tau| = t exactly; evaluating tau at R's ends with scipy
  * (test/fixtures/puromycin-profile/runner.py) gives |tau| off the t quantile by up to 7e-4, which moves the K
  * ends by up to 1e-4 relative. So: Vm agrees with R to 5 significant digits, K to 4; and every end

@@ -14,7 +14,7 @@ import { agreesToDigits } from './significant-digits.js';
 
 const FIXTURES = new URL('../fixtures/puromycin/', import.meta.url);
 
-/** Reference values, copied from /work/shared/reference/README.md (table "Reference results"). */
+/** Reference values, copied from the reference notes given to the project (outside the repository; table "Reference results"). */
 const PUBLISHED = {
   /** R 4.2.2 `nls`; agrees with scipy 1.17 least_squares (lm) to 9 digits */
   Vm: 212.68366360,
