@@ -117,7 +117,7 @@ async function stageProfile(input, out) {
   const lib = await import(dist('index.js'));
   const { collectInputFiles } = await import(dist('batch/collect-inputs.js'));
   const { planCompounds } = await import(dist('batch/plan-compounds.js'));
-  const { writeResultFiles } = await import(dist('cli/write-results.js'));
+  const { writeResultFiles } = await import(dist('report/write-results.js'));
   const t0 = performance.now();
   const jobs = await planCompounds(collectInputFiles([input], process.cwd()).files);
   const planMs = performance.now() - t0;

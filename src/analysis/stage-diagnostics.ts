@@ -18,7 +18,7 @@ import type { ErrorModelCheck } from '../evidence/error-model-check.js';
 import { designCaveats } from '../evidence/design-caveats.js';
 import type { Caveat } from '../evidence/verdict.js';
 import type { ModelResult, SeriesFit } from './types.js';
-import { pPhrase } from '../report/format-number.js';
+import { pPhrase } from '../text/format-number.js';
 
 export const DIAGNOSTIC_LEVEL = 0.01;
 

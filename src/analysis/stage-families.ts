@@ -20,13 +20,12 @@ import { familyBootstrap } from '../evidence/family-bootstrap.js';
 import type { WildWeights } from '../evidence/bootstrap-tasks.js';
 import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import { caveatsFor } from './stage-diagnostics.js';
-import type { ModelResult } from './types.js';
+import type { EnzymeInput, ModelResult } from './types.js';
 
 /** `--enzyme`: a concentration with its unit, or 'fit' (active-site concentration unknown). */
 export type EnzymeOption = { value: number; unit: ConcentrationUnit } | 'fit';
 
-/** What the analysis used for [E]t (JSON `input.enzyme`). */
-export type EnzymeInput = { value: number; unit: string | null; source: 'option' | 'column' } | 'fitted' | null;
+export type { EnzymeInput };
 
 export interface FamilyRequest {
   enzyme?: EnzymeOption;

@@ -8,37 +8,17 @@ import type { ParameterEstimate } from '../evidence/wald-estimates.js';
 import type { NestedComparison } from '../evidence/nested-comparisons.js';
 import type { Verdict } from '../evidence/verdict.js';
 import type { FamilyCall } from '../evidence/family-comparison.js';
-import type { EnzymeInput } from './stage-families.js';
 import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
-import type { SeriesDisagreement } from '../evidence/series-fits.js';
+import type { SeriesDisagreement, SeriesFit } from '../evidence/series-fits.js';
 import type { ErrorModelCheck } from '../evidence/error-model-check.js';
+import type { ProfileCurve } from '../evidence/profile-likelihood.js';
+import type { JointRegion } from '../evidence/joint-region.js';
 
-/** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
-export interface ProfileCurve {
-  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
-  /** natural-scale values of the parameter along the profile */
-  values: number[];
-  /** signed square root of the scaled SSE increase (profile t statistic tau) at each value */
-  tau: number[];
-  /** |tau| at the interval ends (the t quantile used) */
-  cutoff: number;
-}
-
-/** A joint confidence region for (Ki, Kiu) of the mixed model: the likelihood contour. */
-export interface JointRegion {
-  level: number;
-  /** closed outline, natural scale */
-  ki: number[];
-  kiu: number[];
-  /** true when the contour leaves the searched box (the region is open on some side) */
-  open: boolean;
-  /**
-   * the searched box, natural scale, the same for Ki and Kiu (src/evidence/profile-support.ts):
-   * outline points on its edge mark where the region leaves the searched range
-   */
-  box?: { low: number; high: number };
-}
+// Produced by the evidence stage and owned there; re-exported so the result types stay in one place for readers.
+export type { ProfileCurve } from '../evidence/profile-likelihood.js';
+export type { JointRegion } from '../evidence/joint-region.js';
+export type { SeriesFit } from '../evidence/series-fits.js';
 
 /** What a bootstrap run did, and how often each mechanism ranked first by AICc across resamples. */
 export interface BootstrapSummary {
@@ -53,17 +33,6 @@ export interface BootstrapSummary {
   selection: Record<string, number>;
   /** resamples whose refit failed, per mechanism */
   failures: Record<string, number>;
-}
-
-/** A Michaelis-Menten fit of one inhibitor series alone: a diagnostic, not a result. */
-export interface SeriesFit {
-  inhibitor: number;
-  n: number;
-  converged: boolean;
-  Vmax: number;
-  Km: number;
-  seVmax: number | null;
-  seKm: number | null;
 }
 
 export interface ModelResult {
@@ -113,6 +82,9 @@ export interface RobustSummary {
   /** true when the robust call differs from the least-squares call */
   changesVerdict: boolean;
 }
+
+/** What the analysis used for [E]t (JSON `input.enzyme`). */
+export type EnzymeInput = { value: number; unit: string | null; source: 'option' | 'column' } | 'fitted' | null;
 
 export interface InputSummary {
   source: string;

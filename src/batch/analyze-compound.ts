@@ -7,7 +7,7 @@ import { basename, join, relative, sep } from 'node:path';
 import { analyzeTable, AnalysisError, type AnalysisOptions } from '../analysis/analyze-table.js';
 import { modelFor } from '../models/index.js';
 import type { Mechanism } from '../models/types.js';
-import type { writeResultFiles } from '../cli/write-results.js';
+import type { writeResultFiles } from '../report/write-results.js';
 import { failedSummary, summarizeAnalysis, summarizeDoseResponse } from './summarize.js';
 import { analyzeSingleSubstrate, isSingleSubstrateTable } from '../analysis/single-substrate.js';
 import { doseResponseFiles } from '../report/dose-response-output.js';
@@ -17,7 +17,7 @@ import type { CompoundJob, CompoundSummary } from './types.js';
 /** Sub-folder of the output folder that holds one report folder per compound. */
 export const COMPOUNDS_FOLDER = 'compounds';
 
-/** Writes one compound's report folder (src/cli/write-results.ts). */
+/** Writes one compound's report folder (src/report/write-results.ts). */
 export type ReportWriter = typeof writeResultFiles;
 
 /**
@@ -25,7 +25,7 @@ export type ReportWriter = typeof writeResultFiles;
  * (and a DOM implementation), which costs a worker about 1.5 s and 80 MB to load.
  */
 export async function loadReportWriter(settings: CompoundSettings): Promise<ReportWriter | null> {
-  return settings.reportRoot === null ? null : (await import('../cli/write-results.js')).writeResultFiles;
+  return settings.reportRoot === null ? null : (await import('../report/write-results.js')).writeResultFiles;
 }
 
 /** Report files linked from the summary, in order of preference. */

@@ -5,7 +5,7 @@
  * fetch of anything, so it works offline and from a file:// address. The run date is shown here
  * only (summary.csv and summary.json carry no dates).
  */
-import { interval, sig } from '../report/format-number.js';
+import { interval, sig } from '../text/format-number.js';
 import { escapeHtml } from '../report/html/escape.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { summaryCounts, type BatchSettings } from './summary-files.js';

@@ -13,7 +13,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { basename, extname } from 'node:path';
-import { sha256Hex } from '../report/html/provenance.js';
+import { sha256Hex } from '../input/file-hash.js';
 import { readRateFile } from '../input/read-rate-file.js';
 import type { ParseOptions } from '../input/options.js';
 import { InputError, type RateTable } from '../input/types.js';

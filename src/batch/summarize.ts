@@ -12,7 +12,7 @@ import type { EstimateName, ParameterEstimate } from '../evidence/wald-estimates
 import type { RateTable } from '../input/types.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
 import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
-import { interval, sig } from '../report/format-number.js';
+import { interval, sig } from '../text/format-number.js';
 
 /** Where the row of a compound sits and what it is called (set by the batch plan). */
 export interface RowIdentity {

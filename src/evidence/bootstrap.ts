@@ -11,7 +11,7 @@
 import type { Mechanism } from '../models/types.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { FitData } from '../fit/fit-data.js';
-import { hatValues } from '../stats/hat-values.js';
+import { hatValues } from '../fit/hat-values.js';
 import { bcaInterval, percentileInterval } from './bootstrap-intervals.js';
 import { rowWidth, type BootstrapPlan, type WildWeights } from './bootstrap-tasks.js';
 import { runBootstrapTasks } from './bootstrap-threads.js';

@@ -5,11 +5,20 @@
  * off). Comparing the highest [I] with it tells the reader how strong an inhibitor could have
  * been missed.
  */
-import type { ModelResult } from '../analysis/types.js';
+import type { Mechanism } from '../models/types.js';
+import type { ParameterEstimate } from './wald-estimates.js';
 import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
-import { sig } from '../report/format-number.js';
+import { sig } from '../text/format-number.js';
 
-export function noInhibitionReason(models: readonly ModelResult[], data: FitData): string {
+/** What noInhibitionReason reads of each ranked model (the analysis stage's ModelResult has these). */
+export interface RankedModelEstimates {
+  mechanism: Mechanism;
+  /** fitted rate parameters */
+  p: number;
+  estimates: readonly ParameterEstimate[];
+}
+
+export function noInhibitionReason(models: readonly RankedModelEstimates[], data: FitData): string {
   const imax = maxInhibitor(data);
   // every concentration printed with its unit (issue 13): "highest [I] tested: 200 nM"
   const c = (x: number) => withUnit(sig(x, 3), data.units?.inhibitor);

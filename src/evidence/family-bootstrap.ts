@@ -12,7 +12,7 @@
  */
 import type { FitData } from '../fit/fit-data.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
-import { hatValues } from '../stats/hat-values.js';
+import { hatValues } from '../fit/hat-values.js';
 import { seededRandom } from '../simulate/random.js';
 import { resampleSeed, type WildWeights } from './bootstrap-tasks.js';
 import { refitFromStarts } from './bootstrap-refit.js';

@@ -21,9 +21,23 @@ import type { LeastSquaresProblem } from '../fit/least-squares-problem.js';
 import { levenbergMarquardt } from '../fit/levenberg-marquardt.js';
 import { unscaledCovariance } from '../fit/qr.js';
 import { fQuantile } from '../stats/distributions.js';
-import type { JointRegion } from '../analysis/types.js';
 import { findRoot } from './find-root.js';
 import { profileSupport } from './profile-support.js';
+
+/** A joint confidence region for (Ki, Kiu) of the mixed model: the likelihood contour. */
+export interface JointRegion {
+  level: number;
+  /** closed outline, natural scale */
+  ki: number[];
+  kiu: number[];
+  /** true when the contour leaves the searched box (the region is open on some side) */
+  open: boolean;
+  /**
+   * the searched box, natural scale, the same for Ki and Kiu (src/evidence/profile-support.ts):
+   * outline points on its edge mark where the region leaves the searched range
+   */
+  box?: { low: number; high: number };
+}
 
 export interface JointRegionOptions {
   level?: number;

@@ -7,15 +7,12 @@
 import type { ConcentrationUnit } from '../input/types.js';
 import { unitShift } from '../input/units.js';
 import type { Caveat } from './caveat.js';
+import { rounded } from '../text/format-number.js';
 
 export const IMPLAUSIBLE_MOLAR = 0.1;
 
 function molar(x: number, unit: ConcentrationUnit): number {
   return x * 10 ** unitShift(unit, 'M');
-}
-
-function sig(x: number): string {
-  return Number(x.toPrecision(3)).toString();
 }
 
 export interface PlausibilityInput {
@@ -33,7 +30,7 @@ export function plausibilityCaveats(input: PlausibilityInput): Caveat[] {
     const unit = input.units[axis];
     if (unit === null || !Number.isFinite(value)) return;
     const m = molar(value, unit);
-    if (m > IMPLAUSIBLE_MOLAR) flagged.push(`${label} = ${sig(value)} ${unit}${unit === 'M' ? '' : ` (${sig(m)} M)`}`);
+    if (m > IMPLAUSIBLE_MOLAR) flagged.push(`${label} = ${rounded(value, 3)} ${unit}${unit === 'M' ? '' : ` (${rounded(m, 3)} M)`}`);
   };
   check('highest [S]', input.maxSubstrate, 'substrate');
   check('highest [I]', input.maxInhibitor, 'inhibitor');

@@ -26,11 +26,21 @@ import { levenbergMarquardt } from '../fit/levenberg-marquardt.js';
 import type { LeastSquaresOptions, LeastSquaresProblem } from '../fit/least-squares-problem.js';
 import { unscaledCovariance } from '../fit/qr.js';
 import { tQuantile } from '../stats/distributions.js';
-import type { ProfileCurve } from '../analysis/types.js';
 import { findRoot } from './find-root.js';
 import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
 import { profileSupport, type ProfileSupport } from './profile-support.js';
 import { DETECTION_FACTOR } from './detection-bound.js';
+
+/** A profile-likelihood curve of one parameter (Bates & Watts 1988, sec. 6.1). */
+export interface ProfileCurve {
+  parameter: 'Vmax' | 'Km' | 'Ki' | 'Kiu' | 'alpha' | 'beta' | 'Et';
+  /** natural-scale values of the parameter along the profile */
+  values: number[];
+  /** signed square root of the scaled SSE increase (profile t statistic tau) at each value */
+  tau: number[];
+  /** |tau| at the interval ends (the t quantile used) */
+  cutoff: number;
+}
 
 /**
  * Tolerances of each constrained refit along a profile: the SSE to 1e-12 relative, far finer than

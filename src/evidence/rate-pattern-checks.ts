@@ -19,16 +19,13 @@ import { spearmanCorrelation } from '../stats/spearman-correlation.js';
 import { median } from '../stats/median.js';
 import { activityRatios, conditionMeans, inhibitorLevelsOf, type ConditionMean } from './condition-means.js';
 import { ACTIVATION_CODE, type Caveat } from './caveat.js';
+import { rounded } from '../text/format-number.js';
 
 export const SUBSTRATE_DROP_Z = 3;
 export const SUBSTRATE_DROP_FRACTION = 0.05;
 export const PATTERN_LEVEL = 0.01;
 export const SATURATED_ACTIVITY = 0.1;
 export const SATURATING_CODE = 'inhibitor-saturating';
-
-function sig(x: number): string {
-  return Number(x.toPrecision(3)).toString();
-}
 
 /**
  * Scale of the weighted scatter: the pure-error variance of replicates within conditions where
@@ -66,7 +63,7 @@ export function substrateInhibitionCaveat(data: FitData, fit: MechanismFit): Cav
   if (!(drop > SUBSTRATE_DROP_Z * se && drop > SUBSTRATE_DROP_FRACTION * peak.mean)) return null;
   return {
     code: 'substrate-inhibition',
-    message: `without inhibitor the rate falls at the highest [S] (${sig(peak.mean)} at [S] = ${sig(peak.s)}, ${sig(top.mean)} at [S] = ${sig(top.s)}; ${sig(drop / se)} standard errors): substrate inhibition? The models assume rates that level off, so Km and the call may be biased`,
+    message: `without inhibitor the rate falls at the highest [S] (${rounded(peak.mean, 3)} at [S] = ${rounded(peak.s, 3)}, ${rounded(top.mean, 3)} at [S] = ${rounded(top.s, 3)}; ${rounded(drop / se, 3)} standard errors): substrate inhibition? The models assume rates that level off, so Km and the call may be biased`,
     blocking: true,
     suggestion: 'repeat the highest [S] levels; if the fall holds, exclude the [S] levels past the peak (exclude column) and analyse again',
     leading: true,
@@ -86,7 +83,7 @@ export function activationCaveat(data: FitData, noneFit: MechanismFit | undefine
   if (ratios.length === 0 || above < 0.75 * ratios.length) return null;
   return {
     code: ACTIVATION_CODE,
-    message: `the rates rise with [I] (at the highest [I] above the control at ${above} of ${ratios.length} [S] levels, median ratio ${sig(median(ratios.map((r) => r.ratio)))}; Spearman rho of the no-inhibition residuals against [I] ${trend.rho.toFixed(2)}): the compound looks like an activator, which none of the five models describes`,
+    message: `the rates rise with [I] (at the highest [I] above the control at ${above} of ${ratios.length} [S] levels, median ratio ${rounded(median(ratios.map((r) => r.ratio)), 3)}; Spearman rho of the no-inhibition residuals against [I] ${trend.rho.toFixed(2)}): the compound looks like an activator, which none of the five models describes`,
     blocking: true,
     suggestion: 'confirm the activation with a fresh dilution, and rule out a compound signal that adds to the read (compound without enzyme)',
     leading: true,
@@ -103,7 +100,7 @@ export function saturatingInhibitorCaveat(data: FitData): Caveat | null {
   if (!(activity < SATURATED_ACTIVITY)) return null;
   return {
     code: SATURATING_CODE,
-    message: `at the lowest non-zero [I] (${sig(lowest)}) the activity is at most ${sig(100 * Math.max(activity, 0))}% of the control at any [S]: every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
+    message: `at the lowest non-zero [I] (${rounded(lowest, 3)}) the activity is at most ${rounded(100 * Math.max(activity, 0), 3)}% of the control at any [S]: every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
     blocking: true,
     suggestion: 'test lower [I], from about 0.1 x the IC50 upwards (a dilution series reaching below the lowest [I] used here)',
     leading: true,

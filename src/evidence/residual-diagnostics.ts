@@ -22,7 +22,7 @@ import { residualTrends } from '../stats/residual-trends.js';
 import type { SpearmanResult } from '../stats/spearman-correlation.js';
 import { lackOfFitTest, type LackOfFitOutcome } from '../stats/lack-of-fit-test.js';
 import { shapiroWilk, type ShapiroWilkResult } from '../stats/shapiro-wilk.js';
-import { hatValues } from '../stats/hat-values.js';
+import { hatValues } from '../fit/hat-values.js';
 import { studentisedResiduals } from '../stats/studentised-residuals.js';
 
 export const STUDENTISED_LIMIT = 3;

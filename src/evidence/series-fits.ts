@@ -10,9 +10,19 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitMechanism } from '../fit/fit-mechanism.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import { subsetFitData, type FitData } from '../fit/fit-data.js';
-import type { SeriesFit } from '../analysis/types.js';
 import { waldEstimates } from './wald-estimates.js';
 import { apparentConstants } from './apparent-constants.js';
+
+/** A Michaelis-Menten fit of one inhibitor series alone: a diagnostic, not a result. */
+export interface SeriesFit {
+  inhibitor: number;
+  n: number;
+  converged: boolean;
+  Vmax: number;
+  Km: number;
+  seVmax: number | null;
+  seKm: number | null;
+}
 
 /** Indices of the points tested at inhibitor concentration `level`. */
 function seriesIndices(inhibitor: Float64Array, level: number): number[] {

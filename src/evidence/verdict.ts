@@ -30,7 +30,7 @@
 import type { Mechanism } from '../models/types.js';
 import type { NestedComparison } from './nested-comparisons.js';
 export type { Caveat } from './caveat.js';
-import { pPhrase } from '../report/format-number.js';
+import { pPhrase, rounded } from '../text/format-number.js';
 import { ACTIVATION_CODE, type Caveat } from './caveat.js';
 import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from './alpha-exclusion.js';
 
@@ -332,10 +332,6 @@ function exclusionFinding(winner: Mechanism, exclusions: AlphaExclusions | null)
   return { component, excluded: tests.every((t) => t.excluded), tests };
 }
 
-function bound(x: number): string {
-  return Number(x.toPrecision(3)).toString();
-}
-
 /** The reason sentence for the exclusion step, and the experiment that would settle it. */
 function exclusionWords(winner: Mechanism, e: ExclusionFinding): { phrase: string; hint?: string } {
   if (e.tests.length === 0)
@@ -351,15 +347,15 @@ function exclusionWords(winner: Mechanism, e: ExclusionFinding): { phrase: strin
         };
   if (winner === 'uncompetitive')
     return e.excluded
-      ? { phrase: `binding to free enzyme is excluded down to ${ALPHA_FAR}-fold weaker than to the enzyme-substrate complex (alpha < ${bound(1 / ALPHA_FAR)}; ${test})` }
+      ? { phrase: `binding to free enzyme is excluded down to ${ALPHA_FAR}-fold weaker than to the enzyme-substrate complex (alpha < ${rounded(1 / ALPHA_FAR, 3)}; ${test})` }
       : {
-          phrase: `a weak competitive component is not excluded: alpha = ${bound(1 / ALPHA_FAR)} (Ki = ${ALPHA_FAR} x Kiu) fits about as well (${test})`,
+          phrase: `a weak competitive component is not excluded: alpha = ${rounded(1 / ALPHA_FAR, 3)} (Ki = ${ALPHA_FAR} x Kiu) fits about as well (${test})`,
           hint: SEPARATING_EXPERIMENT['mixed|uncompetitive'],
         };
   return e.excluded
-    ? { phrase: `Ki and Kiu agree within a factor of ${NONCOMPETITIVE_BAND} (alpha between ${bound(1 / NONCOMPETITIVE_BAND)} and ${NONCOMPETITIVE_BAND}; ${test})` }
+    ? { phrase: `Ki and Kiu agree within a factor of ${NONCOMPETITIVE_BAND} (alpha between ${rounded(1 / NONCOMPETITIVE_BAND, 3)} and ${NONCOMPETITIVE_BAND}; ${test})` }
     : {
-        phrase: `Ki and Kiu may differ by more than a factor of ${NONCOMPETITIVE_BAND}: alpha = ${bound(worst.bound)} is not excluded (${test})`,
+        phrase: `Ki and Kiu may differ by more than a factor of ${NONCOMPETITIVE_BAND}: alpha = ${rounded(worst.bound, 3)} is not excluded (${test})`,
         hint: SEPARATING_EXPERIMENT['mixed|noncompetitive'],
       };
 }

@@ -21,6 +21,7 @@ import { unscaledCovariance } from '../fit/qr.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { tQuantile } from '../stats/distributions.js';
 import { DETECTION_FACTOR, detectionBound } from './detection-bound.js';
+import { rounded } from '../text/format-number.js';
 
 /** Vmax or Km beyond this multiple of the highest rate or [S] is not determined (chosen here). */
 export const RIDGE_FACTOR = 1000;
@@ -114,16 +115,16 @@ export function waldEstimates(fit: MechanismFit, maxInhibitor: number, level = 0
     if (tooLow[j])
       return withoutInterval(name, null, false, {
         below: lowBound,
-        note: `${name} < ${formatBound(lowBound)}: not determined (the fit runs to zero along a ridge, where the data see only its ratio to another constant)`,
+        note: `${name} < ${rounded(lowBound, 3)}: not determined (the fit runs to zero along a ridge, where the data see only its ratio to another constant)`,
       });
     if (ridge[j])
       return withoutInterval(name, fit.params[j], true, {
-        note: `${name} is not determined: the fit runs along a ridge to ${formatBound(fit.params[j])}, over ${RIDGE_FACTOR} x the highest ${name === 'Vmax' ? 'rate' : '[S]'} measured`,
+        note: `${name} is not determined: the fit runs along a ridge to ${rounded(fit.params[j], 3)}, over ${RIDGE_FACTOR} x the highest ${name === 'Vmax' ? 'rate' : '[S]'} measured`,
       });
     if (!detected[j])
       return withoutInterval(name, null, false, {
         exceeds: bound,
-        note: `${name} > ${formatBound(bound)}: the ${ARM_NAMES[name]} is not detected in the tested inhibitor range`,
+        note: `${name} > ${rounded(bound, 3)}: the ${ARM_NAMES[name]} is not detected in the tested inhibitor range`,
       });
     const value = fit.params[j];
     const seTheta = Math.sqrt(cov[j * m + j]);
@@ -173,6 +174,3 @@ function alphaEstimate(fit: MechanismFit, cov: Float64Array, detected: boolean[]
   return finiteEstimate('alpha', alpha, alpha * Math.sqrt(varLog), t);
 }
 
-function formatBound(x: number): string {
-  return Number(x.toPrecision(3)).toString();
-}

@@ -6,7 +6,7 @@ import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { axisUnits, type AxisUnits } from './axis-units.js';
 import { seriesColours } from './palette.js';
 import { rateConstants, type RateConstants } from './replot-geometry.js';
-import { sig } from '../report/format-number.js';
+import { sig } from '../text/format-number.js';
 
 export interface SeriesLevels {
   values: number[];

@@ -26,7 +26,7 @@ import {
   type Point,
   type RateConstants,
 } from './replot-geometry.js';
-import { sig } from '../report/format-number.js';
+import { sig } from '../text/format-number.js';
 
 /** The badge every replot shows. */
 export const QUALITATIVE_BADGE = 'Qualitative: a visual check only';

@@ -8,7 +8,8 @@
  *  - the joint (Ki, Kiu) region of the mixed model, with the line Ki = Kiu (alpha = 1, pure
  *    noncompetitive) for reference.
  */
-import type { ModelResult, ProfileCurve } from '../analysis/types.js';
+import type { ModelResult } from '../analysis/types.js';
+import type { ProfileCurve } from '../evidence/profile-likelihood.js';
 import type { FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';
@@ -16,7 +17,7 @@ import { paddedExtent } from './axes.js';
 import { withUnit } from './axis-units.js';
 import { drawPolyline } from './model-lines.js';
 import { INK } from './palette.js';
-import { sig, interval } from '../report/format-number.js';
+import { sig, interval } from '../text/format-number.js';
 
 const PROFILED = ['Ki', 'Kiu'] as const;
 

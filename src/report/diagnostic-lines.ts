@@ -1,6 +1,6 @@
 /** The "checks" block of the text summary: the main diagnostic flags of the winning model. */
 import type { AnalysisResult } from '../analysis/types.js';
-import { pPhrase, sig } from './format-number.js';
+import { pPhrase, sig } from '../text/format-number.js';
 import { pointsThatStandOut } from './standing-out.js';
 
 export function diagnosticLines(result: AnalysisResult): string[] {

@@ -9,7 +9,7 @@ import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
 import type { DoseResponseModelResult, Interval } from '../evidence/dose-response.js';
 import { describeTable } from '../input/describe-table.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
-import { interval, sig } from './format-number.js';
+import { interval, sig } from '../text/format-number.js';
 import { jsonNumber, type Json } from './json-values.js';
 import { levelKey } from './results-json.js';
 

@@ -15,7 +15,7 @@ import { dirname, join } from 'node:path';
 import { OutputError, writeProblem } from './output-error.js';
 import { temporaryOwner, temporaryPathFor } from './write-atomic.js';
 
-/** What a report folder holds (src/cli/write-results.ts writes exactly these). */
+/** What a report folder holds (src/report/write-results.ts writes exactly these). */
 export const REPORT_ENTRIES: ReadonlySet<string> = new Set(['report.html', 'results.json', 'parameters.csv', 'summary.txt', 'figures']);
 
 /** Files an operating system's file browser drops into folders it shows; replacing them loses nothing. */

@@ -1,7 +1,7 @@
 /** The plain-text summary printed by `mechanist analyze` (without --json). */
 import { dimensionOfName, unitOfDimension } from '../models/registry.js';
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
-import { interval, sig } from './format-number.js';
+import { interval, sig } from '../text/format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
 import { describeTable } from '../input/describe-table.js';
 import { distinctAdvice } from './distinct-advice.js';

@@ -4,7 +4,7 @@
  * text summary and the report page (issue 13: every printed concentration carries its unit).
  */
 import type { ParameterEstimate } from '../evidence/wald-estimates.js';
-import { sig } from './format-number.js';
+import { sig } from '../text/format-number.js';
 
 export function undetectedText(e: Pick<ParameterEstimate, 'name' | 'note' | 'exceeds'>, unit: string): string {
   const note = e.note ?? 'not determined';

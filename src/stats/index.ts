@@ -17,5 +17,4 @@ export {
   extraSumOfSquaresTest, type ExtraSumOfSquaresInput, type ExtraSumOfSquaresResult,
 } from './extra-sum-of-squares-test.js';
 export { likelihoodRatioTest, type LikelihoodRatioInput, type LikelihoodRatioResult } from './likelihood-ratio-test.js';
-export { hatValues, type HatValuesResult } from './hat-values.js';
 export { studentisedResiduals, type StudentisedResiduals } from './studentised-residuals.js';

@@ -1,6 +1,6 @@
 /**
  * Internally and externally studentised residuals from weighted residuals r_i, leverages h_ii
- * (hat-values.ts), the residual standard deviation s and its degrees of freedom df = n - p
+ * (src/fit/hat-values.ts), the residual standard deviation s and its degrees of freedom df = n - p
  * (Cook, R. D. and Weisberg, S. (1982) Residuals and Influence in Regression, Chapman and Hall,
  * ch. 2; Belsley, D. A., Kuh, E. and Welsch, R. E. (1980) Regression Diagnostics, Wiley, ch. 2):
  *   internal_i = r_i / (s sqrt(1 - h_ii))

@@ -46,7 +46,7 @@ describe('the figure code is loaded only when figures are drawn', () => {
     expect([...staticPackages('src/cli/main.ts').keys()]).toEqual(['commander']);
   });
   it('the walk does find d3 and jsdom from the figure code (the check can fail)', () => {
-    const packages = staticPackages('src/cli/write-results.ts');
+    const packages = staticPackages('src/report/write-results.ts');
     expect(packages.has('d3')).toBe(true);
     expect(packages.has('jsdom')).toBe(true);
   });

@@ -3,7 +3,7 @@ import { bisquareWeights, madScale, BISQUARE_C } from '../../src/evidence/robust
 import { residualSeriesBySubstrate } from '../../src/evidence/residual-diagnostics.js';
 import { median } from '../../src/stats/median.js';
 import { maxInhibitor, subsetFitData, fitDataFromArrays } from '../../src/fit/fit-data.js';
-import { pPhrase } from '../../src/report/format-number.js';
+import { pPhrase } from '../../src/text/format-number.js';
 import { seededRandom } from '../../src/simulate/random.js';
 import { normalQuantile } from '../../src/stats/distributions.js';
 import type { MechanismFit } from '../../src/fit/fit-mechanism.js';

@@ -10,7 +10,7 @@ import { JSDOM } from 'jsdom';
 import { analyzeTable } from '../../src/analysis/analyze-table.js';
 import type { AnalysisResult, ModelResult } from '../../src/analysis/types.js';
 import { derivedSection } from '../../src/report/html/sections/derived-section.js';
-import { sig } from '../../src/report/format-number.js';
+import { sig } from '../../src/text/format-number.js';
 import { simulatedTable } from '../helpers/sim-table.js';
 
 const AT_SUBSTRATE = 25;

@@ -9,7 +9,7 @@ import { JSDOM } from 'jsdom';
 import { analyzeTable } from '../../src/analysis/analyze-table.js';
 import type { AnalysisResult } from '../../src/analysis/types.js';
 import { fitChecksSection } from '../../src/report/html/sections/fit-checks-section.js';
-import { pValue, sig } from '../../src/report/format-number.js';
+import { pValue, sig } from '../../src/text/format-number.js';
 import { simulatedTable } from '../helpers/sim-table.js';
 
 function sectionOf(result: AnalysisResult): Element {

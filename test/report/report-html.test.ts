@@ -13,7 +13,7 @@ import type { FigureOutput } from '../../src/figures/figure-output.js';
 import { reportHtml } from '../../src/report/html/report-page.js';
 import { DATE_ELEMENT_PATTERN } from '../../src/report/html/sections/provenance-footer.js';
 import { escapeHtml } from '../../src/report/html/escape.js';
-import { sha256Hex } from '../../src/report/html/provenance.js';
+import { sha256Hex } from '../../src/input/file-hash.js';
 import { TOOL_VERSION } from '../../src/version.js';
 
 let demo: AnalysisResult;

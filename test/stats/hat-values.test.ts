@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import ref from '../fixtures/scipy-stats/reference.json';
-import { hatValues } from '../../src/stats/hat-values.js';
+import { hatValues } from '../../src/fit/hat-values.js';
 import { studentisedResiduals } from '../../src/stats/studentised-residuals.js';
 
 // Reference: test/fixtures/scipy-stats/runner.py with numpy: leverage = diag(J pinv(J'J) J'),

@@ -12,7 +12,8 @@ import { textSummary } from '../../report/text-summary.js';
 import { analysisOptionsFrom, atSubstrateFor, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { sha256Hex, type ReportProvenance } from '../../report/html/provenance.js';
+import type { ReportProvenance } from '../../report/html/provenance.js';
+import { sha256Hex } from '../../input/file-hash.js';
 import { listNames } from '../../input/messages.js';
 import { analyzeSingleSubstrate, isSingleSubstrateTable, type SingleSubstrateResult } from '../../analysis/single-substrate.js';
 import { doseResponseFiles, doseResponseJson, doseResponseText } from '../../report/dose-response-output.js';
@@ -199,7 +200,7 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
     const provenance = analyzeProvenance(input.bytes, o.reads !== undefined ? '' : file, cmd);
     // The figure code (d3 on a jsdom document) is loaded only here, when figures are drawn:
     // loading it costs about a second, which --help, --json and the text summary never pay.
-    const { writeResultFiles } = await import('../write-results.js');
+    const { writeResultFiles } = await import('../../report/write-results.js');
     results.forEach((r, k) => writeResultFiles(r, folders[k], provenance));
   }
   if (o.json) {

@@ -21,7 +21,7 @@ export function demoCommand(io: CliIo): Command {
         import('../../input/index.js'),
         import('../../analysis/analyze-table.js'),
         import('../../report/text-summary.js'),
-        import('../../report/html/provenance.js'),
+        import('../../input/file-hash.js'),
         import('./analyze-action.js'),
       ]);
       const dir = resolve(io.cwd, o.out);
@@ -30,7 +30,7 @@ export function demoCommand(io: CliIo): Command {
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
       // loaded here, not at start-up: the figure code (d3 on a jsdom document) takes about a second
-      const { writeResultFiles } = await import('../write-results.js');
+      const { writeResultFiles } = await import('../../report/write-results.js');
       writeResultFiles(result, dir, {
         command: 'mechanist demo',
         inputSha256: sha256Hex(await readFile(demoDataPath())),

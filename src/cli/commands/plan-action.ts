@@ -22,38 +22,8 @@ import { analyzeTable } from '../../analysis/analyze-table.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
 import { chooseTables } from './analyze-action.js';
 import { wellsCurve } from '../../plan/wells-curve.js';
-
-/** Default simulations per design and true mechanism. */
-import { DEFAULT_PLAN_SIMULATIONS } from './plan.js';
-export { DEFAULT_PLAN_SIMULATIONS };
-
-export interface PlanCliOptions {
-  km?: string;
-  ki?: string;
-  ic50?: string;
-  atSubstrate?: string;
-  mechanisms?: string;
-  noise?: string;
-  vmax?: string;
-  from?: string;
-  error: string;
-  compound?: string;
-  wells: string;
-  replicates: string;
-  plate: string;
-  maxSubstrate?: string;
-  maxInhibitor?: string;
-  dilution: string;
-  substrateLevels?: string;
-  inhibitorLevels?: string;
-  enzyme?: string;
-  seed: string;
-  simulations: string;
-  simulate: boolean;
-  json?: boolean;
-  out?: string;
-  plateMap?: string;
-}
+import { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions } from './plan-options.js';
+export { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions };
 
 function usage<T>(option: string, f: () => T): T {
   try {

@@ -1,10 +1,9 @@
-/** `mechanist plan`: the options; the work is in plan-action.ts, loaded when the command runs. */
+/** `mechanist plan`: the options (their type and defaults in plan-options.ts); the work is in plan-action.ts, loaded when the command runs. */
 import { Command } from 'commander';
 import type { CliIo } from '../io.js';
-import type { PlanCliOptions } from './plan-action.js';
+import { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions } from './plan-options.js';
 
-/** Simulations per design and true mechanism by default. */
-export const DEFAULT_PLAN_SIMULATIONS = 50;
+export { DEFAULT_PLAN_SIMULATIONS };
 
 export function planCommand(io: CliIo): Command {
   return new Command('plan')

@@ -1,10 +1,10 @@
-/** The work of `mechanist rates` (loaded when the command runs; options in rates.ts). */
+/** The work of `mechanist rates` (loaded when the command runs; options in rates.ts and rates-options.ts). */
 import { join, resolve } from 'node:path';
 import { readsReportHtml } from '../../report/html/reads-page.js';
 import { writeFileAtomic } from '../../report/write-atomic.js';
 import type { CliIo } from '../io.js';
 import { readsSummaryLine, runReads } from '../reads-input.js';
-import { READS_PAGE, type RatesCliOptions } from './rates.js';
+import { READS_PAGE, type RatesCliOptions } from './rates-options.js';
 
 export async function runRates(io: CliIo, readsPaths: string[], o: RatesCliOptions): Promise<void> {
     const run = await runReads(readsPaths, o, io.cwd);

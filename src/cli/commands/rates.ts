@@ -4,16 +4,10 @@
  */
 import { Command } from 'commander';
 import type { CliIo } from '../io.js';
-import { addReadsOptions, type ReadsCliOptions } from '../reads-options.js';
+import { addReadsOptions } from '../reads-options.js';
+import { READS_PAGE, type RatesCliOptions } from './rates-options.js';
 
-/** The page that --report writes. */
-export const READS_PAGE = 'reads.html';
-
-export interface RatesCliOptions extends ReadsCliOptions {
-  out?: string;
-  report?: string;
-  quiet?: boolean;
-}
+export { READS_PAGE, type RatesCliOptions };
 
 export function ratesCommand(io: CliIo): Command {
   const cmd = new Command('rates')

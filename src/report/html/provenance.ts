@@ -1,10 +1,8 @@
 /**
  * What the reproducibility footer records about a run: the input file's SHA-256, the options,
  * the random seed (when a resampling step used one) and the date. The date is the only part of a
- * report that changes between two runs on the same input.
+ * report that changes between two runs on the same input. The hash is src/input/file-hash.ts.
  */
-import { createHash } from 'node:crypto';
-
 export interface ReportProvenance {
   /** SHA-256 (hex) of the input file's bytes, as read from disk */
   inputSha256?: string;
@@ -19,9 +17,4 @@ export interface ReportProvenance {
    * committed and must come out byte-identical each time the README's demo is run)
    */
   generatedAt?: Date | null;
-}
-
-/** SHA-256 of the bytes, as lower-case hex (FIPS 180-4, via node:crypto). */
-export function sha256Hex(bytes: Uint8Array | string): string {
-  return createHash('sha256').update(bytes).digest('hex');
 }

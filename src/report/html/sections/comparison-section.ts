@@ -1,7 +1,7 @@
 /** How the mechanisms compare: the ranking table, the nested tests and the evidence chart. */
 import type { AnalysisResult } from '../../../analysis/types.js';
 import { escapeHtml } from '../escape.js';
-import { pValue, sig } from '../../format-number.js';
+import { pValue, sig } from '../../../text/format-number.js';
 import { cell, htmlTable } from '../html-table.js';
 
 function fixed(x: number, digits: number): string {

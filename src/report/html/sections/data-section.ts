@@ -5,7 +5,7 @@
  */
 import type { AnalysisResult } from '../../../analysis/types.js';
 import { escapeHtml } from '../escape.js';
-import { sig } from '../../format-number.js';
+import { sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
 import type { Exclusion } from '../../../input/types.js';
 import { displayUnit } from '../../../figures/axis-units.js';

@@ -11,7 +11,7 @@ import type { Mechanism } from '../../../models/types.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { displayUnit } from '../../../figures/axis-units.js';
 import { escapeHtml } from '../escape.js';
-import { interval, sig } from '../../format-number.js';
+import { interval, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
 
 type Interval = [number | null, number | null];

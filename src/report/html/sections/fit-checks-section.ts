@@ -15,7 +15,7 @@ import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { displayUnit } from '../../../figures/axis-units.js';
 import { escapeHtml } from '../escape.js';
-import { pValue, sig } from '../../format-number.js';
+import { pValue, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
 
 /** One residual test as a table row: what was tested, the statistic, p, and a plain reading. */

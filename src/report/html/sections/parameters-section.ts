@@ -6,7 +6,7 @@ import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
 import type { ParameterEstimate } from '../../../evidence/wald-estimates.js';
 import { escapeHtml } from '../escape.js';
 import { undetectedText } from '../../undetected-text.js';
-import { interval, sig } from '../../format-number.js';
+import { interval, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
 import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';

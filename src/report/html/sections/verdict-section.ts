@@ -1,7 +1,7 @@
 /** The verdict, first on the page: the headline, the reasons, what would settle what is open. */
 import type { AnalysisResult } from '../../../analysis/types.js';
 import { escapeHtml } from '../escape.js';
-import { sig, interval } from '../../format-number.js';
+import { sig, interval } from '../../../text/format-number.js';
 import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { distinctAdvice } from '../../distinct-advice.js';

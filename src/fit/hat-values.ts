@@ -14,7 +14,7 @@
  * the leverage of the projection onto the column space, i.e. with a pseudo-inverse in place of
  * (J'J)^-1, and `rank` < p tells the caller so. sum_i h_ii = rank.
  */
-import { householderQrPivoted } from '../fit/qr.js';
+import { householderQrPivoted } from './qr.js';
 
 export interface HatValuesResult {
   /** h_ii for each row, in [0, 1] */

@@ -1,4 +1,4 @@
-/** Number formatting shared by the text summary, the report and the figures. */
+/** Number formatting: significant digits, p values and intervals as text. Imports nothing, so every layer may use it (docs/decisions/layer-rule.md). */
 
 /** A number to `digits` significant digits, without exponent clutter for everyday magnitudes. */
 export function sig(x: number | null | undefined, digits = 4): string {
@@ -26,4 +26,9 @@ export function interval(lo: number | null | undefined, hi: number | null | unde
   const a = lo === null || lo === undefined ? '…' : sig(lo, digits);
   const b = hi === null || hi === undefined ? '…' : sig(hi, digits);
   return `[${a}, ${b}]`;
+}
+
+/** A number rounded to `digits` significant digits and printed as JavaScript prints it (1e-7 stays "1e-7"). */
+export function rounded(x: number, digits: number): string {
+  return String(Number(x.toPrecision(digits)));
 }

@@ -1,13 +1,13 @@
 /** Writes the result files of one analysis into a folder (`--out`). */
 import { join } from 'node:path';
 import type { AnalysisResult } from '../analysis/types.js';
-import { analysisJson } from '../report/results-json.js';
-import { parametersCsv } from '../report/parameters-csv.js';
-import { textSummary } from '../report/text-summary.js';
-import { writeFolderAtomic } from '../report/write-atomic.js';
+import { analysisJson } from './results-json.js';
+import { parametersCsv } from './parameters-csv.js';
+import { textSummary } from './text-summary.js';
+import { writeFolderAtomic } from './write-atomic.js';
 import { renderFigures } from '../figures/render-figures.js';
-import { reportHtml } from '../report/html/report-page.js';
-import type { ReportProvenance } from '../report/html/provenance.js';
+import { reportHtml } from './html/report-page.js';
+import type { ReportProvenance } from './html/provenance.js';
 
 export const FIGURES_FOLDER = 'figures';
 
