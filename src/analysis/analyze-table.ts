@@ -10,7 +10,7 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
-import { MINIMUM_ANALYSIS_POINTS } from '../input/table-checks.js';
+import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE } from '../input/table-checks.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
 import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
@@ -76,6 +76,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     throw new AnalysisError(
       `only ${data.v.length} usable points; ranking all five models by AICc needs at least ${MINIMUM_ANALYSIS_POINTS} (the mixed model has 4 constants plus the error variance); add rates`,
     );
+  checkMagnitudes(table);
   const inactive = noActivityFinding(data);
   if (inactive) throw new AnalysisError(inactive.message);
   const mechanisms = options.models ?? MECHANISMS;
@@ -275,6 +276,20 @@ export function alphaInterval(models: readonly ModelResult[]): [number | null, n
   if (!alpha || !alpha.detected) return null;
   if (alpha.profile) return alpha.profile;
   return alpha.wald ? [alpha.wald[0], alpha.wald[1]] : null;
+}
+
+/**
+ * The magnitudes the fit handles reliably (src/input/table-checks.ts): the reader refuses values
+ * outside them with file, line and column; a table built in memory is checked here.
+ */
+function checkMagnitudes(table: RateTable): void {
+  const out = (x: number | undefined) => x !== undefined && x !== 0 && !(Math.abs(x) >= SMALLEST_MAGNITUDE && Math.abs(x) <= LARGEST_MAGNITUDE);
+  for (const p of table.points) {
+    for (const [what, value] of [['substrate', p.substrate], ['inhibitor', p.inhibitor], ['rate', p.rate], ['sd', p.sd]] as const) {
+      if (out(value))
+        throw new AnalysisError(`line ${p.line}: ${what} ${value} is outside the range that can be fitted reliably (non-zero magnitudes from ${SMALLEST_MAGNITUDE} to ${LARGEST_MAGNITUDE}); rescale the column (a change of unit changes no result)`);
+    }
+  }
 }
 
 /** What the verdict reads besides the ranking and the nested tests. */

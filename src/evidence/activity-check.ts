@@ -6,7 +6,10 @@
  */
 import type { FitData } from '../fit/fit-data.js';
 
-export type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive';
+export type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive' | 'too-few-positive';
+
+/** A rate curve needs at least this many positive rates to be described at all (the Michaelis-Menten model has 2 constants). */
+export const FEWEST_POSITIVE_RATES = 3;
 
 export interface NoActivityFinding {
   kind: NoActivityKind;
@@ -25,7 +28,9 @@ export function noActivityFinding(data: FitData): NoActivityFinding | null {
   let min = Infinity;
   let controlMax = -Infinity;
   let controls = 0;
+  let positive = 0;
   for (let k = 0; k < n; k++) {
+    if (data.v[k] > 0) positive++;
     max = Math.max(max, data.v[k]);
     min = Math.min(min, data.v[k]);
     if (data.i[k] === 0) {
@@ -44,6 +49,11 @@ export function noActivityFinding(data: FitData): NoActivityFinding | null {
     return {
       kind: 'all-equal',
       message: `every rate equals ${sig(max)}: the rates do not change with [S] or [I], so no mechanism can be read from them; check that the column holds measured rates and not a copied value`,
+    };
+  if (positive < FEWEST_POSITIVE_RATES)
+    return {
+      kind: 'too-few-positive',
+      message: `no activity to fit: only ${positive} of ${n} rates are positive (at least ${FEWEST_POSITIVE_RATES} are needed); check the blank subtraction and the rate column`,
     };
   if (controls > 0 && controlMax <= 0)
     return {

@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { readRateFile } from '../../src/input/read-rate-file.js';
 import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
 import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
+import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
 
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'odd-data');
@@ -126,5 +127,17 @@ describe('constants the data cannot determine', () => {
     expect(lo).toBeGreaterThan(0);
     // symmetric about the estimate on the log scale: value^2 = lo * hi
     expect(Math.log(lo) + Math.log(hi)).toBeCloseTo(2 * Math.log(ki.value!), 12);
+  });
+});
+
+describe('tables built in memory get the reader\'s refusals too', () => {
+  const grid = (rate: (k: number) => number) =>
+    Array.from({ length: 12 }, (_, k) => ({ line: k + 2, substrate: [1, 3, 10, 30][k % 4], inhibitor: [0, 1, 4][Math.floor(k / 4)], rate: rate(k) }));
+  it('a rate outside 1e-150..1e150 is refused with its line', () => {
+    expect(() => analyzeTable(tableFromPoints(grid((k) => (k === 5 ? 5e-324 : 0)))))
+      .toThrow(/^line 7: rate 5e-324 is outside the range that can be fitted reliably/);
+  });
+  it('fewer than 3 positive rates: no activity to fit', () => {
+    expect(() => analyzeTable(tableFromPoints(grid((k) => (k < 2 ? 10 : 0))))).toThrow(/^no activity to fit: only 2 of 12 rates are positive/);
   });
 });
