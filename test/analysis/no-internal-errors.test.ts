@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
+import { simulateRates } from '../../src/simulate/simulate-rates.js';
 
 const S = [1, 3, 10, 30];
 const I = [0, 1, 4];
@@ -42,5 +43,32 @@ describe('no internal errors on random rate tables', () => {
     );
     // most random tables are analysable: the property is not passing on refusals alone
     expect(analysed).toBeGreaterThan(20);
+  });
+
+  it('random designs of every mechanism (simulated): result or AnalysisError, plain sentences', () => {
+    const mechanism = fc.constantFrom('none', 'competitive', 'uncompetitive', 'noncompetitive', 'mixed') as fc.Arbitrary<'none' | 'competitive' | 'uncompetitive' | 'noncompetitive' | 'mixed'>;
+    const levels = (n: [number, number], lo: number, hi: number) =>
+      fc.uniqueArray(fc.integer({ min: lo, max: hi }), { minLength: n[0], maxLength: n[1] }).map((xs) => xs.sort((a, b) => a - b).map((x) => x / 10));
+    fc.assert(
+      fc.property(
+        mechanism, levels([2, 8], 1, 2000), levels([1, 4], 1, 500), fc.integer({ min: 1, max: 3 }), fc.integer({ min: 1, max: 1e6 }),
+        fc.constantFrom(0.01, 0.05, 0.2),
+        (m, substrate, inhibitor, replicates, seed, noise) => {
+          const points = simulateRates({
+            mechanism: m, params: { Vmax: 100, Km: 10, Ki: 2, Kiu: 8 }, substrate, inhibitor: [0, ...inhibitor], replicates, noise: 'proportional', noiseLevel: noise, seed,
+          });
+          let text: string;
+          try {
+            const r = analyzeTable(tableFromPoints(points), { detail: 'summary' });
+            text = [r.verdict.headline, ...r.verdict.reasons, ...r.verdict.suggestions].join(' ');
+          } catch (e) {
+            expect(e).toBeInstanceOf(AnalysisError);
+            text = (e as Error).message;
+          }
+          expect(text).not.toMatch(/NaN|undefined/);
+        },
+      ),
+      { numRuns: 40, seed: 20261203 },
+    );
   });
 });
