@@ -13,10 +13,10 @@ import type { RateTable } from '../input/types.js';
 import { doseResponseEvidence, type Interval } from '../evidence/dose-response.js';
 import type { DoseResponseModel } from '../fit/dose-response-fit.js';
 
-export const IC50_SHIFT_MAX_SUBSTRATE_LEVELS = 3;
-export const IC50_SHIFT_MIN_INHIBITOR_LEVELS = 5;
+const IC50_SHIFT_MAX_SUBSTRATE_LEVELS = 3;
+const IC50_SHIFT_MIN_INHIBITOR_LEVELS = 5;
 
-export interface SeriesIc50 {
+interface SeriesIc50 {
   substrate: number;
   ic50: number;
   /** profile interval when it has an end, else Wald */

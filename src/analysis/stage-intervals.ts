@@ -35,7 +35,7 @@ export interface BootstrapRequest {
   weights?: WildWeights;
 }
 
-export interface IntervalOptions {
+interface IntervalOptions {
   level: number;
   /** profile-likelihood intervals and curves; default true */
   profile?: boolean;

@@ -6,9 +6,9 @@
  */
 import type { FitData } from '../fit/fit-data.js';
 
-export type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive';
+type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive';
 
-export interface NoActivityFinding {
+interface NoActivityFinding {
   kind: NoActivityKind;
   message: string;
 }

@@ -12,7 +12,7 @@
 import { withUnit, type FitData } from '../fit/fit-data.js';
 import type { Caveat } from './verdict.js';
 
-export interface FittedScale {
+interface FittedScale {
   Km: number;
   /** the smaller detected inhibition constant of the winning model, if any */
   K?: number;

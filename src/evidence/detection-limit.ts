@@ -11,7 +11,7 @@ import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
 import { sig } from '../text/format-number.js';
 
 /** What noInhibitionReason reads of each ranked model (the analysis stage's ModelResult has these). */
-export interface RankedModelEstimates {
+interface RankedModelEstimates {
   mechanism: Mechanism;
   /** fitted rate parameters */
   p: number;

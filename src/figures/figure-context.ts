@@ -27,7 +27,7 @@ export interface FigureContext {
 }
 
 /** Distinct values, ascending. */
-export function distinctLevels(values: ArrayLike<number>): number[] {
+function distinctLevels(values: ArrayLike<number>): number[] {
   return [...new Set(Array.from(values))].sort((a, b) => a - b);
 }
 
@@ -47,7 +47,7 @@ export function drawnModel(result: AnalysisResult): ModelResult {
 }
 
 /** The classic model of the verdict's mechanism (the replots' line geometry is that of the classic laws). */
-export function classicDrawnModel(result: AnalysisResult): ModelResult {
+function classicDrawnModel(result: AnalysisResult): ModelResult {
   return result.models.find((m) => m.mechanism === result.verdict.mechanism) ?? result.models[0];
 }
 

@@ -19,7 +19,7 @@ import { FONT } from './text-metrics.js';
 import { inhibitorSeriesKey } from './rate-curves.js';
 
 /** Scaled residuals of the drawn model, one per fitted point. */
-export function scaledResiduals(ctx: FigureContext): Float64Array {
+function scaledResiduals(ctx: FigureContext): Float64Array {
   const s = Math.sqrt(ctx.best.residualVariance);
   const wr = ctx.best.fit.weightedResiduals;
   return Float64Array.from(wr, (r) => (s > 0 ? r / s : NaN));

@@ -10,7 +10,7 @@ import type { InputWarning, RateTable } from './types.js';
 import { formatConcentration } from './messages.js';
 
 /** [S] should reach at least this multiple of Km (common practice, see above). */
-export const SUBSTRATE_REACH_OVER_KM = 5;
+const SUBSTRATE_REACH_OVER_KM = 5;
 
 /**
  * Warnings about the range of [S] relative to the fitted Km and of [I] relative to Ki and Kiu.

@@ -137,11 +137,11 @@ function hasRepeatedPair(points: RateTable['points']): boolean {
 }
 
 /** More than this many decades between the smallest and largest non-zero level is suspicious. */
-export const WIDEST_PLAUSIBLE_DECADES = 8;
+const WIDEST_PLAUSIBLE_DECADES = 8;
 /** Common practice (no single source): at least 5 [S] levels spanning the Km. */
-export const FEWEST_SUBSTRATE_LEVELS = 5;
+const FEWEST_SUBSTRATE_LEVELS = 5;
 /** Common practice (no single source): at least 3 non-zero [I] levels besides the control. */
-export const FEWEST_INHIBITOR_LEVELS = 3;
+const FEWEST_INHIBITOR_LEVELS = 3;
 
 /** Warnings about the data that need no fitted constants (see designWarnings for those). */
 export function dataWarnings(table: RateTable): InputWarning[] {

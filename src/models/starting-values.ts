@@ -6,7 +6,7 @@
 import type { KineticData } from './types.js';
 import { median } from '../stats/median.js';
 
-export interface RoughScales {
+interface RoughScales {
   /** a little above the largest rate seen without inhibitor (or overall) */
   vmax: number;
   /** substrate concentration at which the uninhibited rate is nearest half of vmax */

@@ -23,9 +23,9 @@ export interface PlanConstraints {
   dilution: DilutionScheme;
 }
 
-export const COMMON_GRID_SUBSTRATE_SPAN: readonly [number, number] = [1 / 5, 5];
-export const COMMON_GRID_INHIBITOR_SPAN: readonly [number, number] = [1 / 3, 3];
-export const SINGLE_INHIBITOR_FACTOR = 2;
+const COMMON_GRID_SUBSTRATE_SPAN: readonly [number, number] = [1 / 5, 5];
+const COMMON_GRID_INHIBITOR_SPAN: readonly [number, number] = [1 / 3, 3];
+const SINGLE_INHIBITOR_FACTOR = 2;
 
 /** Units of the budget: groups of `replicates` wells. */
 export function budgetUnits(c: PlanConstraints): number {
@@ -62,7 +62,7 @@ export function gridPoints(substrate: readonly number[], inhibitor: readonly num
 }
 
 /** Concentrations are rounded to 4 significant digits, as they will be pipetted and written on the plate map. */
-export function roundLevel(x: number): number {
+function roundLevel(x: number): number {
   return x === 0 ? 0 : Number(x.toPrecision(4));
 }
 

@@ -146,7 +146,7 @@ function lineFit(x: number[], y: number[]): { slope: number; intercept: number; 
 }
 
 /** Two-sided p value of the quadratic coefficient in y = a + b x + c x^2 (orthogonal polynomials). */
-export function quadraticTermP(x: readonly number[], y: readonly number[]): number {
+function quadraticTermP(x: readonly number[], y: readonly number[]): number {
   const q = quadraticFit(x, y, x.length);
   return q.p;
 }

@@ -23,7 +23,7 @@ import type { KineticReads, ReadExclusion, TimeUnit, WellCurve } from './types.j
 import { canonicalWell, wellLabel } from './well-names.js';
 import { clockSeconds, parseTimeUnit, SECONDS_PER } from './time-values.js';
 
-export interface ReadsOptions {
+interface ReadsOptions {
   /** plate name for reads without a plate column (default '') */
   plate?: string;
 }

@@ -19,7 +19,7 @@ function unitOf(name: string, result: AnalysisResult): string {
   return unitOfDimension(dimensionOfName(name), result.input.units);
 }
 
-export function modelTable(models: readonly ModelResult[]): string[] {
+function modelTable(models: readonly ModelResult[]): string[] {
   const head = `  ${pad('rank', 5)}${pad('mechanism', 16)}${padLeft('AICc', 11)}${padLeft('ΔAICc', 9)}${padLeft('weight', 9)}${padLeft('SSE', 12)}  converged`;
   const rows = models.map(
     (m, r) =>
@@ -28,7 +28,7 @@ export function modelTable(models: readonly ModelResult[]): string[] {
   return [head, ...rows];
 }
 
-export function parameterLines(model: ModelResult, result: AnalysisResult): string[] {
+function parameterLines(model: ModelResult, result: AnalysisResult): string[] {
   const pct = `${Math.round(result.level * 100)}%`;
   return model.estimates.map((e) => {
     const unit = unitOf(e.name, result);
@@ -54,7 +54,7 @@ export function profileText(name: string, ends: [number | null, number | null], 
 }
 
 /** pKi, pKiu and IC50 of a model, and the bootstrap selection frequencies. */
-export function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
+function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
   const pct = `${Math.round(result.level * 100)}%`;
   const lines: string[] = [];
   for (const d of model.derived ?? []) {

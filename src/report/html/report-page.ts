@@ -22,7 +22,7 @@ import { figureBlock } from './sections/figure-block.js';
 import { derivedSection } from './sections/derived-section.js';
 import { fitChecksSection } from './sections/fit-checks-section.js';
 
-export interface ReportInput {
+interface ReportInput {
   result: AnalysisResult;
   figures: readonly FigureOutput[];
   provenance?: ReportProvenance;

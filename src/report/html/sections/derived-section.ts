@@ -59,7 +59,7 @@ function label(q: DerivedQuantity, result: AnalysisResult): string {
 }
 
 /** The closed form of the IC50 for a mechanism, in words a reader can check by hand. */
-export const IC50_FORMULA: Partial<Record<Mechanism, string>> = {
+const IC50_FORMULA: Partial<Record<Mechanism, string>> = {
   competitive: 'IC50 = Ki (1 + [S]/Km)',
   uncompetitive: 'IC50 = Kiu (1 + Km/[S])',
   noncompetitive: 'IC50 = Ki, whatever [S]',
