@@ -26,6 +26,7 @@ import { waldEstimates, waldInterval } from '../evidence/wald-estimates.js';
 import { detectionBound } from '../evidence/detection-bound.js';
 import { tQuantile } from '../stats/distributions.js';
 import type { BootstrapSummary, ModelResult } from './types.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 export interface BootstrapRequest {
   resamples: number;
@@ -52,10 +53,6 @@ interface IntervalOptions {
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
   onProgress?: (done: number, total: number) => void;
-}
-
-function distinctLevels(xs: Float64Array): number[] {
-  return [...new Set(xs)].sort((a, b) => a - b);
 }
 
 /** Completes the ranked models with intervals; returns the bootstrap summary when one was run. */

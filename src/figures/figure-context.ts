@@ -7,6 +7,7 @@ import { axisUnits, type AxisUnits } from './axis-units.js';
 import { seriesColours } from './palette.js';
 import { rateConstants, type RateConstants } from './replot-geometry.js';
 import { sig } from '../text/format-number.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 export interface SeriesLevels {
   values: number[];
@@ -24,11 +25,6 @@ export interface FigureContext {
   runnerUpConstants: RateConstants | null;
   inhibitor: SeriesLevels;
   substrate: SeriesLevels;
-}
-
-/** Distinct values, ascending. */
-function distinctLevels(values: ArrayLike<number>): number[] {
-  return [...new Set(Array.from(values))].sort((a, b) => a - b);
 }
 
 function seriesLevels(values: Float64Array): SeriesLevels {
