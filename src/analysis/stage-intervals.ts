@@ -8,7 +8,8 @@
  * The ModelResults are completed in place; the bootstrap summary is returned.
  */
 import { MECHANISMS } from '../models/index.js';
-import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { valueWithUnit } from '../text/format-number.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
 import { jointRegionKiKiu } from '../evidence/joint-region.js';
@@ -185,7 +186,7 @@ function derivedQuantity(
   }
   const value = d.evaluate(fit.params);
   if (d.name === 'IC50' && !(value <= detectionBound(maxI))) {
-    base.note = `the IC50 lies beyond ${withUnit(String(detectionBound(maxI)), inhibitorUnit)} (100 x the highest [I]): not reached in the tested range`;
+    base.note = `the IC50 lies beyond ${valueWithUnit(String(detectionBound(maxI)), inhibitorUnit)} (100 x the highest [I]): not reached in the tested range`;
     return base;
   }
   base.value = value;

@@ -13,6 +13,7 @@
  *  - a single non-zero [I]: the mechanism rests on one inhibited series (blocking);
  *  - highest [I] below the fitted inhibition constant: inhibition is weak over the whole range (warning).
  */
+import { rounded, valueWithUnit } from '../text/format-number.js';
 
 /** Below this multiple of Km for the highest [S], no firm call (blocking). */
 const SUBSTRATE_FLOOR_OVER_KM = 2;
@@ -38,13 +39,7 @@ export interface DesignScale {
   K?: number;
 }
 
-function fmt(x: number): string {
-  return Number(x.toPrecision(2)).toString();
-}
-
-function withUnit(text: string, unit: string | null | undefined): string {
-  return unit ? `${text} ${unit}` : text;
-}
+const fmt = (x: number): string => rounded(x, 2);
 
 /**
  * The design findings for points at substrate s[k] and inhibitor i[k] against the fitted scale.
@@ -101,7 +96,7 @@ export function designFindings(s: ArrayLike<number>, i: ArrayLike<number>, fitte
   if (fitted.K !== undefined && Number.isFinite(fitted.K) && imax < fitted.K) {
     out.push({
       code: 'inhibitor-below-k',
-      message: `the highest [I] (${withUnit(fmt(imax), inhibitorUnit)}) stays below the fitted inhibition constant (${withUnit(fmt(fitted.K), inhibitorUnit)}): inhibition is weak throughout`,
+      message: `the highest [I] (${valueWithUnit(fmt(imax), inhibitorUnit)}) stays below the fitted inhibition constant (${valueWithUnit(fmt(fitted.K), inhibitorUnit)}): inhibition is weak throughout`,
       blocking: false,
       suggestion: 'extend [I] to several times the inhibition constant',
     });
