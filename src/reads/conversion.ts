@@ -17,7 +17,8 @@ import { parseConcentrationUnit, unitShift } from '../input/units.js';
 import { splitHeaderName } from '../input/header.js';
 import { readNumberCell } from '../input/numbers.js';
 import type { Conversion } from './types.js';
-import { readTextFile, tokenizeTable } from './read-kinetic-reads.js';
+import { readTextFile } from '../input/read-text-file.js';
+import { tokenizeTable } from './read-kinetic-reads.js';
 import { CURVATURE_P } from './thresholds.js';
 
 /** Least-squares straight line with its slope SE, and the p value of an added quadratic term. */
