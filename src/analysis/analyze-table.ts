@@ -270,7 +270,7 @@ function dataSpan(data: FitData): DataSpan {
 }
 
 /** The alpha interval the verdict reads: profile where computed, else Wald. */
-export function alphaInterval(models: readonly ModelResult[]): [number | null, number | null] | null {
+function alphaInterval(models: readonly ModelResult[]): [number | null, number | null] | null {
   const mixed = models.find((m) => m.mechanism === 'mixed');
   const alpha: ParameterEstimate | undefined = mixed?.estimates.find((e) => e.name === 'alpha');
   if (!alpha || !alpha.detected) return null;
@@ -293,13 +293,13 @@ function checkMagnitudes(table: RateTable): void {
 }
 
 /** What the verdict reads besides the ranking and the nested tests. */
-export interface VerdictEvidence {
+interface VerdictEvidence {
   exclusions?: AlphaExclusions | null;
   exactFits?: ExactFitEvidence[];
   alphaEstimate?: number | null;
 }
 
-export function verdictFrom(
+function verdictFrom(
   models: readonly ModelResult[],
   nested: readonly NestedComparison[],
   caveats: readonly Caveat[],
@@ -363,7 +363,7 @@ function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null 
 }
 
 /** The one-sided alpha tests of the mixed fit that a firm three-parameter call rests on. */
-export function exclusionsOf(models: readonly ModelResult[], data: FitData): AlphaExclusions | null {
+function exclusionsOf(models: readonly ModelResult[], data: FitData): AlphaExclusions | null {
   const mixed = models.find((m) => m.mechanism === 'mixed');
   if (!mixed || !mixed.converged || !(mixed.fit.df > 0) || !Number.isFinite(mixed.sse)) return null;
   return alphaExclusions(mixed.fit, data);

@@ -12,11 +12,12 @@
 import type { RateTable } from '../input/types.js';
 import { doseResponseEvidence, type Interval } from '../evidence/dose-response.js';
 import type { DoseResponseModel } from '../fit/dose-response-fit.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
-export const IC50_SHIFT_MAX_SUBSTRATE_LEVELS = 3;
-export const IC50_SHIFT_MIN_INHIBITOR_LEVELS = 5;
+const IC50_SHIFT_MAX_SUBSTRATE_LEVELS = 3;
+const IC50_SHIFT_MIN_INHIBITOR_LEVELS = 5;
 
-export interface SeriesIc50 {
+interface SeriesIc50 {
   substrate: number;
   ic50: number;
   /** profile interval when it has an end, else Wald */
@@ -37,7 +38,7 @@ export function isIc50ShiftDesign(table: Pick<RateTable, 'points'>): boolean {
 /** One dose-response IC50 per [S] series, ascending in [S]; empty when the design is not an IC50 shift. */
 export function ic50ShiftSeries(table: Pick<RateTable, 'points'>, level = 0.95): SeriesIc50[] {
   if (!isIc50ShiftDesign(table)) return [];
-  const levels = [...new Set(table.points.map((p) => p.substrate))].sort((a, b) => a - b);
+  const levels = distinctLevels(table.points.map((p) => p.substrate));
   const out: SeriesIc50[] = [];
   for (const s of levels) {
     const points = table.points.filter((p) => p.substrate === s);

@@ -11,10 +11,11 @@
  */
 import type { RateTable } from '../input/types.js';
 import { doseResponseEvidence, type DoseResponseEvidence } from '../evidence/dose-response.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 /** The distinct [S] of the used points, ascending. */
 export function substrateLevels(table: Pick<RateTable, 'points'>): number[] {
-  return [...new Set(table.points.map((p) => p.substrate))].sort((a, b) => a - b);
+  return distinctLevels(table.points.map((p) => p.substrate));
 }
 
 /** True when the table holds one [S] level only: a dose-response (IC50) experiment. */

@@ -22,7 +22,7 @@ import { pPhrase } from '../text/format-number.js';
 
 export const DIAGNOSTIC_LEVEL = 0.01;
 
-export interface DiagnosticsStage {
+interface DiagnosticsStage {
   residuals: Partial<Record<Mechanism, ResidualDiagnostics>>;
   seriesFits: SeriesFit[];
   seriesDisagreements: SeriesDisagreement[];

@@ -35,7 +35,7 @@ export interface FamilyRequest {
   bootstrap?: { resamples: number; seed: number; weights?: WildWeights };
 }
 
-export interface FamilyTools {
+interface FamilyTools {
   rank(fits: readonly MechanismFit[], data: FitData, level: number): ModelResult[];
   verdict(models: readonly ModelResult[], nested: readonly NestedComparison[], caveats: readonly Caveat[], data: FitData): Verdict;
 }
@@ -128,7 +128,7 @@ function addProfiles(model: ModelResult | undefined, data: FitData, level: numbe
  * constants (the classic winner's residual caveats say nothing about another family's fit). The
  * per-series comparison uses classic apparent constants and is left out.
  */
-export function familyCaveats(winner: ModelResult | undefined, data: FitData, checks?: Record<string, ResidualDiagnostics>): Caveat[] {
+function familyCaveats(winner: ModelResult | undefined, data: FitData, checks?: Record<string, ResidualDiagnostics>): Caveat[] {
   if (!winner || !(winner.fit.df > 0)) return [];
   const d = residualDiagnostics(winner.fit, data);
   if (checks) checks[winner.modelId ?? winner.mechanism] = d;

@@ -8,7 +8,8 @@
  * The ModelResults are completed in place; the bootstrap summary is returned.
  */
 import { MECHANISMS } from '../models/index.js';
-import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { valueWithUnit } from '../text/format-number.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
 import { jointRegionKiKiu } from '../evidence/joint-region.js';
@@ -26,6 +27,7 @@ import { waldEstimates, waldInterval } from '../evidence/wald-estimates.js';
 import { detectionBound } from '../evidence/detection-bound.js';
 import { tQuantile } from '../stats/distributions.js';
 import type { BootstrapSummary, ModelResult } from './types.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 export interface BootstrapRequest {
   resamples: number;
@@ -35,7 +37,7 @@ export interface BootstrapRequest {
   weights?: WildWeights;
 }
 
-export interface IntervalOptions {
+interface IntervalOptions {
   level: number;
   /** profile-likelihood intervals and curves; default true */
   profile?: boolean;
@@ -52,10 +54,6 @@ export interface IntervalOptions {
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
   onProgress?: (done: number, total: number) => void;
-}
-
-function distinctLevels(xs: Float64Array): number[] {
-  return [...new Set(xs)].sort((a, b) => a - b);
 }
 
 /** Completes the ranked models with intervals; returns the bootstrap summary when one was run. */
@@ -188,7 +186,7 @@ function derivedQuantity(
   }
   const value = d.evaluate(fit.params);
   if (d.name === 'IC50' && !(value <= detectionBound(maxI))) {
-    base.note = `the IC50 lies beyond ${withUnit(String(detectionBound(maxI)), inhibitorUnit)} (100 x the highest [I]): not reached in the tested range`;
+    base.note = `the IC50 lies beyond ${valueWithUnit(String(detectionBound(maxI)), inhibitorUnit)} (100 x the highest [I]): not reached in the tested range`;
     return base;
   }
   base.value = value;

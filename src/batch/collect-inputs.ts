@@ -8,7 +8,7 @@ import { readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
 /** File-name endings read from a folder (any case). */
-export const TABLE_FILE_ENDINGS = ['.csv', '.tsv', '.txt'] as const;
+const TABLE_FILE_ENDINGS = ['.csv', '.tsv', '.txt'] as const;
 
 export interface InputFile {
   /** the path as the user wrote it (folder entries: folder as written joined with the name) */
@@ -17,7 +17,7 @@ export interface InputFile {
   path: string;
 }
 
-export interface CollectedInputs {
+interface CollectedInputs {
   files: InputFile[];
   /** plain-words notes, e.g. a folder without table files, a file named twice */
   notes: string[];

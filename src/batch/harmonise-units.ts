@@ -10,13 +10,13 @@ import { convertUnits } from '../input/convert-units.js';
 import type { ConcentrationUnit, RateTable } from '../input/types.js';
 import type { CompoundJob } from './types.js';
 
-export interface RunUnits {
+interface RunUnits {
   substrate: ConcentrationUnit | null;
   inhibitor: ConcentrationUnit | null;
 }
 
 /** Warning code put on a table whose unit is unknown while the run's is known. */
-export const UNIT_UNKNOWN_IN_RUN = 'unit-unknown-in-run';
+const UNIT_UNKNOWN_IN_RUN = 'unit-unknown-in-run';
 
 /** Converts the jobs' tables in place to one unit per axis; returns the units and the notes. */
 export function harmoniseUnits(jobs: CompoundJob[]): { units: RunUnits; notes: string[] } {

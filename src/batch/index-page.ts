@@ -11,7 +11,7 @@ import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { summaryCounts, type BatchSettings } from './summary-files.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
 
-export interface IndexPageContext {
+interface IndexPageContext {
   settings: BatchSettings;
   /** when the run finished (shown on the page) */
   finishedAt: Date;

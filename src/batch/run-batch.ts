@@ -34,9 +34,9 @@ import { concentrationIn, type Concentration } from '../input/units.js';
 import type { CompoundSummary } from './types.js';
 
 /** Names of the files written at the top of the output folder. */
-export const SUMMARY_CSV = 'summary.csv';
-export const SUMMARY_JSON = 'summary.json';
-export const INDEX_PAGE = 'index.html';
+const SUMMARY_CSV = 'summary.csv';
+const SUMMARY_JSON = 'summary.json';
+const INDEX_PAGE = 'index.html';
 
 export interface BatchOptions {
   /** output folder; nothing is written when it is not given */

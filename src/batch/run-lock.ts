@@ -10,6 +10,7 @@ import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { OutputError, errnoCode, writeProblem } from '../report/output-error.js';
+import { isRunning } from '../report/process-running.js';
 
 export const RUN_LOCK_FILE = '.mechanist-run.lock';
 
@@ -25,15 +26,6 @@ export interface RunLock {
   release(): void;
   /** set when a stale lock of a killed run was taken over */
   note: string | null;
-}
-
-function isRunning(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (error) {
-    return errnoCode(error) === 'EPERM';
-  }
 }
 
 function readLock(path: string): LockContent | null {

@@ -15,7 +15,7 @@ import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
 import { interval, sig } from '../text/format-number.js';
 
 /** Where the row of a compound sits and what it is called (set by the batch plan). */
-export interface RowIdentity {
+interface RowIdentity {
   position: number;
   compound: string;
   nameInFile: string | null;
@@ -27,7 +27,7 @@ function finiteOrNull(x: number | null | undefined): number | null {
 }
 
 /** Value and interval of one estimate, profile interval first (see IntervalKind). */
-export function constantSummary(e: ParameterEstimate): ConstantSummary {
+function constantSummary(e: ParameterEstimate): ConstantSummary {
   if (!e.detected) {
     return { value: null, low: finiteOrNull(e.exceeds), high: null, interval: 'not-detected' };
   }

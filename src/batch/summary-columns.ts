@@ -6,9 +6,9 @@
 import { levelKey } from '../report/results-json.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
 
-export type Cell = string | number | boolean | null;
+type Cell = string | number | boolean | null;
 
-export interface SummaryColumn {
+interface SummaryColumn {
   name: string;
   /** plain words for the README and the index page */
   meaning: string;

@@ -27,7 +27,7 @@ export class InterruptedError extends Error {
   }
 }
 
-export interface PoolOptions {
+interface PoolOptions {
   /** aborting stops the jobs: workers are terminated and the run rejects with InterruptedError */
   signal?: AbortSignal;
   /** number of worker threads wanted (at most one per job is started) */
@@ -37,7 +37,7 @@ export interface PoolOptions {
   onRow?: (row: CompoundSummary) => void;
 }
 
-export interface PoolOutcome {
+interface PoolOutcome {
   /** rows in job order */
   rows: CompoundSummary[];
   /** worker threads that analysed at least one compound (0: all ran in the calling thread) */

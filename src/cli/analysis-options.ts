@@ -91,7 +91,7 @@ export function analysisOptionsFrom(o: SharedCliOptions): AnalysisOptions {
 }
 
 /** --enzyme CONC|fit and --partial. */
-export function familyOptionsFrom(o: Pick<SharedCliOptions, 'enzyme' | 'partial'>): AnalysisOptions {
+function familyOptionsFrom(o: Pick<SharedCliOptions, 'enzyme' | 'partial'>): AnalysisOptions {
   const out: AnalysisOptions = {};
   if (o.partial) out.partial = true;
   if (o.enzyme !== undefined) {

@@ -8,7 +8,7 @@ export interface ProgressBar {
   finish(): void;
 }
 
-export interface ProgressBarOptions {
+interface ProgressBarOptions {
   stream?: NodeJS.WriteStream;
   /** wait before the first draw (ms); default 1000 */
   delayMs?: number;

@@ -23,7 +23,7 @@ import type { ReadsCliOptions } from './reads-options.js';
 export type { ReadsCliOptions } from './reads-options.js';
 import { numberOption, positiveNumber } from './parse-option-values.js';
 
-export interface ReadsRun {
+interface ReadsRun {
   result: PlateRates;
   text: string;
   /** lines for stderr: notes, excluded reads, wells without a compound */

@@ -18,7 +18,7 @@ import { ratesCommand } from './commands/rates.js';
 import { planCommand } from './commands/plan.js';
 
 /** Exit code chosen by a command that finished without throwing (batch uses it). */
-export interface CommandOutcome {
+interface CommandOutcome {
   exitCode: number;
 }
 
@@ -35,7 +35,7 @@ function output(io: CliIo) {
   };
 }
 
-export function usageLine(commanderText: string): string {
+function usageLine(commanderText: string): string {
   const text = oneLine(commanderText.replace(/^error:\s*/i, ''));
   return text.replace(/\(Did you mean/g, '(did you mean');
 }
@@ -89,7 +89,7 @@ function isAnalysisError(e: unknown): e is Error {
   return e instanceof Error && e.name === 'AnalysisError' && (e as { exitCode?: unknown }).exitCode === EXIT_ANALYSIS_FAILED;
 }
 
-export function reportFailure(e: unknown, io: CliIo): number {
+function reportFailure(e: unknown, io: CliIo): number {
   if (e instanceof CommanderError) {
     // help and version end in a CommanderError with exit code 0; commander already printed usage errors
     if (e.exitCode === 0 || e.code === 'commander.helpDisplayed' || e.code === 'commander.version') return EXIT_OK;

@@ -6,12 +6,12 @@
  */
 import type { FitData } from '../fit/fit-data.js';
 
-export type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive' | 'too-few-positive';
+type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive' | 'too-few-positive';
 
 /** A rate curve needs at least this many positive rates to be described at all (the Michaelis-Menten model has 2 constants). */
-export const FEWEST_POSITIVE_RATES = 3;
+const FEWEST_POSITIVE_RATES = 3;
 
-export interface NoActivityFinding {
+interface NoActivityFinding {
   kind: NoActivityKind;
   message: string;
 }

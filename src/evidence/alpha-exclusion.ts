@@ -49,7 +49,7 @@ export interface AlphaExclusions {
 }
 
 /** One-sided profile test of "alpha is above (or below) the bound" in the mixed fit. */
-export function alphaBoundTest(mixed: MechanismFit, data: FitData, claim: AlphaClaim, bound: number, level = EXCLUSION_LEVEL): AlphaBoundTest {
+function alphaBoundTest(mixed: MechanismFit, data: FitData, claim: AlphaClaim, bound: number, level = EXCLUSION_LEVEL): AlphaBoundTest {
   const { tau, df } = profileTauAt(mixed, data, 'alpha', bound);
   // tau < 0 when the bound lies below the estimate: a claim "above" is supported by a large -tau.
   const p = !Number.isFinite(tau) ? 1 : claim === 'above' ? tCdf(tau, df) : tSurvival(tau, df);

@@ -56,7 +56,7 @@ export function jackknifeAcceleration(jackknife: ArrayLike<number>): number {
   return s2 > 0 ? s3 / (6 * s2 ** 1.5) : 0;
 }
 
-export interface BcaDetails {
+interface BcaDetails {
   interval: [number, number];
   biasCorrection: number;
   acceleration: number;

@@ -89,7 +89,7 @@ function farConstant(data: FitData): number {
  * Refits every model of the plan to `data` (bootstrap-refit.ts), each from the original solution,
  * and mixed also from the refitted nested models (so mixed is never left worse than a model nested in it).
  */
-export function refitModels(plan: BootstrapPlan, data: FitData): Refit[] {
+function refitModels(plan: BootstrapPlan, data: FitData): Refit[] {
   const done = new Map<Mechanism, Refit>();
   const far = farConstant(data);
   return plan.mechanisms.map((mechanism, j) => {

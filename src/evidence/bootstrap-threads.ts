@@ -26,11 +26,6 @@ function workerScript(): URL | null {
   return existsSync(fileURLToPath(url)) ? url : null;
 }
 
-/** True when worker threads can be used from this build (compiled JS present). */
-export function workersAvailable(): boolean {
-  return workerScript() !== null;
-}
-
 /**
  * Runs tasks 0 .. total-1 of the plan on `threads` threads in all (the caller's plus threads - 1
  * workers) and returns the rows, task by task. `onProgress(done, total)` is called from the

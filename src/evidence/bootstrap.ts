@@ -16,7 +16,7 @@ import { bcaInterval, percentileInterval } from './bootstrap-intervals.js';
 import { rowWidth, type BootstrapPlan, type WildWeights } from './bootstrap-tasks.js';
 import { runBootstrapTasks } from './bootstrap-threads.js';
 
-export interface BootstrapOptions {
+interface BootstrapOptions {
   resamples: number;
   seed: number;
   /** threads in all (1 = the calling thread only); default 1 */
@@ -125,7 +125,7 @@ function collectRows(plan: BootstrapPlan, rows: Float64Array, generatingModel: M
   return { resamples: B, seed: plan.seed, weights: plan.weights, generatingModel, mechanisms: plan.mechanisms, replicates, jackknife, selection, failures };
 }
 
-export interface BootstrapIntervals {
+interface BootstrapIntervals {
   percentile: [number, number] | null;
   bca: [number, number] | null;
 }

@@ -4,6 +4,7 @@
  * read.
  */
 import type { FitData } from '../fit/fit-data.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 export interface ConditionMean {
   s: number;
@@ -35,7 +36,7 @@ export function conditionMeans(data: FitData): ConditionMean[] {
 
 /** The inhibitor levels, ascending. */
 export function inhibitorLevelsOf(means: readonly ConditionMean[]): number[] {
-  return [...new Set(means.map((m) => m.i))].sort((a, b) => a - b);
+  return distinctLevels(means.map((m) => m.i));
 }
 
 /** Ratio of the mean at level `i` to the control mean at the same [S], per shared [S] level. */

@@ -58,7 +58,7 @@ export interface DerivedUnits {
 }
 
 /** -log10 of a concentration given in `unit`, in mol/L. */
-export function pConcentration(x: number, unit: ConcentrationUnit): number {
+function pConcentration(x: number, unit: ConcentrationUnit): number {
   return -(Math.log10(x) + unitShift(unit, 'M'));
 }
 

@@ -7,11 +7,11 @@
  */
 import type { Mechanism } from '../models/types.js';
 import type { ParameterEstimate } from './wald-estimates.js';
-import { maxInhibitor, withUnit, type FitData } from '../fit/fit-data.js';
-import { sig } from '../text/format-number.js';
+import { maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { sig, valueWithUnit } from '../text/format-number.js';
 
 /** What noInhibitionReason reads of each ranked model (the analysis stage's ModelResult has these). */
-export interface RankedModelEstimates {
+interface RankedModelEstimates {
   mechanism: Mechanism;
   /** fitted rate parameters */
   p: number;
@@ -21,7 +21,7 @@ export interface RankedModelEstimates {
 export function noInhibitionReason(models: readonly RankedModelEstimates[], data: FitData): string {
   const imax = maxInhibitor(data);
   // every concentration printed with its unit (issue 13): "highest [I] tested: 200 nM"
-  const c = (x: number) => withUnit(sig(x, 3), data.units?.inhibitor);
+  const c = (x: number) => valueWithUnit(sig(x, 3), data.units?.inhibitor);
   const inhibited = models.find((m) => m.mechanism !== 'none' && m.p === 3);
   const est = inhibited?.estimates.find((e) => e.name === 'Ki' || e.name === 'Kiu');
   if (!inhibited || !est) return `highest [I] tested: ${c(imax)}`;

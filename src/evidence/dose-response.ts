@@ -73,7 +73,7 @@ export interface DoseResponseEvidence {
   notes: string[];
 }
 
-export interface DoseResponseOptions {
+interface DoseResponseOptions {
   level?: number;
   /** the substrate concentration of the assay, in the unit Km is given in */
   substrate: number;

@@ -46,7 +46,7 @@ export function candidateErrorModels(data: FitData): { usable: ErrorModel[]; ski
   return { usable, skipped };
 }
 
-export function scoreFit(fit: MechanismFit): number {
+function scoreFit(fit: MechanismFit): number {
   return aicc(fit.logLik, fit.p + 1, fit.n);
 }
 

@@ -7,9 +7,9 @@
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 
 /** Weighted SSE below this fraction of the weighted sum of squared rates counts as exact. */
-export const EXACT_FIT_RELATIVE_SSE = 1e-16;
+const EXACT_FIT_RELATIVE_SSE = 1e-16;
 
-export function relativeSse(fit: MechanismFit, observed: ArrayLike<number>): number {
+function relativeSse(fit: MechanismFit, observed: ArrayLike<number>): number {
   let total = 0;
   for (let k = 0; k < observed.length; k++) total += fit.weights[k] * observed[k] * observed[k];
   return total > 0 ? fit.sse / total : NaN;

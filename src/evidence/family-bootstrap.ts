@@ -18,7 +18,7 @@ import { resampleSeed, type WildWeights } from './bootstrap-tasks.js';
 import { refitFromStarts } from './bootstrap-refit.js';
 import { bcaInterval, percentileInterval } from './bootstrap-intervals.js';
 
-export interface FamilyBootstrapIntervals {
+interface FamilyBootstrapIntervals {
   percentile: [number, number] | null;
   bca: [number, number] | null;
 }

@@ -89,7 +89,7 @@ export interface FamilyCall {
   headline: string;
 }
 
-export interface FamilyInput {
+interface FamilyInput {
   classic: Verdict;
   classicModels: readonly FamilyModelEvidence[];
   tight?: TightBindingEvidence;
@@ -108,7 +108,7 @@ function fmt(x: number | null | undefined): string {
 }
 
 /** "Ki = 2.1 nM [1.8, 2.5]" from the best interval computed. */
-export function constantPhrase(e: ParameterEstimate | undefined, unit: string): string {
+function constantPhrase(e: ParameterEstimate | undefined, unit: string): string {
   if (!e || e.value === null) return e ? `${e.name} not detected` : '';
   const ci = e.profile ?? e.wald;
   const u = unit ? ` ${unit}` : '';
@@ -119,7 +119,6 @@ function leadConstant(m: FamilyModelEvidence | undefined): ParameterEstimate | u
   return estimate(m, 'Ki')?.detected ? estimate(m, 'Ki') : estimate(m, 'Kiu');
 }
 
-const ORDER: Mechanism[] = ['none', 'competitive', 'uncompetitive', 'noncompetitive', 'mixed'];
 const idOfClassic = (m: Mechanism | null) => m ?? 'none';
 
 export function compareFamilies(input: FamilyInput): FamilyCall {
@@ -246,11 +245,6 @@ export function partialWinner(ranked: readonly FamilyModelEvidence[], partial: P
   const rival = kept.find((m) => m !== model && m.aicc - model.aicc < 4);
   if (rival) return { model, decisive: false, reasons: [`${rival.id} stays within 4 AICc units: the partial mechanism is not settled`] };
   return { model, decisive: true, reasons: mixed && model !== mixed ? [`partial mixed does not improve on ${model.id} at p < ${FAMILY_LEVEL}`] : [] };
-}
-
-/** The order of mechanisms for stable listing. */
-export function mechanismOrder(m: Mechanism): number {
-  return ORDER.indexOf(m);
 }
 
 /**

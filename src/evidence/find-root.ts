@@ -5,7 +5,7 @@
  * procedure zero).
  */
 
-export interface RootResult {
+interface RootResult {
   /** the point where the function changes sign, to within the tolerance */
   x: number;
   /** function value at x */

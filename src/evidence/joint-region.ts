@@ -39,7 +39,7 @@ export interface JointRegion {
   box?: { low: number; high: number };
 }
 
-export interface JointRegionOptions {
+interface JointRegionOptions {
   level?: number;
   /** number of rays; default 72 */
   rays?: number;

@@ -15,7 +15,7 @@ function molar(x: number, unit: ConcentrationUnit): number {
   return x * 10 ** unitShift(unit, 'M');
 }
 
-export interface PlausibilityInput {
+interface PlausibilityInput {
   units: { substrate: ConcentrationUnit | null; inhibitor: ConcentrationUnit | null };
   maxSubstrate: number;
   maxInhibitor: number;

@@ -62,7 +62,7 @@ export interface ParameterProfile {
   evaluations: number;
 }
 
-export interface ProfileOptions {
+interface ProfileOptions {
   /** confidence level; default 0.95 */
   level?: number;
   /** absolute tolerance of the ends on the log scale; default 1e-8 (a relative 1e-8 in the parameter) */
@@ -111,11 +111,6 @@ function logScaleSe(ctx: FitContext, q: ProfiledQuantity): number {
   }
   const j = ctx.fit.model.params.indexOf(q.name);
   return Math.sqrt(c[j * m + j]);
-}
-
-/** Profiles one quantity of a fit: both interval ends and the curve. */
-export function profileOfFit(fit: MechanismFit, data: FitData, name: ProfiledName, options: ProfileOptions = {}): ParameterProfile {
-  return profileWithContext(fitContext(fit, data, options), name);
 }
 
 /** Profiles every parameter of a fit, and alpha when the model has both Ki and Kiu. */

@@ -16,7 +16,7 @@ import type { FitData } from '../fit/fit-data.js';
 import { detectionBound } from './detection-bound.js';
 import type { ProfiledName } from './profiled-problem.js';
 
-export const SUPPORT_FACTOR = 1000;
+const SUPPORT_FACTOR = 1000;
 
 /**
  * Residual activity below this is not told apart from full inhibition (0.1% of the uninhibited

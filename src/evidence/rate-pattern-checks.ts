@@ -21,11 +21,11 @@ import { activityRatios, conditionMeans, inhibitorLevelsOf, type ConditionMean }
 import { ACTIVATION_CODE, type Caveat } from './caveat.js';
 import { rounded } from '../text/format-number.js';
 
-export const SUBSTRATE_DROP_Z = 3;
-export const SUBSTRATE_DROP_FRACTION = 0.05;
-export const PATTERN_LEVEL = 0.01;
-export const SATURATED_ACTIVITY = 0.1;
-export const SATURATING_CODE = 'inhibitor-saturating';
+const SUBSTRATE_DROP_Z = 3;
+const SUBSTRATE_DROP_FRACTION = 0.05;
+const PATTERN_LEVEL = 0.01;
+const SATURATED_ACTIVITY = 0.1;
+const SATURATING_CODE = 'inhibitor-saturating';
 
 /**
  * Scale of the weighted scatter: the pure-error variance of replicates within conditions where

@@ -20,13 +20,13 @@ import { median } from '../stats/median.js';
 
 export const BISQUARE_C = 4.685;
 
-export interface DownWeightedPoint {
+interface DownWeightedPoint {
   /** index into the fitted points */
   index: number;
   weight: number;
 }
 
-export interface RobustRefit {
+interface RobustRefit {
   /** robustness weight of every point (1 = full weight, 0 = rejected) */
   weights: Float64Array;
   downWeighted: DownWeightedPoint[];

@@ -12,6 +12,7 @@ import type { ErrorModel } from '../fit/error-models.js';
 import { subsetFitData, type FitData } from '../fit/fit-data.js';
 import { waldEstimates } from './wald-estimates.js';
 import { apparentConstants } from './apparent-constants.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 /** A Michaelis-Menten fit of one inhibitor series alone: a diagnostic, not a result. */
 export interface SeriesFit {
@@ -33,7 +34,7 @@ function seriesIndices(inhibitor: Float64Array, level: number): number[] {
 
 /** Michaelis-Menten fit of each [I] series with at least 3 distinct [S] levels. */
 export function seriesFits(data: FitData, errorModel: ErrorModel): SeriesFit[] {
-  const levels = [...new Set(data.i)].sort((a, b) => a - b);
+  const levels = distinctLevels(data.i);
   const out: SeriesFit[] = [];
   for (const level of levels) {
     const series = subsetFitData(data, seriesIndices(data.i, level));

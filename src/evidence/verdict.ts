@@ -58,7 +58,7 @@ export interface ExactFitEvidence {
   relativeSse: number;
 }
 
-export interface VerdictInput {
+interface VerdictInput {
   models: readonly RankedModelEvidence[];
   nested: readonly NestedComparison[];
   /** interval for alpha of the mixed model (profile if available, else Wald); null if undefined */

@@ -24,7 +24,7 @@ import { DETECTION_FACTOR, detectionBound } from './detection-bound.js';
 import { rounded } from '../text/format-number.js';
 
 /** Vmax or Km beyond this multiple of the highest rate or [S] is not determined (chosen here). */
-export const RIDGE_FACTOR = 1000;
+const RIDGE_FACTOR = 1000;
 
 /** What the data span, for the "not determined" checks; omitted fields skip the check. */
 export interface DataSpan {
@@ -73,7 +73,7 @@ export interface ParameterEstimate {
   bootstrapBca?: [number, number];
 }
 
-export interface EstimateSet {
+interface EstimateSet {
   estimates: ParameterEstimate[];
   /** residual variance s^2 = SSE_w / (n - p) */
   residualVariance: number;

@@ -134,7 +134,7 @@ function styleAxis(g: Group): void {
   g.selectAll('.tick line').attr('stroke-width', 0.5);
 }
 
-export interface AxesOptions {
+interface AxesOptions {
   /** draw the title of the x (y) axis; default true */
   xTitle?: boolean;
   yTitle?: boolean;

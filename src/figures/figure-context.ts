@@ -7,6 +7,7 @@ import { axisUnits, type AxisUnits } from './axis-units.js';
 import { seriesColours } from './palette.js';
 import { rateConstants, type RateConstants } from './replot-geometry.js';
 import { sig } from '../text/format-number.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 export interface SeriesLevels {
   values: number[];
@@ -26,11 +27,6 @@ export interface FigureContext {
   substrate: SeriesLevels;
 }
 
-/** Distinct values, ascending. */
-export function distinctLevels(values: ArrayLike<number>): number[] {
-  return [...new Set(Array.from(values))].sort((a, b) => a - b);
-}
-
 function seriesLevels(values: Float64Array): SeriesLevels {
   const levels = distinctLevels(values);
   const at = new Map(levels.map((v, k) => [v, k]));
@@ -47,7 +43,7 @@ export function drawnModel(result: AnalysisResult): ModelResult {
 }
 
 /** The classic model of the verdict's mechanism (the replots' line geometry is that of the classic laws). */
-export function classicDrawnModel(result: AnalysisResult): ModelResult {
+function classicDrawnModel(result: AnalysisResult): ModelResult {
   return result.models.find((m) => m.mechanism === result.verdict.mechanism) ?? result.models[0];
 }
 

@@ -4,14 +4,14 @@
  */
 import * as d3 from 'd3';
 
-export interface MarkerShape {
+interface MarkerShape {
   name: string;
   symbol: d3.SymbolType;
   /** degrees; the down-pointing triangle is the up-pointing one turned over */
   rotate: number;
 }
 
-export const MARKER_SHAPES: readonly MarkerShape[] = [
+const MARKER_SHAPES: readonly MarkerShape[] = [
   { name: 'circle', symbol: d3.symbolCircle, rotate: 0 },
   { name: 'square', symbol: d3.symbolSquare, rotate: 0 },
   { name: 'triangle up', symbol: d3.symbolTriangle, rotate: 0 },
@@ -23,7 +23,7 @@ export const MARKER_SHAPES: readonly MarkerShape[] = [
 ];
 
 /** Marker area in square user units (1 unit = 1 pt at print size): about 4.5 pt across. */
-export const MARKER_AREA = 17;
+const MARKER_AREA = 17;
 
 const pathCache = new Map<string, string>();
 

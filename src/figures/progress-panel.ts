@@ -12,15 +12,15 @@ import { appendRawLayer, createSvg, serialiseSvg } from './svg-document.js';
 import { INK, paletteColourAt } from './palette.js';
 import { round } from './markers.js';
 
-export const PANEL_WIDTH = 110;
-export const PANEL_HEIGHT = 78;
+const PANEL_WIDTH = 110;
+const PANEL_HEIGHT = 78;
 const MARGIN = { left: 6, right: 6, top: 14, bottom: 12 };
 const WINDOW_COLOUR = paletteColourAt(0.1);
 const LINE_COLOUR = paletteColourAt(0.55);
 const FLAG_COLOUR = '#a8660c';
 
 /** A unique id for the panel of a well. */
-export function panelId(w: WellRate): string {
+function panelId(w: WellRate): string {
   return `well-${(w.plate ? `${w.plate}-` : '') + w.well}`.replace(/[^A-Za-z0-9_-]/g, '_');
 }
 

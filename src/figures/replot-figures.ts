@@ -32,9 +32,9 @@ import { sig } from '../text/format-number.js';
 export const QUALITATIVE_BADGE = 'Qualitative: a visual check only';
 
 /** How far past the data (as a multiple of the data's x span) a meeting point may be drawn. */
-export const MEETING_REACH = 1.5;
+const MEETING_REACH = 1.5;
 
-export interface LineFamilyReplot {
+interface LineFamilyReplot {
   id: string;
   file: string;
   title: string;

@@ -17,9 +17,10 @@ import { drawMarkers, drawPolyline } from './model-lines.js';
 import { INK } from './palette.js';
 import { FONT } from './text-metrics.js';
 import { inhibitorSeriesKey } from './rate-curves.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 /** Scaled residuals of the drawn model, one per fitted point. */
-export function scaledResiduals(ctx: FigureContext): Float64Array {
+function scaledResiduals(ctx: FigureContext): Float64Array {
   const s = Math.sqrt(ctx.best.residualVariance);
   const wr = ctx.best.fit.weightedResiduals;
   return Float64Array.from(wr, (r) => (s > 0 ? r / s : NaN));
@@ -111,7 +112,7 @@ export function residualsBySubstrateFigure(ctx: FigureContext): FigureOutput {
     const content = plot.append('g').attr('clip-path', `url(#${clipId})`) as unknown as Group;
     const idx: number[] = [];
     for (let p = 0; p < data.s.length; p++) if (ctx.inhibitor.indexOf[p] === k) idx.push(p);
-    const sLevels = [...new Set(idx.map((p) => data.s[p]))].sort((a, b) => a - b);
+    const sLevels = distinctLevels(idx.map((p) => data.s[p]));
     const means = sLevels.map((sv) => {
       const rs = idx.filter((p) => data.s[p] === sv).map((p) => r[p]);
       return rs.reduce((a, b) => a + b, 0) / rs.length;

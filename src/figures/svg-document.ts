@@ -6,7 +6,7 @@
 import { JSDOM } from 'jsdom';
 import * as d3 from 'd3';
 
-export const SVG_NS = 'http://www.w3.org/2000/svg';
+const SVG_NS = 'http://www.w3.org/2000/svg';
 
 let shared: JSDOM | null = null;
 
@@ -15,7 +15,7 @@ function sharedDom(): JSDOM {
   return shared;
 }
 
-export type Svg = d3.Selection<SVGSVGElement, unknown, null, undefined>;
+type Svg = d3.Selection<SVGSVGElement, unknown, null, undefined>;
 export type Group = d3.Selection<SVGGElement, unknown, null, undefined>;
 
 /** A detached <svg> element with the given id, size and accessibility text. */

@@ -21,7 +21,7 @@ import {
 } from './axes.js';
 import { drawLegend, legendHeight, type LegendItem } from './legend.js';
 
-export interface XYFigureSpec {
+interface XYFigureSpec {
   id: string;
   title: string;
   desc: string;
@@ -56,7 +56,7 @@ export function startFigure(spec: { id: string; title: string; desc: string; hei
 }
 
 /** Height of a badge line. */
-export const BADGE_HEIGHT = FONT.note + 7;
+const BADGE_HEIGHT = FONT.note + 7;
 
 /** Draws a framed badge (e.g. "qualitative") with its top-left at (x, y). */
 function drawBadge(g: Group, text: string, x: number, y: number): void {

@@ -113,7 +113,7 @@ export function doseResponseProblem(model: DoseResponseModel, inhibitor: Float64
  * the rate first falls below half way (else the middle of the tested range) and a decade either
  * side, Hill slopes 0.5, 1 and 2.
  */
-export function doseResponseStarts(model: DoseResponseModel, inhibitor: Float64Array, rate: Float64Array): Float64Array[] {
+function doseResponseStarts(model: DoseResponseModel, inhibitor: Float64Array, rate: Float64Array): Float64Array[] {
   const top = Math.max(...rate);
   const bottom = Math.min(...rate);
   const half = (top + bottom) / 2;

@@ -12,6 +12,7 @@ import { containmentOf, embedByRules, modelId } from '../models/registry.js';
 import type { ErrorModel } from './error-models.js';
 import { maxInhibitor, type FitData } from './fit-data.js';
 import { domainEdge, fitAtParams, fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
+import { weightedSseAt } from './weighted-sse.js';
 
 /** A constant far above the tested inhibitor range, used to start an arm "switched off". */
 function farConstant(data: FitData): number {
@@ -34,16 +35,6 @@ function warmStarts(model: MechanismModel, done: Map<string, MechanismFit>, data
     if (embedded) starts.push(embedded);
   }
   return starts;
-}
-
-/** Weighted SSE of a model at given parameters, with the weights held fixed. */
-function weightedSseAt(model: MechanismModel, data: FitData, params: ArrayLike<number>, weights: Float64Array): number {
-  let sse = 0;
-  for (let k = 0; k < data.v.length; k++) {
-    const r = data.v[k] - model.rate(params, data.s[k], data.i[k], data.e?.[k]);
-    sse += weights[k] * r * r;
-  }
-  return sse;
 }
 
 /**

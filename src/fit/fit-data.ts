@@ -40,11 +40,6 @@ export function fitDataFromArrays(s: ArrayLike<number>, i: ArrayLike<number>, v:
   return data;
 }
 
-/** `200 nM`, or `200` when the unit is not known: a concentration as a message prints it. */
-export function withUnit(text: string, unit: string | null | undefined): string {
-  return unit ? `${text} ${unit}` : text;
-}
-
 /** The highest inhibitor concentration tested (0 for a table without inhibitor). */
 export function maxInhibitor(data: FitData): number {
   let imax = 0;

@@ -16,15 +16,7 @@ import { embedByRules, modelId } from '../models/registry.js';
 import type { ErrorModel } from './error-models.js';
 import { maxInhibitor, type FitData } from './fit-data.js';
 import { domainEdge, domainLowEdge, fitAtParams, fitMechanism, type MechanismFit } from './fit-mechanism.js';
-
-function sseAt(model: MechanismModel, data: FitData, params: ArrayLike<number>, weights: Float64Array): number {
-  let sse = 0;
-  for (let k = 0; k < data.v.length; k++) {
-    const r = data.v[k] - model.rate(params, data.s[k], data.i[k], data.e?.[k]);
-    sse += weights[k] * r * r;
-  }
-  return sse;
-}
+import { weightedSseAt } from './weighted-sse.js';
 
 function classicCounterpartStarts(model: MechanismModel, classic: readonly MechanismFit[]): number[][] {
   const same = classic.find((f) => f.mechanism === model.mechanism);
@@ -57,7 +49,7 @@ export function fitFamily(models: readonly MechanismModel[], data: FitData, erro
     let fit = fitMechanism(model, data, errorModel, { extraStarts: warm });
     for (const f of done) {
       const e = embedByRules(f.model, model, f.params, (name, to) => (to === 'zero' ? domainLowEdge(model, data, name) : domainEdge(model, data, name)));
-      if (!e || !(sseAt(model, data, e, fit.weights) < fit.sse)) continue;
+      if (!e || !(weightedSseAt(model, data, e, fit.weights) < fit.sse)) continue;
       const replaced = fitAtParams(model, data, errorModel, e, `Best fit is a limit of this model: the ${modelId(f.model)} solution.`);
       fit = { ...replaced, startsTried: fit.startsTried, startsReachingBest: fit.startsReachingBest, reweightPasses: fit.reweightPasses };
     }

@@ -16,7 +16,7 @@
  */
 import { householderQrPivoted } from './qr.js';
 
-export interface HatValuesResult {
+interface HatValuesResult {
   /** h_ii for each row, in [0, 1] */
   leverage: Float64Array;
   /** numerical rank of J */

@@ -27,7 +27,7 @@ import { applyQTranspose, euclideanNorm, householderQrPivoted, solveDampedTriang
 const EPSILON = Number.EPSILON;
 const DWARF = Number.MIN_VALUE;
 
-export const DEFAULT_LEAST_SQUARES_OPTIONS = {
+const DEFAULT_LEAST_SQUARES_OPTIONS = {
   ftol: 1e-15,
   xtol: 1e-15,
   gtol: 1e-15,
@@ -96,7 +96,7 @@ function scaledNorm(scale: Float64Array, v: Float64Array, out: Float64Array): nu
  * returns par.
  * At most 10 iterations, as in lmpar.
  */
-export function findLmParameter(
+function findLmParameter(
   r: Float64Array,
   ld: number,
   m: number,

@@ -214,7 +214,7 @@ export function solveDampedTriangular(
   for (let j = 0; j < m; j++) x[pivot[j]] = work[j];
 }
 
-export interface UnscaledCovariance {
+interface UnscaledCovariance {
   /** (J'J)^-1, m x m row-major, in the original parameter order; NaN rows/columns for dropped parameters */
   matrix: Float64Array;
   /** numerical rank of J used */

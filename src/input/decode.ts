@@ -6,7 +6,7 @@ import { InputError } from './types.js';
 import { locate } from './messages.js';
 
 /** Length of the valid UTF-8 prefix of `bytes` (RFC 3629: no overlongs, no surrogates, <= U+10FFFF). */
-export function validUtf8Length(bytes: Uint8Array): number {
+function validUtf8Length(bytes: Uint8Array): number {
   let i = 0;
   const n = bytes.length;
   while (i < n) {
@@ -44,7 +44,7 @@ function placeOfByte(bytes: Uint8Array, offset: number): { line: number; column:
  * Position of the first character that a text table cannot contain: NUL and the other C0
  * control characters except tab, line feed and carriage return, and DEL. Returns -1 if none.
  */
-export function firstControlCharacter(text: string): number {
+function firstControlCharacter(text: string): number {
   // eslint-disable-next-line no-control-regex
   return text.search(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/);
 }

@@ -4,7 +4,7 @@
 import type { TextRow } from './tokenize.js';
 import { looksLikeDecimalComma, looksLikeDecimalPoint } from './numbers.js';
 
-export type Separator = ',' | '\t' | ';';
+type Separator = ',' | '\t' | ';';
 
 /**
  * The separator, read from the first non-blank line (outside quotes): a tab if it holds one,

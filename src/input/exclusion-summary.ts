@@ -8,7 +8,7 @@ import type { Exclusion, RateTable } from './types.js';
 import { ZERO_SUBSTRATE_REASON } from './layout-result.js';
 
 /** How many reasons the message lists at most. */
-export const REASONS_SHOWN = 3;
+const REASONS_SHOWN = 3;
 
 const QUOTED = /"([^"]*)"/;
 const THOUSANDS_WITH_COMMAS = /^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/;

@@ -3,7 +3,7 @@
  * e.g. `substrate (uM)`, `Inhibitor [nM]`, `rate (uM/min)`.
  */
 
-export interface HeaderName {
+interface HeaderName {
   /** the name as written, without the unit and surrounding spaces */
   name: string;
   /** lower-case name, used to recognise columns and to find duplicates */

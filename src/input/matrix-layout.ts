@@ -34,7 +34,7 @@ import {
   type LayoutResult,
 } from './layout-result.js';
 
-export interface CornerCell {
+interface CornerCell {
   substrateUnit: string | null;
   inhibitorUnit: string | null;
   rateUnit: string | null;

@@ -8,11 +8,11 @@
 import type { InputWarning, RatePoint } from './types.js';
 
 /** A run of at least this many consecutive repeated rows counts as a pasted block (chosen here). */
-export const REPEATED_BLOCK_ROWS = 4;
+const REPEATED_BLOCK_ROWS = 4;
 /** Rows whose exact values occur more often than this are not searched (constant blocks, zeros). */
 const MAX_OCCURRENCES = 8;
 
-export interface RepeatedBlock {
+interface RepeatedBlock {
   /** first and last source line of the copy */
   lines: [number, number];
   /** first and last source line of the rows it repeats */
@@ -29,7 +29,7 @@ function same(a: RatePoint, b: RatePoint): boolean {
 }
 
 /** Every maximal block of REPEATED_BLOCK_ROWS or more rows that repeats earlier rows exactly. */
-export function repeatedBlocks(points: readonly RatePoint[]): RepeatedBlock[] {
+function repeatedBlocks(points: readonly RatePoint[]): RepeatedBlock[] {
   const seen = new Map<string, number[]>();
   const blocks: RepeatedBlock[] = [];
   let k = 0;

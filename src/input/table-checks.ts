@@ -6,6 +6,7 @@ import { InputError, type InputWarning, type RateTable } from './types.js';
 import { formatConcentration, listLines, locate, quoteText, type Place } from './messages.js';
 import { repeatedRowWarnings } from './repeated-rows.js';
 import { exclusionReasonsClause } from './exclusion-summary.js';
+import { distinctLevels } from './distinct-levels.js';
 
 /**
  * The mixed model has 4 parameters (Vmax, Km, Ki, Kiu); at least one more point than that is
@@ -23,11 +24,6 @@ export const MINIMUM_ANALYSIS_POINTS = 7;
 
 function compoundPrefix(table: RateTable): string {
   return table.compound === undefined ? '' : `compound ${quoteText(table.compound)}: `;
-}
-
-/** Distinct values, ascending. */
-function levels(values: number[]): number[] {
-  return [...new Set(values)].sort((a, b) => a - b);
 }
 
 /**
@@ -48,7 +44,7 @@ export function checkUsableDesign(
     );
   }
   if (!requireMechanismDesign) return;
-  const inhibitorLevels = levels(table.points.map((p) => p.inhibitor));
+  const inhibitorLevels = distinctLevels(table.points.map((p) => p.inhibitor));
   const unit = table.units.inhibitor;
   if (inhibitorLevels.length < 2) {
     const only = formatConcentration(inhibitorLevels[0], unit);
@@ -137,11 +133,11 @@ function hasRepeatedPair(points: RateTable['points']): boolean {
 }
 
 /** More than this many decades between the smallest and largest non-zero level is suspicious. */
-export const WIDEST_PLAUSIBLE_DECADES = 8;
+const WIDEST_PLAUSIBLE_DECADES = 8;
 /** Common practice (no single source): at least 5 [S] levels spanning the Km. */
-export const FEWEST_SUBSTRATE_LEVELS = 5;
+const FEWEST_SUBSTRATE_LEVELS = 5;
 /** Common practice (no single source): at least 3 non-zero [I] levels besides the control. */
-export const FEWEST_INHIBITOR_LEVELS = 3;
+const FEWEST_INHIBITOR_LEVELS = 3;
 
 /** Warnings about the data that need no fitted constants (see designWarnings for those). */
 export function dataWarnings(table: RateTable): InputWarning[] {
@@ -167,8 +163,8 @@ export function dataWarnings(table: RateTable): InputWarning[] {
     });
   }
 
-  const substrateLevels = levels(points.map((p) => p.substrate));
-  const inhibitorLevels = levels(points.map((p) => p.inhibitor)).filter((v) => v > 0);
+  const substrateLevels = distinctLevels(points.map((p) => p.substrate));
+  const inhibitorLevels = distinctLevels(points.map((p) => p.inhibitor)).filter((v) => v > 0);
   for (const [axis, values] of [['substrate', substrateLevels], ['inhibitor', inhibitorLevels]] as const) {
     if (values.length < 2) continue;
     const decades = Math.log10(values[values.length - 1] / values[0]);

@@ -9,7 +9,6 @@ import { uncompetitive } from './uncompetitive.js';
 import { noncompetitive } from './noncompetitive.js';
 import { mixed } from './mixed.js';
 
-export type { Mechanism, MechanismModel, ParamName, KineticData } from './types.js';
 export { noInhibition, competitive, uncompetitive, noncompetitive, mixed };
 
 /** All mechanisms, simplest first. */

@@ -113,7 +113,7 @@ export function dimensionOf(model: MechanismModel, name: ParamName): ParamDimens
 }
 
 /** The dimension a parameter name has in every built-in model (alpha and other names: dimensionless). */
-export function dimensionOfName(name: string): ParamDimension {
+function dimensionOfName(name: string): ParamDimension {
   return (CLASSIC_DIMENSIONS as Record<string, ParamDimension>)[name] ?? 'dimensionless';
 }
 
@@ -139,4 +139,9 @@ export function unitOfDimension(dimension: ParamDimension, units: { substrate: s
     case 'dimensionless':
       return '';
   }
+}
+
+/** The unit text of a parameter by name ('' when dimensionless or not known), from the table's units. */
+export function unitOfParameter(name: string, units: { substrate: string | null; inhibitor: string | null; rate: string | null }): string {
+  return unitOfDimension(dimensionOfName(name), units);
 }

@@ -5,8 +5,9 @@
  */
 import type { KineticData } from './types.js';
 import { median } from '../stats/median.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
-export interface RoughScales {
+interface RoughScales {
   /** a little above the largest rate seen without inhibitor (or overall) */
   vmax: number;
   /** substrate concentration at which the uninhibited rate is nearest half of vmax */
@@ -39,7 +40,7 @@ export function roughScales(data: KineticData): RoughScales {
     }
   }
   if (!(km > 0)) km = median(Array.from(data.s).filter((s) => s > 0)) || 1;
-  const levels = Array.from(new Set(Array.from(data.i).filter((x) => x > 0))).sort((a, b) => a - b);
+  const levels = distinctLevels(Array.from(data.i).filter((x) => x > 0));
   const inhibitorMiddle =
     levels.length > 0 ? Math.exp(levels.reduce((acc, x) => acc + Math.log(x), 0) / levels.length) : 1;
   return { vmax, km, inhibitorLevels: levels, inhibitorMiddle };

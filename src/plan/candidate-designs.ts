@@ -6,6 +6,7 @@
  * (the alternative the same paper proposes; the level 2 x IC50 is this tool's choice).
  */
 import type { Design, DesignPoint } from './design-types.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 /** How the concentrations may be made: any value, a serial dilution with a fixed fold, or a list. */
 export type DilutionScheme = { kind: 'free' } | { kind: 'serial'; fold: number } | { kind: 'list'; substrate?: number[]; inhibitor?: number[] };
@@ -23,9 +24,9 @@ export interface PlanConstraints {
   dilution: DilutionScheme;
 }
 
-export const COMMON_GRID_SUBSTRATE_SPAN: readonly [number, number] = [1 / 5, 5];
-export const COMMON_GRID_INHIBITOR_SPAN: readonly [number, number] = [1 / 3, 3];
-export const SINGLE_INHIBITOR_FACTOR = 2;
+const COMMON_GRID_SUBSTRATE_SPAN: readonly [number, number] = [1 / 5, 5];
+const COMMON_GRID_INHIBITOR_SPAN: readonly [number, number] = [1 / 3, 3];
+const SINGLE_INHIBITOR_FACTOR = 2;
 
 /** Units of the budget: groups of `replicates` wells. */
 export function budgetUnits(c: PlanConstraints): number {
@@ -47,7 +48,7 @@ export function schemeLevels(n: number, low: number, high: number, scheme: Dilut
   if (scheme.kind === 'list') {
     const list = scheme[which];
     if (list && list.length > 0) {
-      const allowed = [...new Set(list.filter((x) => x > 0 && x <= high * (1 + 1e-12)))].sort((a, b) => a - b);
+      const allowed = distinctLevels(list.filter((x) => x > 0 && x <= high * (1 + 1e-12)));
       if (allowed.length <= n) return allowed;
       if (n === 1) return [allowed[allowed.length - 1]];
       return Array.from({ length: n }, (_, k) => allowed[Math.round((k * (allowed.length - 1)) / (n - 1))]);
@@ -62,7 +63,7 @@ export function gridPoints(substrate: readonly number[], inhibitor: readonly num
 }
 
 /** Concentrations are rounded to 4 significant digits, as they will be pipetted and written on the plate map. */
-export function roundLevel(x: number): number {
+function roundLevel(x: number): number {
   return x === 0 ? 0 : Number(x.toPrecision(4));
 }
 

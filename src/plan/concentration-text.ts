@@ -2,7 +2,7 @@
 import type { ConcentrationUnit } from '../input/types.js';
 import { parseConcentrationUnit, scaleByPowerOfTen, unitShift } from '../input/units.js';
 
-export interface Concentration {
+interface Concentration {
   value: number;
   unit: ConcentrationUnit;
 }

@@ -64,24 +64,24 @@ export interface ScoredDesign {
 }
 
 /** Candidates within this much firm-call chance of the best are ranked by Ds (this tool's choice). */
-export const FIRM_CALL_TIE = 0.02;
+const FIRM_CALL_TIE = 0.02;
 /** How many Ds-screened grids are re-allocated and ranked by the discrimination criterion. */
-export const SCREENED_GRIDS = 12;
+const SCREENED_GRIDS = 12;
 /**
  * The highest [I] of a candidate is at most this multiple of the upper end of the Ki (or IC50)
  * range given: beyond it the rate is too small to measure well in practice, which the proportional noise
  * model (constant CV down to zero rate) would not see and would reward (this tool's choice).
  */
-export const INHIBITOR_REACH = 10;
+const INHIBITOR_REACH = 10;
 /**
  * A recommendable grid has at least this many [S] levels and non-zero [I] levels (when the budget
  * allows), so that residual and per-series checks have something to work with (common practice,
  * BRIEF section 7; the same counts the input checks warn below).
  */
-export const MIN_SUBSTRATE_LEVELS = 5;
-export const MIN_INHIBITOR_LEVELS = 3;
+const MIN_SUBSTRATE_LEVELS = 5;
+const MIN_INHIBITOR_LEVELS = 3;
 
-export function inhibitedMechanisms(settings: PlanSettings): Mechanism[] {
+function inhibitedMechanisms(settings: PlanSettings): Mechanism[] {
   return settings.mechanisms.filter((m) => m !== 'none');
 }
 
@@ -129,7 +129,7 @@ export function scoreDesign(design: Design, settings: PlanSettings, terms: reado
   };
 }
 
-export function smallestRateShare(points: readonly DesignPoint[], settings: PlanSettings): number {
+function smallestRateShare(points: readonly DesignPoint[], settings: PlanSettings): number {
   let least = Infinity;
   for (const mech of settings.mechanisms) {
     const model = modelFor(mech);
@@ -142,7 +142,7 @@ export function smallestRateShare(points: readonly DesignPoint[], settings: Plan
 }
 
 /** Best first: firm-call chance, then Ds among those within FIRM_CALL_TIE of the best. */
-export function rankScored(scored: readonly ScoredDesign[]): ScoredDesign[] {
+function rankScored(scored: readonly ScoredDesign[]): ScoredDesign[] {
   const best = Math.max(...scored.map((s) => s.firmCallChance));
   const near = scored.filter((s) => s.firmCallChance >= best - FIRM_CALL_TIE).sort((a, b) => b.meanLogDs - a.meanLogDs);
   const rest = scored.filter((s) => s.firmCallChance < best - FIRM_CALL_TIE).sort((a, b) => b.firmCallChance - a.firmCallChance || b.meanLogDs - a.meanLogDs);
@@ -156,11 +156,10 @@ interface GridSpec {
 }
 
 /** The [S] x [I] grids the constraints allow (I = 0 always included), deduplicated. */
-export function candidateGrids(settings: PlanSettings): GridSpec[] {
+function candidateGrids(settings: PlanSettings): GridSpec[] {
   const c = settings.constraints;
   const units = budgetUnits(c);
   const [kmLow, kmHigh] = settings.prior.km;
-  const [kLow] = inhibitionConstantSpan(settings.prior, settings.mechanisms);
   const kHigh = inhibitionRange(settings.prior)[1];
   const uniq = (xs: number[]) => [...new Set(xs.map((x) => Number(x.toPrecision(12))))];
   const sHighs = uniq([c.maxSubstrate, Math.min(c.maxSubstrate, 5 * kmHigh), Math.min(c.maxSubstrate, 10 * kmHigh)]);
@@ -227,7 +226,7 @@ function weightedDesign(grid: GridSpec, settings: PlanSettings, terms: readonly 
 }
 
 /** The prior-averaged Ds-optimum design on a rich grid, rounded to the budget (few support points). */
-export function dsOptimumDesign(settings: PlanSettings, terms: readonly CriterionTerm[]): Design | null {
+function dsOptimumDesign(settings: PlanSettings, terms: readonly CriterionTerm[]): Design | null {
   const c = settings.constraints;
   const [kLow] = inhibitionConstantSpan(settings.prior, settings.mechanisms);
   const kHigh = inhibitionRange(settings.prior)[1];

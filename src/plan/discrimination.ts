@@ -27,9 +27,9 @@ const THREE_PARAMETER: readonly Mechanism[] = ['competitive', 'uncompetitive', '
  * truth's by RIVAL_GAP; a nested rival when a 1-df likelihood-ratio test rejects it at
  * NESTED_LEVEL (0.05 against no inhibition, 0.01 for mixed against a three-parameter model).
  */
-export const RIVAL_GAP = 4;
-export const DETECTION_LEVEL = 0.05;
-export const MIXED_LEVEL = 0.01;
+const RIVAL_GAP = 4;
+const DETECTION_LEVEL = 0.05;
+const MIXED_LEVEL = 0.01;
 
 /** The rivals the analysis must set aside to call `truth`, with how each is judged. */
 export function rivalsOf(truth: Mechanism, inPlay: readonly Mechanism[]): Array<{ rival: Mechanism; kind: 'same-size' | 'nested'; level: number }> {

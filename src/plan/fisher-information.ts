@@ -48,7 +48,7 @@ export function fisherInformation(model: MechanismModel, p: ArrayLike<number>, p
  * Cholesky factor L (lower, row-major) of a symmetric matrix, or null when it is not positive
  * definite to working precision (pivot below 1e-12 of the largest diagonal element).
  */
-export function cholesky(a: ArrayLike<number>, m: number): Float64Array | null {
+function cholesky(a: ArrayLike<number>, m: number): Float64Array | null {
   const l = new Float64Array(m * m);
   let maxDiag = 0;
   for (let k = 0; k < m; k++) maxDiag = Math.max(maxDiag, Math.abs(a[k * m + k]));

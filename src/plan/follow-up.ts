@@ -43,7 +43,7 @@ export interface FollowUpBasis {
 }
 
 /** The measured design of an analysis: one point per distinct ([S], [I]) with its count. */
-export function measuredDesign(result: AnalysisResult): DesignPoint[] {
+function measuredDesign(result: AnalysisResult): DesignPoint[] {
   const counts = new Map<string, DesignPoint>();
   for (let k = 0; k < result.data.s.length; k++) {
     const key = `${result.data.s[k]}|${result.data.i[k]}`;

@@ -35,7 +35,7 @@ export interface MechanismPrediction {
   calls: Record<string, number>;
 }
 
-export interface MonteCarloOptions {
+interface MonteCarloOptions {
   simulations: number;
   seed: number;
   units: { substrate: ConcentrationUnit; inhibitor: ConcentrationUnit };
@@ -82,7 +82,7 @@ export function simulateDesign(design: Design, truth: PriorPoint, noise: PlanNoi
 }
 
 /** Fold width high/low of the 95% interval of a constant in the true mechanism's fit. */
-export function intervalFoldWidth(result: AnalysisResult, mechanism: Mechanism, name: 'Ki' | 'Kiu'): number {
+function intervalFoldWidth(result: AnalysisResult, mechanism: Mechanism, name: 'Ki' | 'Kiu'): number {
   const model = result.models.find((m) => m.mechanism === mechanism);
   const est = model?.estimates.find((e) => e.name === name);
   if (!est || !est.detected) return Infinity;

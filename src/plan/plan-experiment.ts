@@ -9,7 +9,7 @@
  */
 import type { ConcentrationUnit } from '../input/types.js';
 import type { Mechanism } from '../models/types.js';
-import type { Design, DesignPoint } from './design-types.js';
+import type { DesignPoint } from './design-types.js';
 import { wellCount } from './design-types.js';
 import { searchDesigns, withMeasured, type MechanismExpectation, type PlanSettings, type ScoredDesign } from './design-search.js';
 import { monteCarloAnalysisOptions, monteCarloPrediction, type MechanismPrediction } from './monte-carlo.js';
@@ -77,10 +77,10 @@ function candidate(s: ScoredDesign, role: CandidateRole, name?: string): PlanCan
  * one simulation in each of the five mechanisms at the default 50); among them the narrowest
  * intervals win (this tool's choice).
  */
-export const MONTE_CARLO_TIE = 0.02;
+const MONTE_CARLO_TIE = 0.02;
 
 /** Mean over the mechanisms with an inhibition constant of ln(median fold width) of Ki (Kiu when there is no Ki); open counts as OPEN_FOLD */
-export function meanLogFold(predicted: Partial<Record<Mechanism, MechanismPrediction>>): number {
+function meanLogFold(predicted: Partial<Record<Mechanism, MechanismPrediction>>): number {
   const xs = Object.entries(predicted)
     .filter(([m]) => m !== 'none')
     .map(([, p]) => p!.kiFoldWidth ?? p!.kiuFoldWidth ?? OPEN_FOLD);
@@ -88,7 +88,7 @@ export function meanLogFold(predicted: Partial<Record<Mechanism, MechanismPredic
 }
 
 /** The fold width an open or undetected interval counts as when designs are compared (this tool's choice). */
-export const OPEN_FOLD = 100;
+const OPEN_FOLD = 100;
 
 /** Index of the recommendation among simulated contenders (header rule); ties keep the earlier. */
 export function chooseRecommendation(predicted: ReadonlyArray<Partial<Record<Mechanism, MechanismPrediction>>>): number {
@@ -174,4 +174,3 @@ export function planAssumptions(r: PlanRequest): string[] {
   ];
 }
 
-export type { Design };

@@ -4,6 +4,7 @@
  * assumptions and cautions, the methods with their sources, and the settings.
  */
 import { REPORT_CSS } from '../report/html/report-css.js';
+import { pageHead } from '../report/html/page-head.js';
 import { escapeHtml } from '../report/html/escape.js';
 import { cell, htmlTable } from '../report/html/html-table.js';
 import { figureBlock } from '../report/html/sections/figure-block.js';
@@ -49,17 +50,7 @@ function recommendedTable(plan: PlanResult): string {
 export function planPage(plan: PlanResult, figures: readonly FigureOutput[], date: Date = new Date()): string {
   const r = plan.request;
   const descriptions = plan.candidates.map((c) => `<li><strong>${escapeHtml(c.name)}</strong> (${c.wellCount} wells, ${c.points.length} points): ${escapeHtml(c.description)}</li>`).join('\n');
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta name="generator" content="${escapeHtml(`${TOOL_NAME} ${TOOL_VERSION}`)}">
-<title>Experiment plan</title>
-<style>${REPORT_CSS}
-pre.grid { font-size: 0.85rem; overflow-x: auto; }
-</style>
-</head>
+  return `${pageHead('Experiment plan', `${REPORT_CSS}\npre.grid { font-size: 0.85rem; overflow-x: auto; }\n`)}
 <body>
 <header class="page">
 <h1>Experiment plan</h1>

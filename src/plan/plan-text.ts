@@ -3,6 +3,7 @@ import type { Mechanism } from '../models/types.js';
 import { modelFor } from '../models/index.js';
 import type { DesignPoint } from './design-types.js';
 import type { PlanCandidate, PlanResult } from './plan-experiment.js';
+import { distinctLevels } from '../input/distinct-levels.js';
 
 function num(x: number): string {
   return String(Number(x.toPrecision(4)));
@@ -22,8 +23,8 @@ function pad(s: string, n: number): string {
 
 /** [S] rows x [I] columns, each cell the number of wells (blank: not used). */
 export function gridTable(points: readonly DesignPoint[], units: { substrate: string; inhibitor: string }): string[] {
-  const s = [...new Set(points.map((p) => p.substrate))].sort((a, b) => a - b);
-  const i = [...new Set(points.map((p) => p.inhibitor))].sort((a, b) => a - b);
+  const s = distinctLevels(points.map((p) => p.substrate));
+  const i = distinctLevels(points.map((p) => p.inhibitor));
   const cell = (a: number, b: number) => String(points.filter((p) => p.substrate === a && p.inhibitor === b).reduce((t, p) => t + p.replicates, 0) || '');
   const width = Math.max(8, ...i.map((x) => num(x).length + 1));
   const head = pad(`[S] ${units.substrate} \\ [I] ${units.inhibitor}`, 18) + i.map((x) => pad(num(x), width)).join('');

@@ -13,7 +13,7 @@ export interface PlateWell {
   replicate: number;
 }
 
-export const PLATE_SHAPES: Record<96 | 384, { rows: number; columns: number }> = {
+const PLATE_SHAPES: Record<96 | 384, { rows: number; columns: number }> = {
   96: { rows: 8, columns: 12 },
   384: { rows: 16, columns: 24 },
 };

@@ -2,7 +2,7 @@
 import { searchDesigns, type PlanSettings } from './design-search.js';
 import type { WellsCurvePoint } from './plan-figures.js';
 
-export const CURVE_FRACTIONS: readonly number[] = [0.25, 0.5, 0.75, 1];
+const CURVE_FRACTIONS: readonly number[] = [0.25, 0.5, 0.75, 1];
 
 export function wellsCurve(settings: PlanSettings): WellsCurvePoint[] {
   const c = settings.constraints;

@@ -11,14 +11,14 @@
 import type { MapEntry, WellCurve } from './types.js';
 import { listWells } from './well-names.js';
 
-export interface BlankChoice {
+interface BlankChoice {
   /** background at each read time of the sample, or null when no blank matches */
   background: number[] | null;
   description: string;
 }
 
 /** Value of a curve at time x, by linear interpolation (ends held). */
-export function interpolate(times: readonly number[], values: readonly number[], x: number): number {
+function interpolate(times: readonly number[], values: readonly number[], x: number): number {
   const n = times.length;
   if (x <= times[0]) return values[0];
   if (x >= times[n - 1]) return values[n - 1];

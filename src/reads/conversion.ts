@@ -17,7 +17,8 @@ import { parseConcentrationUnit, unitShift } from '../input/units.js';
 import { splitHeaderName } from '../input/header.js';
 import { readNumberCell } from '../input/numbers.js';
 import type { Conversion } from './types.js';
-import { readTextFile, tokenizeTable } from './read-kinetic-reads.js';
+import { readTextFile } from '../input/read-text-file.js';
+import { tokenizeTable } from './read-kinetic-reads.js';
 import { CURVATURE_P } from './thresholds.js';
 
 /** Least-squares straight line with its slope SE, and the p value of an added quadratic term. */
@@ -146,7 +147,7 @@ function lineFit(x: number[], y: number[]): { slope: number; intercept: number; 
 }
 
 /** Two-sided p value of the quadratic coefficient in y = a + b x + c x^2 (orthogonal polynomials). */
-export function quadraticTermP(x: readonly number[], y: readonly number[]): number {
+function quadraticTermP(x: readonly number[], y: readonly number[]): number {
   const q = quadraticFit(x, y, x.length);
   return q.p;
 }

@@ -19,12 +19,12 @@ import { lineThrough } from './initial-window.js';
 import type { WellRate } from './types.js';
 
 /** Fewest distinct [S] levels in a series for its Kmapp to be estimated (the project's own choice). */
-export const MIN_SERIES_LEVELS = 3;
+const MIN_SERIES_LEVELS = 3;
 
 const GRID_POINTS = 241;
 
 /** Kmapp of one series by weighted least squares on a log grid from min[S]/100 to 100 max[S]. */
-export function seriesKm(points: readonly { s: number; v: number; w: number }[]): number {
+function seriesKm(points: readonly { s: number; v: number; w: number }[]): number {
   const sMin = Math.min(...points.map((p) => p.s));
   const sMax = Math.max(...points.map((p) => p.s));
   const lo = Math.log(sMin / 100);

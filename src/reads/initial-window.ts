@@ -42,7 +42,7 @@ export function lineThrough(t: readonly number[], y: readonly number[], n: numbe
 }
 
 /** Whether the first n reads are straight, with the test's p value and relative slope change. */
-export function straightnessOf(t: readonly number[], y: readonly number[], n: number): { straight: boolean; p: number; slopeChange: number } {
+function straightnessOf(t: readonly number[], y: readonly number[], n: number): { straight: boolean; p: number; slopeChange: number } {
   const q = quadraticFit(t, y, n);
   const start = q.slopeAt(t[0]);
   const end = q.slopeAt(t[n - 1]);

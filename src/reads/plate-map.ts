@@ -13,7 +13,8 @@ import { readNumberCell } from '../input/numbers.js';
 import { parseConcentrationUnit } from '../input/units.js';
 import type { MapEntry, PlateMap, WellRole } from './types.js';
 import { canonicalWell, wellLabel } from './well-names.js';
-import { readTextFile, tokenizeTable } from './read-kinetic-reads.js';
+import { readTextFile } from '../input/read-text-file.js';
+import { tokenizeTable } from './read-kinetic-reads.js';
 
 const ROLES: Record<string, WellRole> = { '': 'sample', sample: 'sample', blank: 'blank', exclude: 'exclude' };
 const KNOWN = ['well', 'compound', 'substrate', 'inhibitor', 'role', 'plate'];

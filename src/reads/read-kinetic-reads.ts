@@ -11,10 +11,9 @@
  * used (blank or non-numeric signal, blank or negative time) is listed with its line, column and
  * reason; a column that is neither a well nor a known name is listed in the notes.
  */
-import { readFile } from 'node:fs/promises';
+import { readTextFile } from '../input/read-text-file.js';
 import { InputError } from '../input/types.js';
 import { locate, quoteText } from '../input/messages.js';
-import { decodeRateBytes } from '../input/decode.js';
 import { detectDecimalMark, detectSeparator } from '../input/dialect.js';
 import { isBlankRow, tokenize, type TextRow } from '../input/tokenize.js';
 import { splitHeaderName } from '../input/header.js';
@@ -23,30 +22,11 @@ import type { KineticReads, ReadExclusion, TimeUnit, WellCurve } from './types.j
 import { canonicalWell, wellLabel } from './well-names.js';
 import { clockSeconds, parseTimeUnit, SECONDS_PER } from './time-values.js';
 
-export interface ReadsOptions {
+interface ReadsOptions {
   /** plate name for reads without a plate column (default '') */
   plate?: string;
 }
 
-const READ_PROBLEMS: Record<string, string> = {
-  ENOENT: 'no such file; check the path',
-  EISDIR: 'this is a folder, not a file; give the path of a CSV or TSV file',
-  EACCES: 'permission denied; check the file permissions',
-  EPERM: 'permission denied; check the file permissions',
-};
-
-/** Reads a file as bytes, or throws an InputError naming it (shared by the reads-stage readers). */
-export async function readTextFile(path: string, source = path): Promise<string> {
-  let bytes: Uint8Array;
-  try {
-    bytes = await readFile(path);
-  } catch (error) {
-    const code = (error as { code?: string }).code ?? '';
-    const problem = READ_PROBLEMS[code] ?? `cannot be read (${code || 'unknown reason'}); check the path and the file`;
-    throw new InputError(`${locate(source)}${problem}`, source);
-  }
-  return decodeRateBytes(bytes, source);
-}
 
 /** Reads and parses a kinetic-reads file; `source` names it in messages. */
 export async function readKineticReadsFile(path: string, options: ReadsOptions & { source?: string } = {}): Promise<KineticReads> {

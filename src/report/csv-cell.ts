@@ -9,7 +9,7 @@
  * (a compound named "-5") is left as it is too, since a number is not a formula
  * (docs/decisions/csv-formula-cells.md).
  */
-export type CsvValue = number | string | boolean | null | undefined;
+type CsvValue = number | string | boolean | null | undefined;
 
 /** First characters that make a spreadsheet read a cell as a formula (OWASP list). */
 const FORMULA_START = /^[=+\-@\t\r]/;

@@ -1,6 +1,6 @@
 /** The "checks" block of the text summary: the main diagnostic flags of the winning model. */
 import type { AnalysisResult } from '../analysis/types.js';
-import { pPhrase, sig } from '../text/format-number.js';
+import { pPhrase, sig, valueWithUnit } from '../text/format-number.js';
 import { pointsThatStandOut } from './standing-out.js';
 
 export function diagnosticLines(result: AnalysisResult): string[] {
@@ -17,7 +17,7 @@ export function diagnosticLines(result: AnalysisResult): string[] {
     lines.push(`  residual trend vs [S] ${pPhrase(d.trends.substrate.p)}, vs [I] ${pPhrase(d.trends.inhibitor.p)}, vs fitted ${pPhrase(d.trends.fitted.p)}`);
     if (d.normality) lines.push(`  normality of studentised residuals (Shapiro-Wilk): W = ${d.normality.W.toFixed(3)}, ${pPhrase(d.normality.p)}`);
     const u = result.input.units;
-    const withUnit = (x: number, unit: string | null) => (unit ? `${sig(x)} ${unit}` : sig(x));
+    const withUnit = (x: number, unit: string | null) => valueWithUnit(sig(x), unit);
     const { suspects, leverageOnly } = pointsThatStandOut(d);
     if (leverageOnly) lines.push(`  ${leverageOnly} high-leverage point${leverageOnly > 1 ? 's sit' : ' sits'} on the curve (a property of the design); not flagged`);
     for (const s of suspects) {

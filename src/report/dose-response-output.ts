@@ -9,7 +9,7 @@ import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
 import type { DoseResponseModelResult, Interval } from '../evidence/dose-response.js';
 import { describeTable } from '../input/describe-table.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
-import { interval, sig } from '../text/format-number.js';
+import { interval, sig, valueWithUnit } from '../text/format-number.js';
 import { jsonNumber, type Json } from './json-values.js';
 import { levelKey } from './results-json.js';
 
@@ -89,7 +89,7 @@ export function doseResponseJson(result: SingleSubstrateResult): { [key: string]
 }
 
 function withUnit(x: number | null, unit: string | null): string {
-  return `${sig(x)}${unit ? ` ${unit}` : ''}`;
+  return valueWithUnit(sig(x), unit);
 }
 
 function intervalText(ends: Interval, unit: string | null): string {

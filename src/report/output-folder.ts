@@ -45,7 +45,7 @@ function probeWritable(folder: string, shown: string): void {
   }
 }
 
-export interface OutputCheck {
+interface OutputCheck {
   /** true when the folder does not exist yet (it will be created) */
   created: boolean;
 }

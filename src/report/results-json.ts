@@ -20,7 +20,7 @@ export function levelKey(prefix: string, level: number): string {
 
 
 
-export function estimateJson(e: ParameterEstimate, level: number): { [key: string]: Json } {
+function estimateJson(e: ParameterEstimate, level: number): { [key: string]: Json } {
   const out: { [key: string]: Json } = {
     value: jsonNumber(e.value),
     se: jsonNumber(e.se),
@@ -60,7 +60,7 @@ function derivedJson(d: DerivedQuantity, level: number): { [key: string]: Json }
   return out;
 }
 
-export function modelJson(m: ModelResult, level: number): { [key: string]: Json } {
+function modelJson(m: ModelResult, level: number): { [key: string]: Json } {
   const params: { [key: string]: Json } = {};
   for (const e of m.estimates) params[e.name] = estimateJson(e, level);
   return {

@@ -1,5 +1,5 @@
 /** The plain-text summary printed by `mechanist analyze` (without --json). */
-import { dimensionOfName, unitOfDimension } from '../models/registry.js';
+import { unitOfParameter } from '../models/registry.js';
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
 import { interval, sig } from '../text/format-number.js';
 import { diagnosticLines } from './diagnostic-lines.js';
@@ -14,12 +14,7 @@ function padLeft(s: string, w: number): string {
   return s.length >= w ? s : ' '.repeat(w - s.length) + s;
 }
 
-function unitOf(name: string, result: AnalysisResult): string {
-  // from the parameter's dimension (src/models/registry.ts)
-  return unitOfDimension(dimensionOfName(name), result.input.units);
-}
-
-export function modelTable(models: readonly ModelResult[]): string[] {
+function modelTable(models: readonly ModelResult[]): string[] {
   const head = `  ${pad('rank', 5)}${pad('mechanism', 16)}${padLeft('AICc', 11)}${padLeft('ΔAICc', 9)}${padLeft('weight', 9)}${padLeft('SSE', 12)}  converged`;
   const rows = models.map(
     (m, r) =>
@@ -28,10 +23,10 @@ export function modelTable(models: readonly ModelResult[]): string[] {
   return [head, ...rows];
 }
 
-export function parameterLines(model: ModelResult, result: AnalysisResult): string[] {
+function parameterLines(model: ModelResult, result: AnalysisResult): string[] {
   const pct = `${Math.round(result.level * 100)}%`;
   return model.estimates.map((e) => {
-    const unit = unitOf(e.name, result);
+    const unit = unitOfParameter(e.name, result.input.units);
     const profile = e.profile ? profileText(e.name, e.profile, unit, pct) : '';
     if (!e.detected || e.value === null) return `  ${pad(e.name, 6)}${undetectedText(e, unit)}${profile ? `; ${profile}` : ''}`;
     const wald = e.wald ? `Wald ${pct} ${interval(e.wald[0], e.wald[1])}` : 'no interval';
@@ -54,7 +49,7 @@ export function profileText(name: string, ends: [number | null, number | null], 
 }
 
 /** pKi, pKiu and IC50 of a model, and the bootstrap selection frequencies. */
-export function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
+function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
   const pct = `${Math.round(result.level * 100)}%`;
   const lines: string[] = [];
   for (const d of model.derived ?? []) {

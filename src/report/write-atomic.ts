@@ -14,6 +14,7 @@
 import { mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { OutputError, errnoCode, writeProblem } from './output-error.js';
+import { isRunning } from './process-running.js';
 
 /** Temporary entries written by this module: `.<final name>.<pid>.<random>.tmp`. */
 const TEMPORARY_NAME = /^\..*\.(\d+)\.[a-z0-9]+\.tmp$/;
@@ -130,15 +131,6 @@ export function writeFolderAtomic(dir: string, files: ReadonlyArray<readonly [st
   } catch (error) {
     if (tmp !== null) rmSync(tmp, { recursive: true, force: true });
     throw writeFailure(dir, error);
-  }
-}
-
-function isRunning(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (error) {
-    return errnoCode(error) === 'EPERM';
   }
 }
 

@@ -9,7 +9,7 @@ import { renderFigures } from '../figures/render-figures.js';
 import { reportHtml } from './html/report-page.js';
 import type { ReportProvenance } from './html/provenance.js';
 
-export const FIGURES_FOLDER = 'figures';
+const FIGURES_FOLDER = 'figures';
 
 /**
  * Writes results.json, parameters.csv, summary.txt, report.html and figures/*.svg; returns the

@@ -38,7 +38,7 @@ export interface PlateDesign {
   inhibitorUnit?: string;
 }
 
-export interface SimulatedWell {
+interface SimulatedWell {
   well: string;
   substrate: number;
   inhibitor: number | null;

@@ -15,7 +15,6 @@ import tQuantileStdlib from '@stdlib/stats-base-dists-t-quantile';
 import fCdfStdlib from '@stdlib/stats-base-dists-f-cdf';
 import fQuantileStdlib from '@stdlib/stats-base-dists-f-quantile';
 import chisqCdfStdlib from '@stdlib/stats-base-dists-chisquare-cdf';
-import chisqQuantileStdlib from '@stdlib/stats-base-dists-chisquare-quantile';
 import normalCdfStdlib from '@stdlib/stats-base-dists-normal-cdf';
 import normalQuantileStdlib from '@stdlib/stats-base-dists-normal-quantile';
 
@@ -32,11 +31,6 @@ export function tSurvival(x: number, df: number): number {
 /** Student t quantile: the x with P(T <= x) = p. */
 export function tQuantile(p: number, df: number): number {
   return tQuantileStdlib(p, df);
-}
-
-/** F distribution lower-tail probability P(F <= x), numerator df d1, denominator df d2. */
-export function fCdf(x: number, d1: number, d2: number): number {
-  return fCdfStdlib(x, d1, d2);
 }
 
 /**
@@ -56,21 +50,11 @@ export function fQuantile(p: number, d1: number, d2: number): number {
   return fQuantileStdlib(p, d1, d2);
 }
 
-/** Chi-square lower-tail probability P(X <= x) with `df` degrees of freedom. */
-export function chisqCdf(x: number, df: number): number {
-  return chisqCdfStdlib(x, df);
-}
-
-/** Chi-square upper-tail probability P(X > x) = 1 - chisqCdf(x, df). */
+/** Chi-square upper-tail probability P(X > x) = 1 - P(X <= x). */
 export function chisqSurvival(x: number, df: number): number {
   if (Number.isNaN(x) || Number.isNaN(df)) return NaN;
   if (x <= 0) return df >= 0 ? 1 : NaN;
   return 1 - chisqCdfStdlib(x, df);
-}
-
-/** Chi-square quantile: the x with P(X <= x) = p. */
-export function chisqQuantile(p: number, df: number): number {
-  return chisqQuantileStdlib(p, df);
 }
 
 /** Normal lower-tail probability P(X <= x) for mean `mu` (default 0) and SD `sigma` (default 1). */

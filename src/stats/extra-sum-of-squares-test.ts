@@ -11,14 +11,14 @@
  */
 import { fSurvival } from './distributions.js';
 
-export interface ExtraSumOfSquaresInput {
+interface ExtraSumOfSquaresInput {
   sseReduced: number;
   dfReduced: number;
   sseFull: number;
   dfFull: number;
 }
 
-export interface ExtraSumOfSquaresResult {
+interface ExtraSumOfSquaresResult {
   F: number;
   numeratorDf: number;
   denominatorDf: number;

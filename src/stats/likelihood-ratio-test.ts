@@ -10,14 +10,14 @@
  */
 import { chisqSurvival } from './distributions.js';
 
-export interface LikelihoodRatioInput {
+interface LikelihoodRatioInput {
   logLikReduced: number;
   logLikFull: number;
   /** number of free parameters in the full model minus in the reduced model */
   dfDifference: number;
 }
 
-export interface LikelihoodRatioResult {
+interface LikelihoodRatioResult {
   statistic: number;
   df: number;
   p: number;

@@ -72,7 +72,7 @@ export function pooledRunsTest(
 }
 
 /** Exact pmf of the total number of runs: convolution of the per-series pmfs. */
-export function convolvedRunsDistribution(series: ReadonlyArray<SignRunCount>): Float64Array {
+function convolvedRunsDistribution(series: ReadonlyArray<SignRunCount>): Float64Array {
   let pmf = new Float64Array([1]);
   for (const c of series) {
     const own = runsDistribution(c.nPositive, c.nNegative);

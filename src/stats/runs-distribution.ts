@@ -15,7 +15,7 @@
  */
 
 /** log C(n, k) by a plain product of ratios; -Infinity when k < 0 or k > n. */
-export function logBinomial(n: number, k: number): number {
+function logBinomial(n: number, k: number): number {
   if (k < 0 || k > n) return -Infinity;
   const kk = Math.min(k, n - k);
   let s = 0;
@@ -55,7 +55,7 @@ export function runsDistribution(n1: number, n2: number): Float64Array {
   return pmf;
 }
 
-export interface RunsMoments {
+interface RunsMoments {
   mean: number;
   variance: number;
 }

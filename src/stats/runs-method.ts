@@ -12,7 +12,7 @@ export interface RunsTestOptions {
   exactMaxTotal?: number;
 }
 
-export const DEFAULT_EXACT_MAX_TOTAL = 50;
+const DEFAULT_EXACT_MAX_TOTAL = 50;
 
 /** Resolves 'auto' to 'exact' when every series total is within the exact limit. */
 export function chooseRunsMethod(options: RunsTestOptions, seriesTotals: number[]): 'exact' | 'normal' {

@@ -11,7 +11,7 @@
  */
 import { normalCdf, normalSurvival } from './distributions.js';
 
-export interface RunsTailProbabilities {
+interface RunsTailProbabilities {
   pTooFew: number;
   pTooMany: number;
   pTwoSided: number;

@@ -15,7 +15,7 @@
 import { pooledRunsTest } from './pooled-runs-test.js';
 import type { RunsTestOptions } from './runs-method.js';
 
-export interface RunsTestResult {
+interface RunsTestResult {
   runs: number;
   nPositive: number;
   nNegative: number;

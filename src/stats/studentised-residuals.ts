@@ -11,7 +11,7 @@
  * The external value is NaN when df <= 1.
  */
 
-export interface StudentisedResiduals {
+interface StudentisedResiduals {
   internal: Float64Array;
   external: Float64Array;
 }

@@ -32,3 +32,8 @@ export function interval(lo: number | null | undefined, hi: number | null | unde
 export function rounded(x: number, digits: number): string {
   return String(Number(x.toPrecision(digits)));
 }
+
+/** `200 nM`, or `200` when the unit is not known: a value as a message prints it. */
+export function valueWithUnit(text: string, unit: string | null | undefined): string {
+  return unit ? `${text} ${unit}` : text;
+}

@@ -25,7 +25,7 @@ export function compoundColumnCsv(compounds: Array<[string, string]>): string {
   return lines.join('\n') + '\n';
 }
 
-export interface BatchInputs {
+interface BatchInputs {
   root: string;
   /** folder with competitive.csv, mixed.csv, uncompetitive.csv (and broken.csv when asked) */
   folder: string;

@@ -5,9 +5,3 @@
 export function agreesToDigits(x: number, ref: number, digits: number): boolean {
   return Math.abs(x - ref) <= 0.5 * 10 ** (1 - digits) * Math.abs(ref);
 }
-
-/** Number of agreeing significant digits, the log relative error (LRE; McCullough 1998). */
-export function logRelativeError(x: number, ref: number): number {
-  if (x === ref) return Infinity;
-  return -Math.log10(Math.abs(x - ref) / Math.abs(ref));
-}

@@ -64,17 +64,25 @@ describe('data warnings', () => {
   });
 });
 
-describe('designWarnings (after the fit)', () => {
+describe('designWarnings (after the fit; the same checks and words as the analysis caveats)', () => {
   const [table] = readFixture('long.csv', {}, EXAMPLES); // [S] 2-64 uM, [I] 0-160 nM
 
   it('no warning when [S] reaches 5 x Km and [I] exceeds Ki and Kiu', () => {
     expect(designWarnings(table, { Km: 12, Ki: 40, Kiu: 150 })).toEqual([]);
   });
 
-  it('[S] never reaching Km', () => {
+  it('[S] staying below 2 x Km', () => {
     expect(designWarnings(table, { Km: 100 })).toEqual([{
-      code: 'substrate-below-km',
-      message: '[S] never reaches Km (highest [S] 64 uM, Km 100 uM); Vmax and Km are extrapolated and uncompetitive or mixed effects cannot show; extend [S] to at least 5 x Km',
+      code: 'substrate-below-2km',
+      message: 'the highest [S] is only 0.64 x Km: effects on the enzyme-substrate complex are barely visible',
+    }]);
+    expect(designWarnings(table, { Km: 32 }).map((w) => w.code)).toEqual(['substrate-below-5km']); // 64 = 2 x 32 exactly
+  });
+
+  it('lowest [S] above Km', () => {
+    expect(designWarnings(table, { Km: 1.5 })).toEqual([{
+      code: 'substrate-above-km',
+      message: 'the lowest [S] is 1.3 x Km: effects on free enzyme are barely visible',
     }]);
   });
 
@@ -83,13 +91,18 @@ describe('designWarnings (after the fit)', () => {
     expect(designWarnings(table, { Km: 12.8 })).toEqual([]); // 64 = 5 x 12.8 exactly
   });
 
-  it('[I] never exceeding Ki or Kiu; constants not detected (infinite) are skipped', () => {
-    const found = designWarnings(table, { Km: 5, Ki: 200, Kiu: 160 });
-    expect(found.map((w) => w.code)).toEqual(['inhibitor-below-ki', 'inhibitor-below-kiu']);
-    expect(found[0].message).toBe(
-      '[I] never exceeds Ki (highest [I] 160 nM, Ki 200 nM); inhibition is weak over the tested range and Ki is poorly determined; test [I] up to several times Ki',
-    );
+  it('[I] staying below the smaller of Ki and Kiu; constants not detected (infinite) are skipped', () => {
+    expect(designWarnings(table, { Km: 5, Ki: 200, Kiu: 180 })).toEqual([{
+      code: 'inhibitor-below-k',
+      message: 'the highest [I] (160 nM) stays below the fitted inhibition constant (180 nM): inhibition is weak throughout',
+    }]);
+    expect(designWarnings(table, { Km: 5, Ki: 200, Kiu: 160 })).toEqual([]); // 160 reaches Kiu exactly
     expect(designWarnings(table, { Km: 5, Ki: Infinity, Kiu: Number.NaN })).toEqual([]);
+  });
+
+  it('a single non-zero [I] level', () => {
+    const [single] = readFixture('ok-minimal.csv');
+    expect(designWarnings(single, { Km: 1 }).map((w) => w.code)).toEqual(['substrate-below-5km', 'single-inhibitor-level']);
   });
 
   it('is pure: the table is not changed', () => {

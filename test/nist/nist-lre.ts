@@ -8,7 +8,7 @@ import { unscaledCovariance } from '../../src/fit/qr.js';
 import type { LeastSquaresResult } from '../../src/fit/least-squares-problem.js';
 import { logRelativeError, nistProblem, type NistFixture } from './models.js';
 
-export interface NistRun {
+interface NistRun {
   name: string;
   start: 1 | 2;
   result: LeastSquaresResult;
@@ -17,11 +17,6 @@ export interface NistRun {
   sdLre: number[];
   minParameterLre: number;
   minSdLre: number;
-}
-
-/** (J'J)^-1 (row-major m x m) from the pivoted QR of a row-major n x m Jacobian. */
-export function unscaledCovarianceOf(jacobian: Float64Array, n: number, m: number): Float64Array {
-  return unscaledCovariance(jacobian, n, m).matrix;
 }
 
 export function runNist(fixture: NistFixture, start: 1 | 2): NistRun {

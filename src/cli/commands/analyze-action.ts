@@ -54,7 +54,7 @@ function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): voi
  * before the fits start: the time of an analysis grows with the points (docs/benchmarks.md,
  * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
  */
-export const LARGE_TABLE_POINTS = 100_000;
+const LARGE_TABLE_POINTS = 100_000;
 
 /** From this file size on (bytes), `analyze` says on a terminal that it is reading (seconds per 10 MB: README, "Big inputs"). */
 export const LARGE_FILE_BYTES = 10_000_000;
@@ -87,7 +87,7 @@ export function chooseTables(tables: RateTable[], compound: string | undefined, 
  * names shortened with a hash, names that differ only by case or that would be "." or ".."
  * kept apart).
  */
-export function outputFoldersFor(out: string, tables: readonly RateTable[]): string[] {
+function outputFoldersFor(out: string, tables: readonly RateTable[]): string[] {
   if (tables.length === 1) return [resolve(out)];
   return uniqueFolderNames(tables.map((t) => t.compound ?? '(unnamed)')).map((name) => resolve(out, name));
 }
@@ -130,7 +130,7 @@ async function readInputOnce(path: string, parse: ParseOptions): Promise<{ table
  * What the report footer records about this run: the SHA-256 of the input file's bytes, the command
  * and each option as given (defaults included, marked as such).
  */
-export function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: Command): ReportProvenance {
+function analyzeProvenance(bytes: Uint8Array | null, file: string, cmd: Command): ReportProvenance {
   const options: Record<string, string> = {};
   for (const option of cmd.options) {
     const key = option.attributeName();

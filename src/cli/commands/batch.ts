@@ -17,7 +17,7 @@ import { join, resolve } from 'node:path';
 import { UsageError } from '../exit-codes.js';
 
 /** The rate table made from --reads goes into the output folder under this name. */
-export const READS_RATE_TABLE = 'rates-from-reads.csv';
+const READS_RATE_TABLE = 'rates-from-reads.csv';
 
 interface BatchCliOptions extends SharedCliOptions, ReadsCliOptions {
   reads?: string[];
@@ -28,7 +28,7 @@ interface BatchCliOptions extends SharedCliOptions, ReadsCliOptions {
 }
 
 /** Exit code chosen by a command that finished without throwing (set in place). */
-export interface BatchOutcome {
+interface BatchOutcome {
   exitCode: number;
 }
 

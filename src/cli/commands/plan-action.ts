@@ -22,8 +22,7 @@ import { analyzeTable } from '../../analysis/analyze-table.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
 import { chooseTables } from './analyze-action.js';
 import { wellsCurve } from '../../plan/wells-curve.js';
-import { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions } from './plan-options.js';
-export { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions };
+import { type PlanCliOptions } from './plan-options.js';
 
 function usage<T>(option: string, f: () => T): T {
   try {
@@ -71,7 +70,7 @@ function dilutionOption(o: PlanCliOptions): DilutionScheme {
 }
 
 /** Reads --from: a rate table (analysed as `analyze` would, with --error) or the JSON of an analysis. */
-export async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBasis> {
+async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBasis> {
   if (o.km || o.ki || o.ic50) throw new UsageError('option --from takes Km and the inhibition constants from the analysis: leave out --km, --ki and --ic50');
   const path = resolve(cwd, o.from!);
   const bad = (e: unknown): never => {
@@ -102,7 +101,7 @@ export async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<Foll
 }
 
 /** Builds the library request from the options (exported for tests); `basis` from --from. */
-export function planRequestFrom(o: PlanCliOptions, basis?: FollowUpBasis): PlanRequest {
+function planRequestFrom(o: PlanCliOptions, basis?: FollowUpBasis): PlanRequest {
   if (basis) return followUpRequest(o, basis);
   if (!o.km) throw new UsageError('option --km is required (a value such as 20uM or a range such as 10uM..40uM)');
   const km = usage('--km', () => parseConcentrationRange(o.km!));

@@ -3,7 +3,6 @@ import { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { DEFAULT_PLAN_SIMULATIONS, type PlanCliOptions } from './plan-options.js';
 
-export { DEFAULT_PLAN_SIMULATIONS };
 
 export function planCommand(io: CliIo): Command {
   return new Command('plan')

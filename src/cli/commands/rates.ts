@@ -5,9 +5,8 @@
 import { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { addReadsOptions } from '../reads-options.js';
-import { READS_PAGE, type RatesCliOptions } from './rates-options.js';
+import { type RatesCliOptions } from './rates-options.js';
 
-export { READS_PAGE, type RatesCliOptions };
 
 export function ratesCommand(io: CliIo): Command {
   const cmd = new Command('rates')

@@ -6,9 +6,9 @@
  */
 import type { AnalysisResult } from '../../analysis/types.js';
 import type { FigureOutput } from '../../figures/figure-output.js';
-import { TOOL_NAME, TOOL_VERSION } from '../../version.js';
 import { escapeHtml } from './escape.js';
 import { REPORT_CSS } from './report-css.js';
+import { pageHead } from './page-head.js';
 import type { ReportProvenance } from './provenance.js';
 import { verdictSection } from './sections/verdict-section.js';
 import { parametersSection } from './sections/parameters-section.js';
@@ -22,7 +22,7 @@ import { figureBlock } from './sections/figure-block.js';
 import { derivedSection } from './sections/derived-section.js';
 import { fitChecksSection } from './sections/fit-checks-section.js';
 
-export interface ReportInput {
+interface ReportInput {
   result: AnalysisResult;
   figures: readonly FigureOutput[];
   provenance?: ReportProvenance;
@@ -61,15 +61,7 @@ export function reportHtml(input: ReportInput): string {
     ['provenance', 'Reproducibility'],
   ];
   const nav = `<nav class="contents" aria-label="Contents">${sections.map(([id, label]) => `<a href="#${id}">${escapeHtml(label)}</a>`).join('')}</nav>`;
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta name="generator" content="${escapeHtml(`${TOOL_NAME} ${TOOL_VERSION}`)}">
-<title>${escapeHtml(`Inhibition mechanism report: ${name}`)}</title>
-<style>${REPORT_CSS}</style>
-</head>
+  return `${pageHead(`Inhibition mechanism report: ${name}`, REPORT_CSS)}
 <body>
 <header class="page">
 <h1>Inhibition mechanism report</h1>

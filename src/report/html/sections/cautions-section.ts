@@ -14,9 +14,9 @@ export const CAUTIONS: readonly string[] = [
 ];
 
 /** Cautions that replace or add to the list when the tight-binding or partial family was fitted. */
-export const TIGHT_BINDING_CAUTION =
+const TIGHT_BINDING_CAUTION =
   'The tight-binding models take [E]t to be the concentration of active enzyme: a nominal protein concentration that includes inactive enzyme overstates it and biases Ki; an active-site titration gives the right value, and --enzyme fit estimates it when [I] spans it.';
-export const PARTIAL_CAUTION =
+const PARTIAL_CAUTION =
   'A rate that levels off at high [I] can also come from the compound reaching its solubility limit or forming aggregates; check the top concentrations before reading the plateau as partial inhibition.';
 
 export function cautionsSection(result?: AnalysisResult): string {

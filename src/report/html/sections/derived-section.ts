@@ -13,6 +13,7 @@ import { displayUnit } from '../../../figures/axis-units.js';
 import { escapeHtml } from '../escape.js';
 import { interval, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
+import { distinctLevels } from '../../../input/distinct-levels.js';
 
 type Interval = [number | null, number | null];
 
@@ -59,7 +60,7 @@ function label(q: DerivedQuantity, result: AnalysisResult): string {
 }
 
 /** The closed form of the IC50 for a mechanism, in words a reader can check by hand. */
-export const IC50_FORMULA: Partial<Record<Mechanism, string>> = {
+const IC50_FORMULA: Partial<Record<Mechanism, string>> = {
   competitive: 'IC50 = Ki (1 + [S]/Km)',
   uncompetitive: 'IC50 = Kiu (1 + Km/[S])',
   noncompetitive: 'IC50 = Ki, whatever [S]',
@@ -149,7 +150,7 @@ function unchanging(values: readonly (number | null)[]): boolean {
 function apparentTable(model: ModelResult, result: AnalysisResult, pct: number): string {
   const apparent = (model.derived ?? []).filter((q) => q.name === 'Vmax_app' || q.name === 'Km_app');
   if (apparent.length === 0) return '';
-  const levels = [...new Set(apparent.map((q) => q.inhibitor!))].sort((a, b) => a - b);
+  const levels = distinctLevels(apparent.map((q) => q.inhibitor!));
   const iu = displayUnit(result.input.units.inhibitor);
   const names = (['Vmax_app', 'Km_app'] as const).filter((n) => apparent.some((q) => q.name === n));
   const of = (name: string, level: number) => apparent.find((q) => q.name === name && q.inhibitor === level) ?? null;

@@ -13,7 +13,7 @@ import { CLEARLY_WORSE_DELTA } from '../../../evidence/error-model-check.js';
 import { apparentConstants } from '../../../evidence/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
 import { drawnModel } from '../../../figures/figure-context.js';
-import { displayUnit } from '../../../figures/axis-units.js';
+import { displayUnit, withUnit as quantityWithUnit } from '../../../figures/axis-units.js';
 import { escapeHtml } from '../escape.js';
 import { pValue, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
@@ -110,7 +110,7 @@ function units(result: AnalysisResult): { s: string | null; i: string | null; v:
 }
 
 function withUnit(q: string, unit: string | null): string {
-  return escapeHtml(unit ? `${q} (${unit})` : q);
+  return escapeHtml(quantityWithUnit(q, unit));
 }
 
 function suspectsBlock(result: AnalysisResult, model: ModelResult, d: ResidualDiagnostics): string {

@@ -22,7 +22,7 @@ const ERROR_MODEL_TEXT: Record<ErrorModel, string> = {
  * The sources the methods cite, keyed for reuse. Authors, years, volumes and pages as in the
  * project brief (docs of each module name the same); the article titles are from memory.
  */
-export const REFERENCES = {
+const REFERENCES = {
   segel: 'Segel, I. H. (1975) Enzyme Kinetics. Wiley, New York.',
   cornishBowden2012: 'Cornish-Bowden, A. (2012) Fundamentals of Enzyme Kinetics, 4th ed. Wiley-Blackwell, Weinheim.',
   more: 'Moré, J. J. (1978) The Levenberg-Marquardt algorithm: implementation and theory. In Numerical Analysis, Lecture Notes in Mathematics 630, 105-116. Springer.',
@@ -46,7 +46,7 @@ export const REFERENCES = {
   fengShoichet: 'Feng, B. Y. and Shoichet, B. K. (2006) A detergent-based assay for the detection of promiscuous inhibitors. Nat. Protoc. 1, 550-553.',
 } as const;
 
-export type ReferenceKey = keyof typeof REFERENCES;
+type ReferenceKey = keyof typeof REFERENCES;
 
 export function methodsSection(result: AnalysisResult): string {
   const estimates = result.models.flatMap((m) => m.estimates);

@@ -8,7 +8,7 @@ import { TOOL_NAME, TOOL_VERSION } from '../../../version.js';
 import { escapeHtml } from '../escape.js';
 import type { ReportProvenance } from '../provenance.js';
 
-export const DATE_ELEMENT_ID = 'report-date';
+const DATE_ELEMENT_ID = 'report-date';
 
 /** Matches the date element, for tests that compare two reports. */
 export const DATE_ELEMENT_PATTERN = /<time id="report-date"[^>]*>[^<]*<\/time>/g;
