@@ -11,7 +11,7 @@ import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
 import { planExperiment } from '../dist/plan/plan-experiment.js';
-import { DEFAULT_PLAN_SIMULATIONS } from '../dist/cli/commands/plan.js';
+import { DEFAULT_PLAN_SIMULATIONS } from '../dist/cli/commands/plan-options.js';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
 const SIMS = Number(process.env.PLAN_BENCH_SIMULATIONS ?? DEFAULT_PLAN_SIMULATIONS);

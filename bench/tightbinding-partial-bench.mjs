@@ -23,7 +23,7 @@ import { analyzeTable } from '../dist/analysis/analyze-table.js';
 import { simulateModelRates } from '../dist/simulate/simulate-model.js';
 import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 import { lookupModel } from '../dist/models/registry.js';
-import { profileOfFit } from '../dist/evidence/profile-likelihood.js';
+import { profileAllOfFit } from '../dist/evidence/profile-likelihood.js';
 
 const N = Number(process.argv[2] ?? 10);
 const S = [2, 4, 7, 10, 15, 25, 50, 100];
@@ -83,7 +83,7 @@ for (const c of cases) {
     const name = c.mechanism === 'uncompetitive' ? 'Kiu' : 'Ki';
     if (fit) {
       const data = c.enzyme !== undefined ? { ...r.data, e: new Float64Array(r.data.v.length).fill(c.enzyme) } : r.data;
-      const iv = profileOfFit(fit, data, name, { level: 0.95 }).interval;
+      const iv = profileAllOfFit(fit, data, { level: 0.95 }).find((p) => p.name === name).interval;
       const truth = c.params[name];
       t.coverN++;
       if ((iv[0] === null || iv[0] <= truth) && (iv[1] === null || truth <= iv[1])) t.covered++;

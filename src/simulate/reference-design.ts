@@ -10,8 +10,10 @@ import type { RatePoint } from '../input/types.js';
 import { simulateRates } from './simulate-rates.js';
 
 export const REFERENCE_KM = 2;
-const REFERENCE_K = 1;
-const REFERENCE_SUBSTRATE: readonly number[] = Array.from({ length: 8 }, (_, k) => 0.2 * REFERENCE_KM * 50 ** (k / 7));
+/** @public used by bench/recovery.mjs, which imports the compiled module */
+export const REFERENCE_K = 1;
+/** @public used by bench/recovery.mjs, which imports the compiled module */
+export const REFERENCE_SUBSTRATE: readonly number[] = Array.from({ length: 8 }, (_, k) => 0.2 * REFERENCE_KM * 50 ** (k / 7));
 export const REFERENCE_INHIBITOR: readonly number[] = [0, 0.5, 1, 2, 4].map((x) => x * REFERENCE_K);
 
 /** True parameters per mechanism: Vmax 100, Km 2, inhibition constants 1 (mixed: Kiu = 4 Ki). */
