@@ -92,13 +92,8 @@ export interface RateWindow {
   forced: boolean;
 }
 
-export interface WellRate {
-  plate: string;
-  well: string;
-  compound: string;
-  substrate: number | null;
-  inhibitor: number | null;
-  role: WellRole;
+/** A well's rate, with its plate-map fields (the map line as `mapLine`). */
+export interface WellRate extends Omit<MapEntry, 'line'> {
   mapLine: number;
   /** the initial rate reported (concentration, or signal without a conversion, per time unit) */
   rate: number | null;

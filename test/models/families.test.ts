@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { expectGradientMatchesDifferences } from '../helpers/gradient-check.js';
 import { MECHANISMS, competitive, mixed, noncompetitive, uncompetitive } from '../../src/models/index.js';
 import { TIGHT_BINDING_FITTED, TIGHT_BINDING_GIVEN } from '../../src/models/tight-binding.js';
 import { PARTIAL_MODELS, partialCompetitive, partialMixed, partialNoncompetitive } from '../../src/models/partial.js';
@@ -18,19 +19,7 @@ describe('analytic gradients of the tight-binding and partial models (central di
   for (const model of [...TIGHT_BINDING_GIVEN, ...TIGHT_BINDING_FITTED, ...PARTIAL_MODELS]) {
     it(`${modelId(model)}: agree to 1e-7`, () => {
       const p = trial(model);
-      const grad = new Float64Array(p.length);
-      for (const [s, i, e] of points) {
-        model.gradLog(p, s, i, grad, 0, e);
-        for (let j = 0; j < p.length; j++) {
-          const h = 1e-5;
-          const up = p.slice();
-          const down = p.slice();
-          up[j] = p[j] * Math.exp(h);
-          down[j] = p[j] * Math.exp(-h);
-          const numeric = (model.rate(up, s, i, e) - model.rate(down, s, i, e)) / (2 * h);
-          expect(Math.abs(grad[j] - numeric)).toBeLessThan(1e-7 * Math.max(1, Math.abs(numeric)));
-        }
-      }
+      expectGradientMatchesDifferences(model, p, points);
     });
   }
 });

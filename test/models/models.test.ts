@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { expectGradientMatchesDifferences } from '../helpers/gradient-check.js';
 import { MECHANISMS, competitive, mixed, noncompetitive, uncompetitive, noInhibition } from '../../src/models/index.js';
 
 const points: Array<[number, number]> = [
@@ -16,19 +17,7 @@ describe('analytic gradients with respect to ln(parameter)', () => {
   for (const model of MECHANISMS) {
     it(`${model.label}: agree with central differences to 1e-7`, () => {
       const p = trial[model.mechanism];
-      const grad = new Float64Array(p.length);
-      for (const [s, i] of points) {
-        model.gradLog(p, s, i, grad, 0);
-        for (let j = 0; j < p.length; j++) {
-          const h = 1e-5;
-          const up = p.slice();
-          const down = p.slice();
-          up[j] = p[j] * Math.exp(h);
-          down[j] = p[j] * Math.exp(-h);
-          const numeric = (model.rate(up, s, i) - model.rate(down, s, i)) / (2 * h);
-          expect(Math.abs(grad[j] - numeric)).toBeLessThan(1e-7 * Math.max(1, Math.abs(numeric)));
-        }
-      }
+      expectGradientMatchesDifferences(model, p, points);
     });
   }
 });
