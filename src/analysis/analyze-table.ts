@@ -10,7 +10,8 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
-import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE } from '../input/table-checks.js';
+import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE, outsideFittableRange } from '../input/table-checks.js';
+import { sig } from '../text/format-number.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
 import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
@@ -18,7 +19,7 @@ import { addIntervals, type BootstrapRequest } from './stage-intervals.js';
 import { decideVerdict, type Caveat, type ExactFitEvidence, type Verdict } from '../evidence/verdict.js';
 import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-check.js';
 import { robustRefit } from '../evidence/robust-refit.js';
-import { caveatsFor, errorModelCaveat, runDiagnostics } from './stage-diagnostics.js';
+import { caveatsFor, errorModelCaveat, largeResidualPoints, runDiagnostics } from './stage-diagnostics.js';
 import { noInhibitionReason } from '../evidence/detection-limit.js';
 import { noActivityFinding } from '../evidence/activity-check.js';
 import { exactFits } from '../evidence/exact-fit.js';
@@ -105,8 +106,12 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const preliminary = verdictFrom(models, nested, [], evidence);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
   const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
-  // Without noise the residual checks describe rounding only: keep the design caveats.
-  const caveats: Caveat[] = caveatsFor(winner, diagnostics, data).filter((c) => exact.length === 0 || !RESIDUAL_CAVEATS.has(c.code));
+  // The robust refit runs on request, and by itself whenever a point stands out (a studentised
+  // residual beyond the suspect cut-off), so that one bad well cannot flip the call unnoticed.
+  // Without noise the residual checks describe rounding only: only the design caveats are given.
+  const noiseFree = exact.length > 0;
+  const robustRuns = Boolean(options.robust) || (!noiseFree && largeResidualPoints(diagnostics.residuals[winner.mechanism]).length > 0);
+  const caveats: Caveat[] = caveatsFor(winner, diagnostics, data, { noiseFree, robustRefitRuns: robustRuns });
   caveats.push(...patternCaveats(models, winner, data, table));
 
   const emCheck = winner.fit.df > 0 ? checkErrorModel(winner.fit, data) : null;
@@ -119,22 +124,17 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     if (caveat) caveats.push(caveat);
   }
 
-  // The robust refit runs on request, and by itself whenever a point stands out (a studentised
-  // residual beyond the suspect cut-off), so that one bad well cannot flip the call unnoticed.
   let robust: RobustSummary | undefined;
-  const standsOut = (diagnostics.residuals[winner.mechanism]?.suspects ?? []).some((x) => x.why !== 'high leverage');
-  if (options.robust || (standsOut && exact.length === 0)) {
+  if (robustRuns) {
     robust = robustSummary(data, errorModel, models, level, table, preliminary);
     const caveat = robustCaveat(robust, preliminary);
     if (caveat) caveats.push(caveat);
     else if (!options.robust)
       caveats.push({ code: 'robust', message: `a robust (bisquare) refit, run because a point stands out, gives no point less than half weight; the call stays ${robust.verdict.mechanism}`, blocking: false });
-    // the refit has been run: the suspect-point advice need not send the user to --robust
-    for (const c of caveats) if (c.code === 'suspect-points') c.suggestion = 'inspect the flagged wells (listed in the report); the robust refit above says whether the call depends on them';
   }
 
   const classicVerdict = verdictFrom(models, nested, caveats, evidence);
-  if (classicVerdict.outcome === 'no-inhibition' && exact.length === 0) classicVerdict.reasons.push(noInhibitionReason(models, data));
+  if (classicVerdict.outcome === 'no-inhibition' && !noiseFree) classicVerdict.reasons.push(noInhibitionReason(models, data));
   if (choice.automatic) classicVerdict.reasons.unshift(choice.reason);
 
   // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
@@ -283,10 +283,9 @@ function alphaInterval(models: readonly ModelResult[]): [number | null, number |
  * outside them with file, line and column; a table built in memory is checked here.
  */
 function checkMagnitudes(table: RateTable): void {
-  const out = (x: number | undefined) => x !== undefined && x !== 0 && !(Math.abs(x) >= SMALLEST_MAGNITUDE && Math.abs(x) <= LARGEST_MAGNITUDE);
   for (const p of table.points) {
     for (const [what, value] of [['substrate', p.substrate], ['inhibitor', p.inhibitor], ['rate', p.rate], ['sd', p.sd]] as const) {
-      if (out(value))
+      if (value !== undefined && outsideFittableRange(value))
         throw new AnalysisError(`line ${p.line}: ${what} ${value} is outside the range that can be fitted reliably (non-zero magnitudes from ${SMALLEST_MAGNITUDE} to ${LARGEST_MAGNITUDE}); rescale the column (a change of unit changes no result)`);
     }
   }
@@ -314,9 +313,6 @@ function mixedAlpha(models: readonly ModelResult[]): number | null {
   return alpha && alpha.detected && alpha.value !== null ? alpha.value : null;
 }
 
-/** Caveat codes that describe residuals, meaningless for noise-free data. */
-const RESIDUAL_CAVEATS = new Set(['residual-runs', 'lack-of-fit', 'trend-substrate', 'trend-inhibitor', 'trend-fitted', 'non-normal', 'suspect-points', 'series-disagree']);
-
 /** Patterns the five models cannot describe, implausible units, and pasted rows. */
 function patternCaveats(models: readonly ModelResult[], winner: ModelResult, data: FitData, table: RateTable): Caveat[] {
   const out: Caveat[] = [];
@@ -339,8 +335,7 @@ function patternCaveats(models: readonly ModelResult[], winner: ModelResult, dat
 }
 
 function lineList(points: RobustSummary['downWeighted']): string {
-  const rate = (x: number) => (Math.abs(x) >= 1e5 || (x !== 0 && Math.abs(x) < 1e-3) ? x.toExponential(2) : String(Number(x.toPrecision(3))));
-  const shown = points.slice(0, 4).map((d) => `line ${d.line}, rate ${rate(d.rate)}`);
+  const shown = points.slice(0, 4).map((d) => `line ${d.line}, rate ${sig(d.rate, 3)}`);
   return shown.join(', ') + (points.length > 4 ? ` and ${points.length - 4} more` : '');
 }
 
@@ -349,7 +344,6 @@ function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null 
   const n = robust.downWeighted.length;
   if (n === 0) return null;
   const which = lineList(robust.downWeighted);
-  const where = n === 1 ? which : `${which}`;
   if (!robust.changesVerdict)
     return { code: 'robust', message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}); the call stays ${robust.verdict.mechanism}`, blocking: false };
   return {
@@ -358,7 +352,7 @@ function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null 
     blocking: true,
     suggestion: `inspect or repeat the down-weighted wells (${which}); exclude a mistyped value and analyse again`,
     leading: true,
-    headline: `The call depends on ${n === 1 ? 'one outlying point' : `${n} outlying points`} (${where}): with ${n === 1 ? 'it' : 'them'} down-weighted the data point to ${robust.verdict.mechanism}${robust.verdict.lean ? `, leaning ${robust.verdict.lean}` : ''}, not ${lsVerdict.mechanism}.`,
+    headline: `The call depends on ${n === 1 ? 'one outlying point' : `${n} outlying points`} (${which}): with ${n === 1 ? 'it' : 'them'} down-weighted the data point to ${robust.verdict.mechanism}${robust.verdict.lean ? `, leaning ${robust.verdict.lean}` : ''}, not ${lsVerdict.mechanism}.`,
   };
 }
 

@@ -46,9 +46,21 @@ function detectedValue(m: ModelResult, name: string): number | undefined {
 }
 
 /** Caveats about the fit of the given (preliminary winning) model. */
-export function caveatsFor(winner: ModelResult, stage: DiagnosticsStage, data: FitData): Caveat[] {
+/** Points whose studentised residual is beyond the suspect cut-off (not high leverage alone). */
+export function largeResidualPoints(d: ResidualDiagnostics | undefined): ResidualDiagnostics['suspects'] {
+  return (d?.suspects ?? []).filter((s) => s.why !== 'high leverage');
+}
+
+export interface CaveatOptions {
+  /** noise-free rates: residual checks describe rounding only, so only the design caveats are given */
+  noiseFree?: boolean;
+  /** the robust refit runs on these data (it is then the evidence on suspect points, not advice) */
+  robustRefitRuns?: boolean;
+}
+
+export function caveatsFor(winner: ModelResult, stage: DiagnosticsStage, data: FitData, options: CaveatOptions = {}): Caveat[] {
   const out: Caveat[] = [];
-  const d = stage.residuals[winner.mechanism];
+  const d = options.noiseFree ? undefined : stage.residuals[winner.mechanism];
   const name = winner.mechanism;
   if (d) {
     if (d.runs.pTooFew < DIAGNOSTIC_LEVEL)
@@ -77,18 +89,20 @@ export function caveatsFor(winner: ModelResult, stage: DiagnosticsStage, data: F
         blocking: false,
         suggestion: 'check the error model and look for outliers (--robust)',
       });
-    const large = d.suspects.filter((s) => s.why !== 'high leverage');
+    const large = largeResidualPoints(d);
     if (large.length)
       out.push({
         code: 'suspect-points',
         message: `${large.length} point${large.length > 1 ? 's have' : ' has'} a studentised residual beyond 3 (listed in the report)`,
         blocking: false,
-        suggestion: 'inspect the flagged wells; rerun with --robust to see whether the call depends on them',
+        suggestion: options.robustRefitRuns
+          ? 'inspect the flagged wells (listed in the report); the robust refit says whether the call depends on them'
+          : 'inspect the flagged wells; rerun with --robust to see whether the call depends on them',
       });
   }
   const disagreements = seriesDisagreements(winner.fit, stage.seriesFits);
   stage.seriesDisagreements = disagreements;
-  if (disagreements.length)
+  if (disagreements.length && !options.noiseFree)
     out.push({
       code: 'series-disagree',
       message: `fitted alone, ${disagreements.length} apparent constant${disagreements.length > 1 ? 's differ' : ' differs'} from the ${name} global fit by more than 3 SE`,

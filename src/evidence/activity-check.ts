@@ -5,6 +5,7 @@
  * what to check (the sign convention of the slope, the blank subtraction, the column chosen).
  */
 import type { FitData } from '../fit/fit-data.js';
+import { rounded } from '../text/format-number.js';
 
 type NoActivityKind = 'all-zero' | 'not-positive' | 'all-equal' | 'control-not-positive' | 'too-few-positive';
 
@@ -16,9 +17,7 @@ interface NoActivityFinding {
   message: string;
 }
 
-function sig(x: number): string {
-  return Number(x.toPrecision(3)).toString();
-}
+const sig = (x: number): string => rounded(x, 3);
 
 /** The finding when the rates show no activity, else null. */
 export function noActivityFinding(data: FitData): NoActivityFinding | null {

@@ -76,9 +76,10 @@ export function checkUsableDesign(
 export const SMALLEST_MAGNITUDE = 1e-150;
 export const LARGEST_MAGNITUDE = 1e150;
 
-function outOfRange(x: number): boolean {
+/** True for a non-zero value outside SMALLEST_MAGNITUDE..LARGEST_MAGNITUDE (NaN included). */
+export function outsideFittableRange(x: number): boolean {
   const a = Math.abs(x);
-  return a !== 0 && (a < SMALLEST_MAGNITUDE || a > LARGEST_MAGNITUDE);
+  return a !== 0 && !(a >= SMALLEST_MAGNITUDE && a <= LARGEST_MAGNITUDE);
 }
 
 /**
@@ -95,7 +96,7 @@ export function checkNumericRange(table: RateTable, anchors: { substrate: Place;
       ['sd', p.sd, null],
     ];
     for (const [what, value, anchor] of values) {
-      if (value === undefined || !outOfRange(value)) continue;
+      if (value === undefined || !outsideFittableRange(value)) continue;
       const column = table.layout === 'long' && anchor?.column !== undefined ? anchor.column : undefined;
       const place: Place = column !== undefined ? { line: p.line, column } : { line: p.line };
       const unit = what === 'substrate' ? table.units.substrate : what === 'inhibitor' ? table.units.inhibitor : null;
@@ -108,7 +109,7 @@ export function checkNumericRange(table: RateTable, anchors: { substrate: Place;
       );
     }
     // with sd weights the fit squares rate/sd: the ratio obeys the same bounds
-    if (p.sd !== undefined && p.rate !== 0 && outOfRange(p.sd / p.rate)) {
+    if (p.sd !== undefined && p.rate !== 0 && outsideFittableRange(p.sd / p.rate)) {
       throw new InputError(
         `${locate(table.source, { line: p.line })}${compoundPrefix(table)}sd ${p.sd} is ${(p.sd / Math.abs(p.rate)).toExponential(1)} times its rate ${p.rate}; sd weights need sd/rate within ${SMALLEST_MAGNITUDE} to ${LARGEST_MAGNITUDE}; check the sd column (is it in the rate's unit?)`,
         table.source, p.line,

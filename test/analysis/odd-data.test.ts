@@ -32,7 +32,7 @@ describe('odd tables get the statement an enzymologist expects', () => {
     expect(r.robust!.downWeighted.map((d) => d.line)).toContain(23);
     expect(r.robust!.verdict.mechanism).toBe('competitive');
     expect(r.verdict.decisive).toBe(false);
-    expect(r.verdict.headline).toMatch(/^The call depends on one outlying point \(line 23, rate 3\.\d+e\+7\): with it down-weighted the data point to competitive/);
+    expect(r.verdict.headline).toMatch(/^The call depends on one outlying point \(line 23, rate 3\.\d+e7\): with it down-weighted the data point to competitive/);
     expect(r.verdict.suggestions[0]).toMatch(/line 23/);
   });
 
