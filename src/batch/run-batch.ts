@@ -18,7 +18,7 @@ import type { AnalysisOptions } from '../analysis/analyze-table.js';
 import type { ParseOptions } from '../input/options.js';
 import { InputError } from '../input/types.js';
 import type { Json } from '../report/results-json.js';
-import { removeStaleTemporaries, writeFilesAtomic } from '../report/write-atomic.js';
+import { removeStaleTemporaries, writeFileAtomic, writeFilesAtomic } from '../report/write-atomic.js';
 import { checkOutputFolder, isReportEntry, REPORT_ENTRIES } from '../report/output-folder.js';
 import { takeRunLock, type RunLock } from './run-lock.js';
 import { COMPOUNDS_FOLDER } from './analyze-compound.js';
@@ -66,6 +66,11 @@ export interface BatchOptions {
    * unit); converted to the run's [S] unit once the tables are read
    */
   atSubstrate?: Concentration;
+  /**
+   * tables made by the caller (a rate table from plate reads), written into `out` under these
+   * names once the run holds the folder's lock, and analysed with the inputs
+   */
+  generatedInputs?: ReadonlyArray<{ name: string; text: string }>;
 }
 
 export interface BatchResult {
@@ -106,7 +111,9 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
   // the output folder is checked before any input is read, let alone analysed
   const check = out !== null ? checkOutputFolder(out, options.out) : null;
   const { files, notes } = collectInputFiles(inputs, cwd);
-  if (files.length === 0) {
+  const generated = options.generatedInputs ?? [];
+  if (generated.length > 0 && out === null) throw new InputError('tables made from plate reads need an output folder to be written to', '');
+  if (files.length === 0 && generated.length === 0) {
     const what = inputs.length === 0 ? 'no inputs given' : `no rate-table files found in ${inputs.join(', ')}`;
     throw new InputError(`${what}; give files (.csv, .tsv, .txt) or folders holding them`, inputs[0] ?? '');
   }
@@ -117,6 +124,12 @@ export async function runBatch(inputs: readonly string[], options: BatchOptions 
     if (lock.note !== null) notes.push(lock.note);
     const cleared = [...removeStaleTemporaries(out), ...removeStaleTemporaries(join(out, COMPOUNDS_FOLDER))];
     if (cleared.length > 0) notes.push(`removed ${cleared.length} temporary ${cleared.length === 1 ? 'entry' : 'entries'} left by an interrupted run`);
+    // written only now, under the lock: a second run into the same folder cannot overwrite them
+    for (const g of generated) {
+      const path = join(out, g.name);
+      writeFileAtomic(path, g.text);
+      files.push({ given: join(options.out ?? out, g.name), path });
+    }
   }
   try {
     return await runLocked(files, notes, out, startedAt, options);

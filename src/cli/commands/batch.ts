@@ -8,13 +8,10 @@ import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
 import { progressBar, type ProgressBar } from '../progress-bar.js';
 import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
-import { EXIT_ANALYSIS_FAILED, EXIT_OK } from '../exit-codes.js';
+import { EXIT_ANALYSIS_FAILED, EXIT_OK, UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption } from '../parse-option-values.js';
 import { addReadsOptions, type ReadsCliOptions } from '../reads-options.js';
-import { writeFileAtomic } from '../../report/write-atomic.js';
-import { join, resolve } from 'node:path';
-import { UsageError } from '../exit-codes.js';
 
 /** The rate table made from --reads goes into the output folder under this name. */
 const READS_RATE_TABLE = 'rates-from-reads.csv';
@@ -36,7 +33,7 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
   const cmd = new Command('batch')
     .description('analyse many compounds (files, folders, multi-compound files) and write one summary table')
     .argument('[inputs...]', 'rate-table files, folders of them (.csv, .tsv, .txt), or files with a compound column')
-    .option('--reads <files...>', `kinetic plate reads: their rates are written to <dir>/${'rates-from-reads.csv'} and analysed with the inputs`)
+    .option('--reads <files...>', `kinetic plate reads: their rates are written to <dir>/${READS_RATE_TABLE} and analysed with the inputs`)
     .requiredOption('--out <dir>', 'output folder: summary.csv, summary.json, index.html (and compounds/ with --reports)')
     .option('--reports', "also write each compound's full report under <dir>/compounds/<compound>/")
     .option('--jobs <n>', `worker threads (default: the number of cores, here ${availableParallelism()})`)
@@ -45,19 +42,18 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
   addReadsOptions(cmd, false);
   cmd.action(async (given: string[], o: BatchCliOptions) => {
     const inputs = [...given];
+    const generatedInputs: Array<{ name: string; text: string }> = [];
     if (o.reads !== undefined) {
-      // the reads code is loaded only when reads are given
+      // the reads code is loaded only when reads are given; the table is written by runBatch, under its lock
       const { readsSummaryLine, runReads } = await import('../reads-input.js');
       const run = await runReads(o.reads, o, io.cwd);
       if (!o.quiet) for (const note of run.notes) io.err(`mechanist: note: ${note}\n`);
       if (!o.quiet) io.err(`mechanist: ${readsSummaryLine(run.result)}\n`);
-      const table = join(o.out, READS_RATE_TABLE);
-      writeFileAtomic(resolve(io.cwd, table), run.text);
-      inputs.push(table);
+      generatedInputs.push({ name: READS_RATE_TABLE, text: run.text });
     } else if (o.plateMap !== undefined) {
       throw new UsageError('option --plate-map: only used with --reads');
     }
-    if (inputs.length === 0) throw new UsageError('batch needs at least one input, or --reads READS --plate-map MAP');
+    if (inputs.length === 0 && generatedInputs.length === 0) throw new UsageError('batch needs at least one input, or --reads READS --plate-map MAP');
     const parse = parseOptionsFrom(o);
     const analysis = analysisOptionsFrom(o);
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
@@ -76,6 +72,7 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
     const [{ runBatch }, { InterruptedError }] = await Promise.all([import('../../batch/run-batch.js'), import('../../batch/worker-pool.js')]);
     const result = await runBatch(inputs, {
       signal: interrupt.signal,
+      ...(generatedInputs.length > 0 ? { generatedInputs } : {}),
       out: o.out,
       reports: Boolean(o.reports),
       jobs,
