@@ -77,7 +77,7 @@ async function runTask(t, lib) {
     mixedAlpha: pick(est('alpha')), mixedKi: pick(est('Ki')), mixedKiu: pick(est('Kiu')),
     aicc: Object.fromEntries(r.models.map((x) => [x.mechanism, x.aicc])),
     nested: r.nested.map((c) => [c.simpler, c.fuller, c.p]),
-    ...(workerData.features && mixed && lib.profileTauAt ? { taus: Object.fromEntries([0.05, 0.1, 0.2, 0.5, 1 / 1.5, 1.5, 2, 5, 10, 20].map((a) => [a, lib.profileTauAt(mixed.fit, r.data, 'alpha', a).tau])), df: mixed.fit.df } : {}),
+    ...(workerData.features && mixed && lib.profileTausAt ? { taus: ((bounds) => Object.fromEntries(lib.profileTausAt(mixed.fit, r.data, 'alpha', bounds).taus.map((t, k) => [bounds[k], t])))([0.05, 0.1, 0.2, 0.5, 1 / 1.5, 1.5, 2, 5, 10, 20]), df: mixed.fit.df } : {}),
   };
 }
 
@@ -95,7 +95,7 @@ async function loadLib() {
     import(new URL('simulate/random.js', root)),
     import(new URL('evidence/profile-likelihood.js', root)),
   ]);
-  return { analyzeTable: a.analyzeTable, simulateRates: s.simulateRates, tableFromPoints: t.tableFromPoints, seededRandom: r.seededRandom, profileTauAt: pl.profileTauAt };
+  return { analyzeTable: a.analyzeTable, simulateRates: s.simulateRates, tableFromPoints: t.tableFromPoints, seededRandom: r.seededRandom, profileTausAt: pl.profileTausAt };
 }
 
 if (!isMainThread) {

@@ -51,7 +51,7 @@ export function largeResidualPoints(d: ResidualDiagnostics | undefined): Residua
   return (d?.suspects ?? []).filter((s) => s.why !== 'high leverage');
 }
 
-export interface CaveatOptions {
+interface CaveatOptions {
   /** noise-free rates: residual checks describe rounding only, so only the design caveats are given */
   noiseFree?: boolean;
   /** the robust refit runs on these data (it is then the evidence on suspect points, not advice) */

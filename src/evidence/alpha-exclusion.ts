@@ -16,7 +16,7 @@
 import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { FitData } from '../fit/fit-data.js';
 import { tCdf, tSurvival } from '../stats/distributions.js';
-import { profileTauAt } from './profile-likelihood.js';
+import { profileTausAt } from './profile-likelihood.js';
 
 /** alpha beyond which (or below whose reciprocal) the other arm counts as negligible. */
 export const ALPHA_FAR = 10;
@@ -48,19 +48,19 @@ export interface AlphaExclusions {
   noncompetitive: [AlphaBoundTest, AlphaBoundTest];
 }
 
-/** One-sided profile test of "alpha is above (or below) the bound" in the mixed fit. */
-function alphaBoundTest(mixed: MechanismFit, data: FitData, claim: AlphaClaim, bound: number, level = EXCLUSION_LEVEL): AlphaBoundTest {
-  const { tau, df } = profileTauAt(mixed, data, 'alpha', bound);
+function boundTest(claim: AlphaClaim, bound: number, tau: number, df: number, level: number): AlphaBoundTest {
   // tau < 0 when the bound lies below the estimate: a claim "above" is supported by a large -tau.
   const p = !Number.isFinite(tau) ? 1 : claim === 'above' ? tCdf(tau, df) : tSurvival(tau, df);
   return { claim, bound, tau, p, excluded: p < level };
 }
 
-/** The four tests a firm three-constant call rests on, from the mixed fit. */
+/** The four tests a firm three-constant call rests on, from the mixed fit (one profile walk each way). */
 export function alphaExclusions(mixed: MechanismFit, data: FitData): AlphaExclusions {
+  const bounds = [ALPHA_FAR, 1 / ALPHA_FAR, NONCOMPETITIVE_BAND, 1 / NONCOMPETITIVE_BAND];
+  const { taus, df } = profileTausAt(mixed, data, 'alpha', bounds);
   return {
-    competitive: alphaBoundTest(mixed, data, 'above', ALPHA_FAR),
-    uncompetitive: alphaBoundTest(mixed, data, 'below', 1 / ALPHA_FAR),
-    noncompetitive: [alphaBoundTest(mixed, data, 'below', NONCOMPETITIVE_BAND), alphaBoundTest(mixed, data, 'above', 1 / NONCOMPETITIVE_BAND)],
+    competitive: boundTest('above', ALPHA_FAR, taus[0], df, EXCLUSION_LEVEL),
+    uncompetitive: boundTest('below', 1 / ALPHA_FAR, taus[1], df, EXCLUSION_LEVEL),
+    noncompetitive: [boundTest('below', NONCOMPETITIVE_BAND, taus[2], df, EXCLUSION_LEVEL), boundTest('above', 1 / NONCOMPETITIVE_BAND, taus[3], df, EXCLUSION_LEVEL)],
   };
 }

@@ -190,16 +190,46 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator
   return { q, support, cHat, zHat, evaluate, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
 }
 
+/** Largest step (log scale) of the walk from the estimate to a tested value: each refit starts near its answer. */
+const TEST_WALK_STEP = Math.log(2);
+
 /**
- * The profile t statistic tau at one natural-scale value of a quantity (Bates & Watts 1988,
- * sec. 6.1): negative below the estimate, positive above it. With df = n - p it is referred to
- * Student's t for a one-sided test of "the quantity is at most (or at least) this value".
+ * The profile t statistic tau at natural-scale values of a quantity (Bates & Watts 1988, sec. 6.1):
+ * negative below the estimate, positive above it. With df = n - p it is referred to Student's t
+ * for a one-sided test of "the quantity is at most (or at least) this value". Each value is
+ * reached by walking out from the estimate in steps of at most TEST_WALK_STEP, warm-starting every
+ * constrained refit from the last one (values on one side share the walk); the direct refit from
+ * the estimate is tried too and the lower SSE kept. A refit that stalls would overstate |tau| and
+ * so claim an exclusion the data do not make; the walk guards against that.
  */
-export function profileTauAt(fit: MechanismFit, data: FitData, name: ProfiledName, value: number): { tau: number; df: number } {
-  if (!(fit.df > 0) || !Number.isFinite(fit.sse) || !(value > 0)) return { tau: NaN, df: fit.df };
+export function profileTausAt(fit: MechanismFit, data: FitData, name: ProfiledName, values: readonly number[]): { taus: number[]; df: number } {
+  if (!(fit.df > 0) || !Number.isFinite(fit.sse)) return { taus: values.map(() => NaN), df: fit.df };
   const ev = profileEvaluator(fitContext(fit, data, {}), name);
-  const point = ev.evaluate(Math.log(value), ev.zHat);
-  return { tau: Number.isFinite(point.sse) ? point.tau : NaN, df: fit.df };
+  const taus = values.map(() => NaN);
+  for (const direction of [-1, 1] as const) {
+    const order = values
+      .map((v, k) => ({ k, c: v > 0 ? Math.log(v) : NaN }))
+      .filter((x) => Number.isFinite(x.c) && direction * (x.c - ev.cHat) > 0)
+      .sort((a, b) => direction * (a.c - b.c));
+    let at = { c: ev.cHat, z: ev.zHat };
+    for (const { k, c } of order) {
+      let point: ProfilePoint | null = null;
+      while (direction * (c - at.c) > 0) {
+        const next = direction * (c - at.c) > TEST_WALK_STEP ? at.c + direction * TEST_WALK_STEP : c;
+        point = ev.evaluate(next, at.z);
+        if (!Number.isFinite(point.sse)) break;
+        at = { c: next, z: point.z };
+      }
+      const direct = ev.evaluate(c, ev.zHat);
+      const best = point && Number.isFinite(point.sse) && point.c === c && !(direct.sse < point.sse) ? point : direct;
+      taus[k] = Number.isFinite(best.sse) ? best.tau : NaN;
+    }
+  }
+  // a value at the estimate itself
+  values.forEach((v, k) => {
+    if (v > 0 && Math.log(v) === ev.cHat) taus[k] = 0;
+  });
+  return { taus, df: fit.df };
 }
 
 function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfile {
