@@ -139,10 +139,10 @@ export function atSubstrateOption(o: SharedCliOptions): Concentration | undefine
  * The IC50 [S] of --at-substrate in the [S] unit of `table` (which the analysis works in); a plain
  * number is used as it is. A unit given for a table whose [S] unit is unknown is a usage error.
  */
-export function atSubstrateFor(at: Concentration, table: RateTable): number {
+export function atSubstrateFor(at: Concentration, table: RateTable, option = '--at-substrate'): number {
   if (at.unit === null) return at.value;
   const to = table.units.substrate;
   if (to === null)
-    throw new UsageError(`option --at-substrate: ${table.source} gives no [S] unit to convert ${at.value} ${at.unit} to; give --substrate-unit, or a plain number`);
+    throw new UsageError(`option ${option}: ${table.source} gives no [S] unit to convert ${at.value} ${at.unit} to; give --substrate-unit, or a plain number`);
   return concentrationIn(at, to);
 }

@@ -76,15 +76,15 @@ function oneLine(s: string): string {
   return s.replace(/\s*\n\s*/g, ' ').trim();
 }
 
-/**
- * An AnalysisError (src/analysis/analyze-table.ts), told by its name and exit code rather than by
- * instanceof, so that the CLI does not load the analysis code at start-up just to recognise it.
- */
 /** A batch stopped by Ctrl-C or SIGTERM (src/batch/worker-pool.ts), known by name so that the batch code is not loaded at start-up. */
 function isInterrupted(e: unknown): e is Error & { signal?: string } {
   return e instanceof Error && e.name === 'InterruptedError';
 }
 
+/**
+ * An AnalysisError (src/analysis/analyze-table.ts), told by its name and exit code rather than by
+ * instanceof, so that the CLI does not load the analysis code at start-up just to recognise it.
+ */
 function isAnalysisError(e: unknown): e is Error {
   return e instanceof Error && e.name === 'AnalysisError' && (e as { exitCode?: unknown }).exitCode === EXIT_ANALYSIS_FAILED;
 }

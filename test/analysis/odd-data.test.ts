@@ -98,8 +98,15 @@ describe('odd tables get the statement an enzymologist expects', () => {
   it('one [S] level: no Wald interval where the profile is open, and no firm call', async () => {
     const r = await analysed('single-substrate');
     expect(r.verdict.decisive).toBe(false);
+    let open = 0;
     for (const m of r.models)
-      for (const e of m.estimates) if (e.profile && (e.profile[0] === null || e.profile[1] === null)) expect(e.wald).toBeNull();
+      for (const e of m.estimates)
+        if (e.profile && (e.profile[0] === null || e.profile[1] === null)) {
+          open++;
+          expect(e.wald).toBeNull();
+        }
+    // one [S] level leaves Km unbounded: there are open ends to check
+    expect(open).toBeGreaterThan(0);
   });
 });
 

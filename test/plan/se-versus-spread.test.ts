@@ -37,12 +37,10 @@ function spread(model: MechanismModel, truth: PriorPoint, noise: PlanNoise, simu
 describe('Fisher-information SEs against the Monte Carlo spread of the fitted constants', () => {
   it('competitive, 5% proportional noise, 105 wells: every ln-parameter SD within 15%', () => {
     const { se, sd } = spread(competitive, { mechanism: 'competitive', Vmax: 10, Km: 15, Ki: 1 }, { model: 'proportional', level: 0.05 }, 300);
-    if (process.env.PLAN_PRINT) console.log(se.map((s, j) => (sd[j] / s).toFixed(3)).join(" "));
     se.forEach((s, j) => expect(Math.abs(sd[j] / s - 1), `parameter ${competitive.params[j]}: SD ${sd[j]}, SE ${s}`).toBeLessThan(0.15));
   });
   it('mixed (alpha 4), constant noise: every ln-parameter SD within 15%', () => {
     const { se, sd } = spread(mixed, { mechanism: 'mixed', Vmax: 10, Km: 15, Ki: 1, Kiu: 4 }, { model: 'constant', level: 0.2 }, 300);
-    if (process.env.PLAN_PRINT) console.log(se.map((s, j) => (sd[j] / s).toFixed(3)).join(" "));
     se.forEach((s, j) => expect(Math.abs(sd[j] / s - 1), `parameter ${mixed.params[j]}: SD ${sd[j]}, SE ${s}`).toBeLessThan(0.15));
   });
 });

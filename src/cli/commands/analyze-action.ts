@@ -33,16 +33,6 @@ export interface AnalyzeCliOptions extends SharedCliOptions, ReadsCliOptions {
   km?: string;
 }
 
-/** Km for the Cheng-Prusoff Ki of a one-[S] table, in the table's [S] unit. */
-function kmFor(km: Concentration, table: RateTable): number {
-  try {
-    return atSubstrateFor(km, table);
-  } catch (e) {
-    if (e instanceof UsageError) throw new UsageError(e.message.replace('option --at-substrate', 'option --km'));
-    throw e;
-  }
-}
-
 /** Writes results.json and summary.txt of a one-[S] analysis (no figures yet for this design). */
 function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): void {
   mkdirSync(dir, { recursive: true });
@@ -181,7 +171,7 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
       throw new UsageError(`${file}: some compounds have one [S] level and some several; analyse them one at a time with --compound NAME`);
     const doseResults = single.map((t) => {
       const table = { ...t, source: file };
-      return analyzeSingleSubstrate(table, { level: analysis.level ?? 0.95, ...(km !== undefined ? { km: kmFor(km, table) } : {}) });
+      return analyzeSingleSubstrate(table, { level: analysis.level ?? 0.95, ...(km !== undefined ? { km: atSubstrateFor(km, table, '--km') } : {}) });
     });
     if (out !== null) doseResults.forEach((r, k) => writeDoseResponseFiles(r, folders[k]));
     if (o.json) {
