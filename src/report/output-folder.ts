@@ -15,8 +15,13 @@ import { dirname, join } from 'node:path';
 import { OutputError, writeProblem } from './output-error.js';
 import { temporaryOwner, temporaryPathFor } from './write-atomic.js';
 
-/** What a report folder holds (src/report/write-results.ts writes exactly these). */
-export const REPORT_ENTRIES: ReadonlySet<string> = new Set(['report.html', 'results.json', 'parameters.csv', 'summary.txt', 'figures']);
+/** What a results folder holds: src/report/write-results.ts and `mechanist plan --out` write exactly these. */
+export const REPORT_ENTRIES: ReadonlySet<string> = new Set([
+  // an analysis report folder
+  'report.html', 'results.json', 'parameters.csv', 'summary.txt', 'figures',
+  // a plan folder (mechanist plan --out)
+  'plan.html', 'plan.json', 'plate-map.csv',
+]);
 
 /** Files an operating system's file browser drops into folders it shows; replacing them loses nothing. */
 const FILE_BROWSER_FILES: ReadonlySet<string> = new Set(['.DS_Store', 'Thumbs.db', 'desktop.ini']);

@@ -26,6 +26,26 @@ async function run(args: string[], cwd = process.cwd()) {
 const BASE = ['plan', '--km', '10uM..40uM', '--ki', '50nM..500nM', '--max-substrate', '400uM', '--max-inhibitor', '5uM', '--wells', '48', '--mechanisms', 'competitive,mixed'];
 
 describe('mechanist plan', () => {
+  it('--out that is a file, or a folder of other files, is refused before any planning (exit 2); a rerun replaces the plan whole', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plan-out-'));
+    const file = join(dir, 'a-file');
+    writeFileSync(file, 'x');
+    const asFile = await run([...BASE, '--simulations', '5', '--out', file]);
+    expect(asFile.code).toBe(2);
+    expect(asFile.err).toMatch(/is an existing file, not a folder/);
+    const foreign = join(dir, 'data');
+    // a missing parent folder is refused, and nothing is created
+    expect((await run([...BASE, '--no-simulate', '--out', join(dir, 'data', 'nested')])).code).toBe(2);
+    writeFileSync(join(dir, 'notes.txt'), 'mine');
+    const intoData = await run([...BASE, '--no-simulate', '--out', dir]);
+    expect(intoData.code).toBe(2);
+    expect(intoData.err).toMatch(/holds files that are not part of a report \(a-file, notes\.txt/);
+    expect(existsSync(foreign)).toBe(false);
+    const plan = join(dir, 'plan');
+    expect((await run([...BASE, '--no-simulate', '--out', plan])).code).toBe(0);
+    expect((await run([...BASE, '--no-simulate', '--out', plan])).code).toBe(0);
+    expect(existsSync(join(plan, 'plan.html'))).toBe(true);
+  });
   it('--json --no-simulate: one document, units from the options, the recommended wells add up to the budget', async () => {
     const r = await run([...BASE, '--no-simulate', '--json']);
     expect(r.code).toBe(0);

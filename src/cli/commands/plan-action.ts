@@ -11,7 +11,8 @@ import type { PlanPrior } from '../../plan/plan-prior.js';
 import { planJson } from '../../plan/plan-json.js';
 import { planText } from '../../plan/plan-text.js';
 import { plateMapCsv } from '../../plan/plate-map.js';
-import { writeFileAtomic } from '../../report/write-atomic.js';
+import { writeFileAtomic, writeFolderAtomic } from '../../report/write-atomic.js';
+import { checkOutputFolder, checkReplaceableReportFolder } from '../../report/output-folder.js';
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption, numberList, numberOption, positiveNumber } from '../parse-option-values.js';
@@ -175,6 +176,12 @@ function followUpRequest(o: PlanCliOptions, basis: FollowUpBasis): PlanRequest {
 
 /** Plans, prints and writes, as `mechanist plan` does. */
 export async function runPlan(io: CliIo, o: PlanCliOptions): Promise<void> {
+      // an output folder that cannot take the plan is found before the simulations run
+      const dir = o.out ? resolve(io.cwd, o.out) : null;
+      if (dir !== null) {
+        checkOutputFolder(dir, o.out);
+        checkReplaceableReportFolder(dir, o.out!);
+      }
       const request = planRequestFrom(o, o.from ? await readFollowUp(o, io.cwd) : undefined);
       const bar = io.errIsTTY && request.simulations > 0 ? progressBar('simulating') : null;
       if (bar) request.onProgress = (done, total) => bar.update(done, total);
@@ -191,18 +198,19 @@ export async function runPlan(io: CliIo, o: PlanCliOptions): Promise<void> {
       const csv = plateMapCsv(plan.recommended.points, request.constraints.plate, units);
       const text = planText(plan);
       const json = JSON.stringify(planJson(plan), null, 2) + '\n';
-      if (o.out) {
-        const dir = resolve(io.cwd, o.out);
-        mkdirSync(dir, { recursive: true });
-        writeFileAtomic(resolve(dir, 'plan.json'), json);
-        writeFileAtomic(resolve(dir, 'summary.txt'), text);
-        writeFileAtomic(resolve(dir, 'plate-map.csv'), csv);
+      if (dir !== null) {
         // the page and figure code (d3 on a DOM) is loaded only when a page is written
         const { planFigures } = await import('../../plan/plan-figures.js');
         const { planPage } = await import('../../plan/plan-page.js');
         const figures = planFigures(plan, wellsCurve(request));
-        for (const f of figures) writeFileAtomic(resolve(dir, 'figures', f.file), f.svg);
-        writeFileAtomic(resolve(dir, 'plan.html'), planPage(plan, figures));
+        // the folder appears whole or not at all, as a report folder does
+        writeFolderAtomic(dir, [
+          ['plan.json', json],
+          ['summary.txt', text],
+          ['plate-map.csv', csv],
+          ...figures.map((f) => [`figures/${f.file}`, f.svg] as const),
+          ['plan.html', planPage(plan, figures)],
+        ]);
       }
       if (o.plateMap) writeFileAtomic(resolve(io.cwd, o.plateMap), csv);
       io.out(o.json ? json : text);
