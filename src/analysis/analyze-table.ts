@@ -98,7 +98,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     onProgress: options.onProgress,
   });
   const nested = nestedComparisons(fits);
-  const exclusions = exclusionsOf(models, data);
+  const exclusions = once(() => exclusionsOf(models, data));
   const exact = exactFits(fits, data.v);
   const evidence: VerdictEvidence = { exclusions, exactFits: exact, alphaEstimate: mixedAlpha(models) };
 
@@ -140,7 +140,11 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
   // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
   // A tight-binding call rests on the same exclusion tests, run on the tight-binding mixed fit.
-  const familyVerdict = (m: readonly ModelResult[], n: readonly NestedComparison[], c: readonly Caveat[], d: FitData) => verdictFrom(m, n, c, { exclusions: exclusionsOf(m, d) });
+  const familyExclusions = new WeakMap<readonly ModelResult[], () => AlphaExclusions | null>();
+  const familyVerdict = (m: readonly ModelResult[], n: readonly NestedComparison[], c: readonly Caveat[], d: FitData) => {
+    if (!familyExclusions.has(m)) familyExclusions.set(m, once(() => exclusionsOf(m, d)));
+    return verdictFrom(m, n, c, { exclusions: familyExclusions.get(m)! });
+  };
   const families = runFamilies(table, data, errorModel, fits, level, { enzyme: options.enzyme, partial: options.partial, bootstrap: options.bootstrap }, { rank: rankModels, verdict: familyVerdict }, options.profile !== false);
   const { family, verdict } = familyCallFor(classicVerdict, models, families, data, table);
 
@@ -293,7 +297,7 @@ function checkMagnitudes(table: RateTable): void {
 
 /** What the verdict reads besides the ranking and the nested tests. */
 interface VerdictEvidence {
-  exclusions?: AlphaExclusions | null;
+  exclusions?: AlphaExclusions | null | (() => AlphaExclusions | null);
   exactFits?: ExactFitEvidence[];
   alphaEstimate?: number | null;
 }
@@ -353,6 +357,19 @@ function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null 
     suggestion: `inspect or repeat the down-weighted wells (${which}); exclude a mistyped value and analyse again`,
     leading: true,
     headline: `The call depends on ${n === 1 ? 'one outlying point' : `${n} outlying points`} (${which}): with ${n === 1 ? 'it' : 'them'} down-weighted the data point to ${robust.verdict.mechanism}${robust.verdict.lean ? `, leaning ${robust.verdict.lean}` : ''}, not ${lsVerdict.mechanism}.`,
+  };
+}
+
+/** f, evaluated on the first call only. */
+function once<T>(f: () => T): () => T {
+  let done = false;
+  let value: T;
+  return () => {
+    if (!done) {
+      value = f();
+      done = true;
+    }
+    return value;
   };
 }
 

@@ -67,7 +67,7 @@ interface VerdictInput {
    * one-sided profile tests on alpha of the mixed fit (src/evidence/alpha-exclusion.ts); without
    * them (mixed not fitted) no three-parameter call can be firm
    */
-  exclusions?: AlphaExclusions | null;
+  exclusions?: AlphaExclusions | null | (() => AlphaExclusions | null);
   caveats?: readonly Caveat[];
   /** models that fit the rates exactly (noise-free data), fewest parameters first */
   exactFits?: readonly ExactFitEvidence[];
@@ -227,7 +227,9 @@ export function decideVerdict(input: VerdictInput): Verdict {
   // 4. A three-parameter winner must exclude the mixed alternative it could hide.
   let exclusion: ExclusionFinding | undefined;
   if (winner.mechanism !== 'mixed' && THREE_PARAM.includes(winner.mechanism)) {
-    exclusion = exclusionFinding(winner.mechanism, input.exclusions ?? null);
+    // computed only here, when a three-parameter winner needs them (four constrained refits)
+    const tests = typeof input.exclusions === 'function' ? input.exclusions() : (input.exclusions ?? null);
+    exclusion = exclusionFinding(winner.mechanism, tests);
     const { phrase, hint } = exclusionWords(winner.mechanism, exclusion);
     reasons.push(phrase);
     if (!exclusion.excluded) {
