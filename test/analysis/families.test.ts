@@ -18,8 +18,8 @@ import { oneParameterTest } from '../../src/evidence/family-comparison.js';
 import { morrisonFractions } from '../../src/models/morrison.js';
 import { renderFigures } from '../../src/figures/render-figures.js';
 import { fractionalActivity } from '../../src/figures/fractional-activity.js';
-import { runCli } from '../../src/cli/run-cli.js';
 import type { RatePoint } from '../../src/input/types.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
 const S = [2, 4, 7, 10, 15, 25, 50, 100];
 const sim = (model: string, params: Record<string, number>, inhibitor: number[], seed: number, enzyme?: number): RatePoint[] =>
@@ -154,11 +154,7 @@ describe('command line', () => {
   const dir = mkdtempSync(join(tmpdir(), 'mechanist-families-'));
   const file = join(dir, 'tb.csv');
   writeFileSync(file, ['substrate (uM),inhibitor (nM),rate', ...tbPoints.map((p) => `${p.substrate},${p.inhibitor},${p.rate}`)].join('\n') + '\n');
-  const run = async (args: string[]) => {
-    const io = { stdout: '', stderr: '', errIsTTY: false, cwd: dir, out(t: string) { io.stdout += t; }, err(t: string) { io.stderr += t; } };
-    const code = await runCli(args, io);
-    return { code, out: io.stdout, err: io.stderr };
-  };
+  const run = (args: string[]) => runCaptured(args, dir);
   it('--enzyme 5nM gives the tight-binding call; a value without a unit is a usage error (exit 2)', async () => {
     const ok = await run(['analyze', file, '--error', 'proportional', '--enzyme', '5nM', '--json', '--no-profile']);
     expect(ok.code).toBe(0);

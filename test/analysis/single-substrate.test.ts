@@ -8,18 +8,12 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import { ratesToCsv, simulateRates } from '../../src/simulate/simulate-rates.js';
 import { isSingleSubstrateTable, substrateLevels } from '../../src/analysis/single-substrate.js';
 import { parseRateText } from '../../src/input/index.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function cli(args: string[], cwd: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { out: (t) => void (out += t), err: (t) => void (err += t), errIsTTY: false, cwd };
-  return { code: await runCli(args, io), out, err };
-}
+const cli = runCaptured;
 
 function csvAt(substrate: number[]): string {
   const points = simulateRates({

@@ -8,17 +8,11 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import type { CompoundSummary } from '../../src/batch/types.js';
 import { simulatedCsv } from './batch-inputs.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function cli(args: string[], cwd: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { out: (t) => void (out += t), err: (t) => void (err += t), errIsTTY: false, cwd };
-  return { code: await runCli(args, io), out, err };
-}
+const cli = runCaptured;
 
 /** The same table with [I] written in nM (values x 1000, exact for these levels). */
 function inNanomolar(csv: string): string {

@@ -7,18 +7,11 @@ import { describe, expect, it } from 'vitest';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import type { CompoundSummary } from '../../src/batch/types.js';
 import { compoundColumnCsv, simulatedCsv, writeBatchInputs } from './batch-inputs.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function cli(args: string[], cwd: string): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { out: (t) => void (out += t), err: (t) => void (err += t), errIsTTY: false, cwd };
-  const code = await runCli(args, io);
-  return { code, out, err };
-}
+const cli = runCaptured;
 
 function summaryRows(out: string): CompoundSummary[] {
   return JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).compounds as CompoundSummary[];

@@ -10,6 +10,7 @@ import { pathToFileURL } from 'node:url';
 import type { Page } from 'playwright-core';
 import { runCli } from '../../src/cli/run-cli.js';
 import { foreignRequests, launchChromium, watchPage, type HeadlessBrowser, type PageWatch } from '../helpers/chromium.js';
+import { silentIo } from '../helpers/cli-capture.js';
 
 let browser: HeadlessBrowser;
 let page: Page;
@@ -18,7 +19,7 @@ let out: string;
 
 beforeAll(async () => {
   out = mkdtempSync(join(tmpdir(), 'mechanist-plan-page-'));
-  const io = { out: () => {}, err: () => {}, errIsTTY: false, cwd: out };
+  const io = silentIo(out);
   expect(await runCli(['plan', '--km', '10uM..40uM', '--ki', '50nM..500nM', '--max-substrate', '400uM', '--wells', '48', '--simulations', '2', '--mechanisms', 'competitive,mixed', '--out', out], io)).toBe(0);
   browser = await launchChromium();
   page = await browser.context.newPage();

@@ -16,6 +16,7 @@ import { runCli } from '../../src/cli/run-cli.js';
 import { simulateRates, ratesToCsv } from '../../src/simulate/simulate-rates.js';
 import { foreignRequests, launchChromium, watchPage, type HeadlessBrowser, type PageWatch } from '../helpers/chromium.js';
 import { GOOD_DESIGN, TRUE_PARAMS } from '../helpers/sim-table.js';
+import { silentIo } from '../helpers/cli-capture.js';
 
 let browser: HeadlessBrowser;
 let page: Page;
@@ -24,7 +25,7 @@ let out: string;
 
 beforeAll(async () => {
   out = mkdtempSync(join(tmpdir(), 'mechanist-report-'));
-  expect(await runCli(['demo', '--out', out], { out: () => {}, err: () => {}, errIsTTY: false, cwd: out })).toBe(0);
+  expect(await runCli(['demo', '--out', out], silentIo(out))).toBe(0);
   browser = await launchChromium();
   page = await browser.context.newPage();
   watch = watchPage(page);
@@ -151,7 +152,7 @@ describe('a full analyze report (robust, automatic error model, bootstrap, IC50)
     points[k].rate *= 0.35;
     const csv = ratesToCsv(points, { substrate: 'uM', inhibitor: 'uM' }) + '50,4,plate reader reported an overflow for this well and no value was kept,3\n';
     writeFileSync(join(folder, 'rates.csv'), csv);
-    const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'auto', '--bootstrap', '30', '--seed', '4', '--at-substrate', '20'], { out: () => {}, err: () => {}, errIsTTY: false, cwd: folder });
+    const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'auto', '--bootstrap', '30', '--seed', '4', '--at-substrate', '20'], silentIo(folder));
     expect(code).toBe(0);
     full = await browser.context.newPage();
     fullWatch = watchPage(full);

@@ -3,32 +3,12 @@ import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import { LARGE_FILE_BYTES } from '../../src/cli/commands/analyze-action.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
 const ROOT = join(__dirname, '..', '..');
 
-function capture(cwd = ROOT): CliIo & { stdout: string; stderr: string } {
-  const io = {
-    stdout: '',
-    stderr: '',
-    errIsTTY: false,
-    cwd,
-    out(t: string) {
-      io.stdout += t;
-    },
-    err(t: string) {
-      io.stderr += t;
-    },
-  };
-  return io;
-}
-
-async function run(args: string[], cwd?: string) {
-  const io = capture(cwd);
-  const code = await runCli(args, io);
-  return { code, out: io.stdout, err: io.stderr };
-}
+const run = (args: string[], cwd: string = ROOT) => runCaptured(args, cwd);
 
 function tmp(): string {
   return mkdtempSync(join(tmpdir(), 'mechanist-cli-'));

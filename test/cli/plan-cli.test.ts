@@ -3,25 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, existsSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function run(args: string[], cwd = process.cwd()) {
-  const io: CliIo & { stdout: string; stderr: string } = {
-    stdout: '',
-    stderr: '',
-    errIsTTY: false,
-    cwd,
-    out(t) {
-      io.stdout += t;
-    },
-    err(t) {
-      io.stderr += t;
-    },
-  };
-  const code = await runCli(args, io);
-  return { code, out: io.stdout, err: io.stderr };
-}
+const run = runCaptured;
 
 const BASE = ['plan', '--km', '10uM..40uM', '--ki', '50nM..500nM', '--max-substrate', '400uM', '--max-inhibitor', '5uM', '--wells', '48', '--mechanisms', 'competitive,mixed'];
 

@@ -3,20 +3,11 @@ import { describe, expect, it, beforeAll } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import { simulatePlate } from '../../src/simulate/simulate-plate.js';
 import { parseRateText } from '../../src/input/index.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function run(args: string[], cwd: string) {
-  const io: CliIo & { stdout: string; stderr: string } = {
-    stdout: '', stderr: '', errIsTTY: false, cwd,
-    out(t) { io.stdout += t; },
-    err(t) { io.stderr += t; },
-  };
-  const code = await runCli(args, io);
-  return { code, out: io.stdout, err: io.stderr };
-}
+const run = runCaptured;
 
 let dir = '';
 beforeAll(() => {

@@ -6,16 +6,10 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/run-cli.js';
-import type { CliIo } from '../../src/cli/io.js';
 import { listNames } from '../../src/input/messages.js';
+import { runCaptured } from '../helpers/cli-capture.js';
 
-async function cli(args: string[], cwd = process.cwd()): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: CliIo = { out: (t) => void (out += t), err: (t) => void (err += t), errIsTTY: false, cwd };
-  return { code: await runCli(args, io), out, err };
-}
+const cli = runCaptured;
 
 describe('one style for every error message: "mechanist: ..." on one line, exit 2 for usage', () => {
   const cases: Array<[string[], string]> = [

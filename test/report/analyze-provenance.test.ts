@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { JSDOM } from 'jsdom';
 import { runCli } from '../../src/cli/run-cli.js';
 import { demoDataPath } from '../../src/cli/package-paths.js';
+import { silentIo } from '../helpers/cli-capture.js';
 
 let dir: string;
 let footer: Map<string, string>;
@@ -17,7 +18,7 @@ let footer: Map<string, string>;
 beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'mechanist-analyze-'));
   copyFileSync(demoDataPath(), join(dir, 'rates.csv'));
-  const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'proportional', '--seed', '5'], { out: () => {}, err: () => {}, errIsTTY: false, cwd: dir });
+  const code = await runCli(['analyze', 'rates.csv', '--out', 'out', '--robust', '--error', 'proportional', '--seed', '5'], silentIo(dir));
   expect(code).toBe(0);
   const doc = new JSDOM(readFileSync(join(dir, 'out', 'report.html'), 'utf8')).window.document;
   const terms = Array.from(doc.querySelectorAll('footer#provenance dt')).map((dt) => dt.textContent ?? '');

@@ -10,6 +10,7 @@ import { join, relative } from 'node:path';
 import { runCli } from '../../src/cli/run-cli.js';
 import { packageRoot } from '../../src/cli/package-paths.js';
 import { DATE_ELEMENT_PATTERN } from '../../src/report/html/sections/provenance-footer.js';
+import { silentIo } from '../helpers/cli-capture.js';
 
 const committed = join(packageRoot(), 'reports', 'demo');
 let fresh: string;
@@ -23,7 +24,7 @@ function files(dir: string): string[] {
 
 beforeAll(async () => {
   fresh = mkdtempSync(join(tmpdir(), 'mechanist-demo-'));
-  const code = await runCli(['demo', '--out', fresh], { out: () => {}, err: () => {}, errIsTTY: false, cwd: fresh });
+  const code = await runCli(['demo', '--out', fresh], silentIo(fresh));
   expect(code).toBe(0);
 });
 afterAll(() => rmSync(fresh, { recursive: true, force: true }));
