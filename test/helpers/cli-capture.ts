@@ -5,7 +5,7 @@
 import { runCli } from '../../src/cli/run-cli.js';
 import type { CliIo } from '../../src/cli/io.js';
 
-export interface CapturedRun {
+interface CapturedRun {
   code: number;
   out: string;
   err: string;
