@@ -100,6 +100,21 @@ describe('mechanist plan --from', () => {
     expect(doc.recommended.wellCount).toBe(24);
     expect(doc.notes.join(' ')).toMatch(/follow-up of/);
   });
+  it('without --error the table is analysed as analyze does by default (auto), and the plan says which noise it took', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-auto-'));
+    const sim = await run(['simulate', '--mechanism', 'competitive', '--km', '20', '--ki', '0.5', '--substrate', '4,8,16,32,64', '--inhibitor', '0,0.5,1.5', '--replicates', '3', '--noise', 'proportional', '--seed', '8', '-o', join(dir, 'plate.csv')]);
+    expect(sim.code).toBe(0);
+    const analysed = JSON.parse((await run(['analyze', join(dir, 'plate.csv'), '--json'])).out);
+    const chosen = analysed.errorModel as string;
+    expect(['constant', 'proportional']).toContain(chosen);
+    const r = await run(['plan', '--from', join(dir, 'plate.csv'), '--wells', '24', '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).notes.join(' ')).toContain(`noise ${chosen} `);
+    const bad = await run(['plan', '--from', join(dir, 'plate.csv'), '--error', 'sqrt']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toContain('is not auto, constant or proportional');
+  });
+
   it('usage errors: --from with --km, a JSON that is not an analysis', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
     writeFileSync(join(dir, 'x.json'), '{"a": 1}');

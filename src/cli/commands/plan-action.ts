@@ -20,6 +20,8 @@ import { progressBar } from '../progress-bar.js';
 import { readFile } from 'node:fs/promises';
 import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
+import type { AnalysisResult } from '../../analysis/types.js';
+import type { RateTable } from '../../input/types.js';
 import { followUpBasis, summaryFromJson, summaryFromResult, type FollowUpBasis } from '../../plan/follow-up.js';
 import { chooseTables } from './analyze-action.js';
 import { wellsCurve } from '../../plan/wells-curve.js';
@@ -91,14 +93,31 @@ async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBas
       return bad(e);
     }
   }
-  if (o.error !== 'constant' && o.error !== 'proportional') throw new UsageError(`option --error: "${o.error}" is not constant or proportional`);
+  if (o.error !== 'auto' && o.error !== 'constant' && o.error !== 'proportional')
+    throw new UsageError(`option --error: "${o.error}" is not auto, constant or proportional`);
   const [table] = chooseTables(await readRateFile(path), o.compound, o.from!);
-  const result = analyzeTable(table, { errorModel: o.error, detail: 'summary' });
+  const result = analyzeForPlanning(table, o.error);
   try {
     return followUpBasis(summaryFromResult(result));
   } catch (e) {
     return bad(e);
   }
+}
+
+/**
+ * The analysis a follow-up plan starts from. The planner simulates constant or proportional noise, so
+ * 'auto' (the default, as for `analyze`) is the choice by likelihood between those two: when `analyze`'s
+ * own choice falls on another error model, the better of the two by best AICc is used instead.
+ */
+function analyzeForPlanning(table: RateTable, error: 'auto' | 'constant' | 'proportional'): AnalysisResult {
+  if (error !== 'auto') return analyzeTable(table, { errorModel: error, detail: 'summary' });
+  const result = analyzeTable(table, { errorModel: 'auto', detail: 'summary' });
+  if (result.errorModel === 'constant' || result.errorModel === 'proportional') return result;
+  const plannable = (result.errorModelChoice?.scores ?? [])
+    .filter((s) => s.errorModel === 'constant' || s.errorModel === 'proportional')
+    .sort((a, b) => a.bestAicc - b.bestAicc);
+  const errorModel = plannable[0]?.errorModel === 'proportional' ? 'proportional' : 'constant';
+  return analyzeTable(table, { errorModel, detail: 'summary' });
 }
 
 /** Builds the library request from the options (exported for tests); `basis` from --from. */

@@ -30,7 +30,7 @@ export function planCommand(io: CliIo): Command {
     .option('--out <dir>', 'write plan.html (with figures/), plan.json, summary.txt and plate-map.csv into this folder')
     .option('--plate-map <file>', 'write the recommended plate map (CSV) to this file')
     .option('--from <file>', 'plan a follow-up from a rate table (the wells to add) or from the JSON of an analysis')
-    .option('--error <model>', 'with --from a rate table: the error model of its analysis, constant or proportional', 'constant')
+    .option('--error <model>', 'with --from a rate table: the error model of its analysis, auto (the better of constant and proportional by likelihood), constant or proportional', 'auto')
     .option('--compound <name>', 'with --from: the compound of a multi-compound file')
     .action(async (o: PlanCliOptions) => (await import('./plan-action.js')).runPlan(io, o));
 }
