@@ -11,8 +11,8 @@ import type { MechanismModel } from '../models/types.js';
 import { containmentOf, embedByRules, modelId } from '../models/registry.js';
 import type { ErrorModel } from './error-models.js';
 import { maxInhibitor, type FitData } from './fit-data.js';
-import { domainEdge, fitAtParams, fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
-import { weightedSseAt } from './weighted-sse.js';
+import { fitMechanism, type FitOptions, type MechanismFit } from './fit-mechanism.js';
+import { respectNesting } from './nesting-limit.js';
 
 /** A constant far above the tested inhibitor range, used to start an arm "switched off". */
 function farConstant(data: FitData): number {
@@ -37,35 +37,6 @@ function warmStarts(model: MechanismModel, done: Map<string, MechanismFit>, data
   return starts;
 }
 
-/**
- * The nesting check: at the fuller model's final weights, no nested solution may have a lower SSE,
- * since the nested solution is a limit of the fuller model. Where one does, the search stalled
- * (typically with a constant run off to where its gradient vanishes), and the fuller model's fit
- * is replaced by that solution embedded, the extra constant at the edge of its domain (reported as
- * "not detected" downstream). With fixed weights this is simply SSE_fuller <= SSE_nested.
- */
-function respectNesting(fit: MechanismFit, done: Map<string, MechanismFit>, data: FitData, errorModel: ErrorModel, options: Pick<FitOptions, 'weightMultipliers'>): MechanismFit {
-  let best = fit;
-  let bestSse = fit.sse;
-  for (const nested of done.values()) {
-    const embedded = embedByRules(nested.model, fit.model, nested.params, (name) => domainEdge(fit.model, data, name));
-    if (!embedded) continue;
-    const sse = weightedSseAt(fit.model, data, embedded, fit.weights);
-    if (!(sse < bestSse)) continue;
-    bestSse = sse;
-    const candidate = fitAtParams(
-      fit.model,
-      data,
-      errorModel,
-      embedded,
-      `Best fit is a limit of this model: the ${nested.mechanism} solution with the extra constant switched off.`,
-      options.weightMultipliers,
-    );
-    best = { ...candidate, startsTried: fit.startsTried, startsReachingBest: fit.startsReachingBest, reweightPasses: fit.reweightPasses };
-  }
-  return best;
-}
-
 /** Fits all registered mechanisms; results in registry order (simplest first). */
 export function fitAllMechanisms(
   data: FitData,
@@ -76,7 +47,7 @@ export function fitAllMechanisms(
   const done = new Map<string, MechanismFit>();
   for (const model of models) {
     const fit = fitMechanism(model, data, errorModel, { ...options, extraStarts: warmStarts(model, done, data) });
-    done.set(modelId(model), respectNesting(fit, done, data, errorModel, options));
+    done.set(modelId(model), respectNesting(fit, done.values(), data, errorModel, options.weightMultipliers));
   }
   return models.map((m) => done.get(modelId(m))!);
 }

@@ -7,16 +7,14 @@
  *    vanishing beta at 0.01, and from the classic model of the same mechanism (same parameter
  *    names; tight-binding constants also at 1/5, since the classic fit of tight-binding
  *    data overestimates them; partial models also with beta 0.2 and 0.5);
- *  - nesting check: at the model's final weights no contained solution, embedded at the edge of
- *    the domain, may have a lower SSE; where one does, that embedding replaces the fit (as
- *    src/fit/fit-all-mechanisms.ts does for the classic five).
+ *  - the nesting check of src/fit/nesting-limit.ts, as for the classic five.
  */
 import type { MechanismModel, ParamName } from '../models/types.js';
-import { embedByRules, modelId } from '../models/registry.js';
+import { embedByRules } from '../models/registry.js';
 import type { ErrorModel } from './error-models.js';
 import { maxInhibitor, type FitData } from './fit-data.js';
-import { domainEdge, domainLowEdge, fitAtParams, fitMechanism, type MechanismFit } from './fit-mechanism.js';
-import { weightedSseAt } from './weighted-sse.js';
+import { fitMechanism, type MechanismFit } from './fit-mechanism.js';
+import { respectNesting } from './nesting-limit.js';
 
 function classicCounterpartStarts(model: MechanismModel, classic: readonly MechanismFit[]): number[][] {
   const same = classic.find((f) => f.mechanism === model.mechanism);
@@ -47,12 +45,7 @@ export function fitFamily(models: readonly MechanismModel[], data: FitData, erro
     }
     warm.push(...classicCounterpartStarts(model, classic));
     let fit = fitMechanism(model, data, errorModel, { extraStarts: warm });
-    for (const f of done) {
-      const e = embedByRules(f.model, model, f.params, (name, to) => (to === 'zero' ? domainLowEdge(model, data, name) : domainEdge(model, data, name)));
-      if (!e || !(weightedSseAt(model, data, e, fit.weights) < fit.sse)) continue;
-      const replaced = fitAtParams(model, data, errorModel, e, `Best fit is a limit of this model: the ${modelId(f.model)} solution.`);
-      fit = { ...replaced, startsTried: fit.startsTried, startsReachingBest: fit.startsReachingBest, reweightPasses: fit.reweightPasses };
-    }
+    fit = respectNesting(fit, done, data, errorModel);
     done.push(fit);
     out.push(fit);
   }
