@@ -24,7 +24,7 @@ export const partialMixed: MechanismModel = {
   label: 'partial mixed',
   equation: 'v = Vmax·S·(1 + beta·I/Kiu) / (Km·(1 + I/Ki) + S·(1 + I/Kiu))',
   params: ['Vmax', 'Km', 'Ki', 'Kiu', 'beta'],
-  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor', offAt: 'infinity' }, { name: 'Kiu', dimension: 'inhibitor', offAt: 'infinity' }, { name: 'beta', dimension: 'dimensionless', offAt: 'zero' }],
+  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor' }, { name: 'Kiu', dimension: 'inhibitor' }, { name: 'beta', dimension: 'dimensionless' }],
   contains: [
     { model: 'mixed', rules: [{ kind: 'limit', param: 'beta', to: 'zero' }] },
     { model: 'partial noncompetitive', rules: [{ kind: 'equal', param: 'Kiu', sameAs: 'Ki' }] },
@@ -64,7 +64,7 @@ export const partialNoncompetitive: MechanismModel = {
   label: 'partial noncompetitive',
   equation: 'v = Vmax·S/(Km + S) · (1 + beta·I/Ki)/(1 + I/Ki)',
   params: ['Vmax', 'Km', 'Ki', 'beta'],
-  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor', offAt: 'infinity' }, { name: 'beta', dimension: 'dimensionless', offAt: 'zero' }],
+  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor' }, { name: 'beta', dimension: 'dimensionless' }],
   contains: [{ model: 'noncompetitive', rules: [{ kind: 'limit', param: 'beta', to: 'zero' }] }],
   capabilities: { residualActivity: (p) => p[3] },
   rate(p, s, i) {
@@ -92,7 +92,7 @@ export const partialCompetitive: MechanismModel = {
   label: 'partial competitive',
   equation: 'v = Vmax·S·(1 + I/Kiu) / (Km·(1 + I/Ki) + S·(1 + I/Kiu))',
   params: ['Vmax', 'Km', 'Ki', 'Kiu'],
-  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor', offAt: 'infinity' }, { name: 'Kiu', dimension: 'inhibitor', offAt: 'infinity' }],
+  specs: [...VM_KM, { name: 'Ki', dimension: 'inhibitor' }, { name: 'Kiu', dimension: 'inhibitor' }],
   contains: [{ model: 'competitive', rules: [{ kind: 'limit', param: 'Kiu', to: 'infinity' }] }],
   capabilities: { residualActivity: (p, s) => (p[1] + s) / ((p[1] * p[3]) / p[2] + s) },
   rate(p, s, i) {

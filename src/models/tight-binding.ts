@@ -81,7 +81,6 @@ function tightBindingModel(mechanism: TightMechanism, enzyme: 'given' | 'fitted'
   const specs: ParamSpec[] = params.map((name) => ({
     name,
     dimension: name === 'Vmax' ? 'rate' : name === 'Km' ? 'substrate' : name === 'Et' ? 'enzyme' : 'inhibitor',
-    ...(name === 'Ki' || name === 'Kiu' ? { offAt: 'infinity' as const } : {}),
   }));
   const nc = constants.length;
   const cView = new Float64Array(nc);

@@ -33,8 +33,6 @@ export type ParamDimension = 'rate' | 'substrate' | 'inhibitor' | 'enzyme' | 'di
 export interface ParamSpec {
   name: ParamName;
   dimension: ParamDimension;
-  /** the value that switches this parameter's effect off, when there is one (nesting limits) */
-  offAt?: 'zero' | 'infinity';
 }
 
 /**

@@ -25,8 +25,8 @@ const toy: MechanismModel = {
   specs: [
     { name: 'Vmax', dimension: 'rate' },
     { name: 'Km', dimension: 'substrate' },
-    { name: 'Kiu', dimension: 'inhibitor', offAt: 'infinity' },
-    { name: 'beta', dimension: 'dimensionless', offAt: 'zero' },
+    { name: 'Kiu', dimension: 'inhibitor' },
+    { name: 'beta', dimension: 'dimensionless' },
   ],
   contains: [{ model: 'uncompetitive', rules: [{ kind: 'limit', param: 'beta', to: 'zero' }] }],
   rate(p, s, i) {
