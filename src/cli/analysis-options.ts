@@ -98,10 +98,14 @@ function familyOptionsFrom(o: Pick<SharedCliOptions, 'enzyme' | 'partial'>): Ana
     const text = o.enzyme.trim();
     if (text === 'fit') out.enzyme = 'fit';
     else {
-      const m = /^([0-9]*\.?[0-9]+(?:[eE][+-]?[0-9]+)?)\s*(\S+)?$/.exec(text);
-      if (!m) throw new UsageError(`option --enzyme: "${o.enzyme}" is not a concentration with a unit (for example 5nM) or "fit"`);
-      if (!m[2]) throw new UsageError(`option --enzyme: "${o.enzyme}" needs a unit (M, mM, uM, nM or pM), for example ${m[1]}nM`);
-      out.enzyme = { value: Number(m[1]), unit: unitOption('--enzyme', m[2]) };
+      let c: Concentration;
+      try {
+        c = concentrationOption('--enzyme', text);
+      } catch {
+        throw new UsageError(`option --enzyme: "${o.enzyme}" is not a positive concentration with a unit (for example 5nM) or "fit"`);
+      }
+      if (c.unit === null) throw new UsageError(`option --enzyme: "${o.enzyme}" needs a unit (M, mM, uM, nM or pM), for example ${c.value}nM`);
+      out.enzyme = { value: c.value, unit: c.unit };
     }
   }
   return out;

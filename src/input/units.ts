@@ -86,12 +86,19 @@ export interface Concentration {
 }
 
 /**
- * Reads `25uM`, `25 uM`, `2.5e-5 M` or a plain `25` (unit null: the caller's unit applies). The
- * unit is read by parseConcentrationUnit (micro, nano and pico in any case). Throws InputError.
+ * Reads `25uM`, `25 uM`, `2.5e-5 M` or a plain `25` (unit null: the caller's unit applies; with
+ * `unitRequired` a plain number is refused). The unit is read by parseConcentrationUnit (micro, nano
+ * and pico in any case). Throws InputError.
  */
-export function parseConcentration(text: string): Concentration {
+export function parseConcentration(text: string, options: { unitRequired?: boolean } = {}): Concentration {
   const m = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(\S*)\s*$/.exec(text);
-  if (m === null) throw new InputError(`${quoteText(text)} is not a concentration; write a number with an optional unit, e.g. 25uM`, '');
+  if (m === null || (options.unitRequired && m[2] === ''))
+    throw new InputError(
+      options.unitRequired
+        ? `${quoteText(text)} is not a concentration with its unit (for example 20uM)`
+        : `${quoteText(text)} is not a concentration; write a number with an optional unit, e.g. 25uM`,
+      '',
+    );
   const value = Number(m[1]);
   return { value, unit: m[2] === '' ? null : parseConcentrationUnit(m[2]) };
 }

@@ -10,7 +10,7 @@ export { priorPoints, type PlanPrior } from './plan-prior.js';
 export { plateMapCsv, plateWells, type PlateWell } from './plate-map.js';
 export { planJson } from './plan-json.js';
 export { planText } from './plan-text.js';
-export { parseConcentration, parseConcentrationRange } from './concentration-text.js';
+export { parseConcentrationRange } from './concentration-text.js';
 export type { Design, DesignPoint, PlanNoise, PriorPoint } from './design-types.js';
 export { planFigures, type WellsCurvePoint } from './plan-figures.js';
 export { planPage } from './plan-page.js';

@@ -162,6 +162,14 @@ describe('command line', () => {
     const bad = await run(['analyze', file, '--enzyme', '5']);
     expect(bad.code).toBe(2);
     expect(bad.err).toMatch(/--enzyme: "5" needs a unit/);
+    for (const text of ['abc', '0nM']) {
+      const r = await run(['analyze', file, '--enzyme', text]);
+      expect(r.code).toBe(2);
+      expect(r.err).toBe(`mechanist: option --enzyme: "${text}" is not a positive concentration with a unit (for example 5nM) or "fit"\n`);
+    }
+    // the unit is read by the same reader as every other concentration: any case where unambiguous
+    const lower = await run(['analyze', file, '--error', 'proportional', '--enzyme', '5nm', '--json', '--no-profile']);
+    expect(JSON.parse(lower.out).verdict.family).toBe(JSON.parse(ok.out).verdict.family);
   });
   it('a bad enzyme cell stops with file and line (exit 2)', async () => {
     const f = join(dir, 'bad.csv');

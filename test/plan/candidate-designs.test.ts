@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { commonGridShape, geometricLevels, schemeLevels } from '../../src/plan/candidate-designs.js';
 import { plateMapCsv, plateWells, wellName } from '../../src/plan/plate-map.js';
-import { parseConcentration, parseConcentrationRange } from '../../src/plan/concentration-text.js';
+import { parseConcentrationRange, parseUnitConcentration } from '../../src/plan/concentration-text.js';
 import { priorPoints } from '../../src/plan/plan-prior.js';
 
 describe('levels', () => {
@@ -66,14 +66,14 @@ describe('plate map', () => {
 
 describe('concentrations on the command line', () => {
   it('reads a value with its unit and ranges', () => {
-    expect(parseConcentration('20uM')).toEqual({ value: 20, unit: 'uM' });
-    expect(parseConcentration('0.5 mM')).toEqual({ value: 0.5, unit: 'mM' });
+    expect(parseUnitConcentration('20uM')).toEqual({ value: 20, unit: 'uM' });
+    expect(parseUnitConcentration('0.5 mM')).toEqual({ value: 0.5, unit: 'mM' });
     expect(parseConcentrationRange('10nM..0.5uM')).toEqual({ range: [0.01, 0.5], unit: 'uM' });
     expect(parseConcentrationRange('10..40uM')).toEqual({ range: [10, 40], unit: 'uM' });
   });
   it('refuses text without a unit, an unknown unit, a reversed range', () => {
-    expect(() => parseConcentration('20')).toThrow(/with its unit/);
-    expect(() => parseConcentration('20 kM')).toThrow(/unknown concentration unit/);
+    expect(() => parseUnitConcentration('20')).toThrow(/with its unit/);
+    expect(() => parseUnitConcentration('20 kM')).toThrow(/unknown concentration unit/);
     expect(() => parseConcentrationRange('40uM..10uM')).toThrow(/low end/);
   });
 });

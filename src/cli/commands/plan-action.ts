@@ -4,7 +4,8 @@ import { mkdirSync } from 'node:fs';
 import { MECHANISMS } from '../../models/index.js';
 import type { Mechanism } from '../../models/types.js';
 import type { ConcentrationUnit } from '../../input/types.js';
-import { inUnit, parseConcentration, parseConcentrationRange } from '../../plan/concentration-text.js';
+import { parseConcentrationRange, parseUnitConcentration } from '../../plan/concentration-text.js';
+import { concentrationIn as inUnit } from '../../input/units.js';
 import { planExperiment, type PlanRequest } from '../../plan/plan-experiment.js';
 import type { DilutionScheme } from '../../plan/candidate-designs.js';
 import type { PlanPrior } from '../../plan/plan-prior.js';
@@ -37,7 +38,7 @@ function usage<T>(option: string, f: () => T): T {
 }
 
 function concentrationIn(option: string, text: string, unit: ConcentrationUnit): number {
-  return usage(option, () => inUnit(parseConcentration(text), unit));
+  return usage(option, () => inUnit(parseUnitConcentration(text), unit));
 }
 
 function mechanismsOption(text: string | undefined): Mechanism[] {
