@@ -8,9 +8,9 @@
  */
 const LAYERS = [
   ['text', '^src/(text/|version\\.ts$)'], // formatting and the version string: import nothing
+  ['stats', '^src/stats/'], // pure statistics: distributions, tests, ranks (imports nothing of the project)
   ['input', '^src/input/'], // rate tables from files
   ['reads', '^src/reads/'], // kinetic plate reads -> rate table (a front end of input)
-  ['stats', '^src/stats/'], // pure statistics: distributions, tests, ranks
   ['models', '^src/models/'], // the rate equations
   ['fit', '^src/fit/'], // least squares and what it leaves (covariance, leverages)
   ['simulate', '^src/simulate/'], // simulated rates and plates from the models; the seeded random source

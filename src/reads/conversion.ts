@@ -10,7 +10,7 @@
  *   fit is checked for linearity by the t test of an added quadratic term (Draper & Smith (1998)
  *   Applied Regression Analysis, 3rd ed., ch. 12, lack of fit by a higher-order term).
  */
-import tCdfStdlib from '@stdlib/stats-base-dists-t-cdf';
+import { tCdf } from '../stats/distributions.js';
 import { InputError, type ConcentrationUnit } from '../input/types.js';
 import { formatNumber, locate, quoteText } from '../input/messages.js';
 import { parseConcentrationUnit, unitShift } from '../input/units.js';
@@ -202,7 +202,7 @@ export function quadraticFit(x: readonly number[], y: readonly number[], n: numb
   if (df > 0 && s22 > 0) {
     seC = Math.sqrt(sse / df / s22);
     const t = Math.abs(c) / seC;
-    p = seC > 0 ? 2 * tCdfStdlib(-t, df) : c === 0 ? 1 : 0;
+    p = seC > 0 ? 2 * tCdf(-t, df) : c === 0 ? 1 : 0;
     if (!Number.isFinite(p)) p = 0;
   }
   // y = my + (b1 - c g) d + c (d^2 - mean2): slope at x is b1 - c g + 2 c (x - mx)

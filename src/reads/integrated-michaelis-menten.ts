@@ -11,7 +11,7 @@
  * mixing (an offset the blank does not remove). Parameters are fitted on the log scale for Vmax and
  * Km (both positive) by Levenberg-Marquardt (Marquardt (1963) J. SIAM 11, 431-441).
  */
-import tQuantileStdlib from '@stdlib/stats-base-dists-t-quantile';
+import { tQuantile } from '../stats/distributions.js';
 import { wrightOmega } from './lambert-w.js';
 
 /** Product formed by time t (same concentration unit as S0 and Km; t in the unit of Vmax's time). */
@@ -220,7 +220,7 @@ export function fitIntegratedCurve(
     const varLnV0 = s2 * (inv[4] + 2 * g * inv[5] + g * g * inv[8]);
     seV0 = v0 * Math.sqrt(Math.max(0, varLnV0));
   }
-  const tq = tQuantileStdlib(0.5 + level / 2, df);
+  const tq = tQuantile(0.5 + level / 2, df);
   return {
     vmax,
     km,

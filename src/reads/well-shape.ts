@@ -13,7 +13,7 @@
  * Michaelis-Menten enzyme by at most the fraction used (the limit [S] << Km, where v is
  * proportional to [S]).
  */
-import tCdfStdlib from '@stdlib/stats-base-dists-t-cdf';
+import { tCdf } from '../stats/distributions.js';
 import { quadraticFit } from './conversion.js';
 import { formatNumber } from '../input/messages.js';
 import { BURST_FACTOR, BURST_MIN_DECLINE, MIN_WINDOW_READS, SATURATION_RUN, SHAPE_P } from './thresholds.js';
@@ -55,7 +55,7 @@ export function shapeFlags(
   const allowed = Math.max(BURST_MIN_DECLINE, BURST_FACTOR * used);
   // H0: the decline is at most `allowed`, i.e. c * direction >= -allowed s0 / (2 span)
   const t = (q.c * direction + (allowed * s0) / (2 * span0)) / q.seC;
-  const p = tCdfStdlib(t, n - 3);
+  const p = tCdf(t, n - 3);
   if (p < SHAPE_P) {
     return [{
       code: 'burst',
