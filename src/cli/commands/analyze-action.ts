@@ -19,7 +19,6 @@ import { analyzeSingleSubstrate, isSingleSubstrateTable, type SingleSubstrateRes
 import { doseResponseFiles, doseResponseJson, doseResponseText } from '../../report/dose-response-output.js';
 import { writeFileAtomic } from '../../report/write-atomic.js';
 import { concentrationOption } from '../parse-option-values.js';
-import type { Concentration } from '../../input/units.js';
 import { uniqueFolderNames } from '../../batch/plan-compounds.js';
 import { checkOutputFolder, checkReplaceableReportFolder } from '../../report/output-folder.js';
 import { removeStaleTemporaries } from '../../report/write-atomic.js';

@@ -1,6 +1,5 @@
 /** `mechanist plan`: the [S] x [I] design that most likely decides, checked through the analysis. */
 import { resolve } from 'node:path';
-import { mkdirSync } from 'node:fs';
 import { MECHANISMS } from '../../models/index.js';
 import type { Mechanism } from '../../models/types.js';
 import type { ConcentrationUnit } from '../../input/types.js';
@@ -121,7 +120,7 @@ function analyzeForPlanning(table: RateTable, error: 'auto' | 'constant' | 'prop
   return analyzeTable(table, { errorModel, detail: 'summary' });
 }
 
-/** Builds the library request from the options (exported for tests); `basis` from --from. */
+/** Builds the library request from the options; `basis` from --from (readFollowUp has refused --km, --ki and --ic50 with it). */
 function planRequestFrom(o: PlanCliOptions, basis?: FollowUpBasis): PlanRequest {
   if (basis) return followUpRequest(o, basis);
   if (!o.km) throw new UsageError('option --km is required (a value such as 20uM or a range such as 10uM..40uM)');
@@ -175,7 +174,6 @@ function commonSettings(o: PlanCliOptions, iUnit: ConcentrationUnit) {
 
 /** A follow-up: prior, mechanisms and noise from the earlier analysis (--mechanisms and --noise override). */
 function followUpRequest(o: PlanCliOptions, basis: FollowUpBasis): PlanRequest {
-  if (o.km || o.ki || o.ic50) throw new UsageError('option --from takes Km and the inhibition constants from the analysis: leave out --km, --ki and --ic50');
   const notes = [...basis.notes];
   const units = { substrate: basis.units.substrate ?? 'uM', inhibitor: basis.units.inhibitor ?? 'uM' } as const;
   if (!basis.units.substrate || !basis.units.inhibitor) notes.push('the analysed table gives no concentration unit; the plan uses its numbers as they are (labelled uM)');
@@ -196,42 +194,42 @@ function followUpRequest(o: PlanCliOptions, basis: FollowUpBasis): PlanRequest {
 
 /** Plans, prints and writes, as `mechanist plan` does. */
 export async function runPlan(io: CliIo, o: PlanCliOptions): Promise<void> {
-      // an output folder that cannot take the plan is found before the simulations run
-      const dir = o.out ? resolve(io.cwd, o.out) : null;
-      if (dir !== null) {
-        checkOutputFolder(dir, o.out);
-        checkReplaceableReportFolder(dir, o.out!);
-      }
-      const request = planRequestFrom(o, o.from ? await readFollowUp(o, io.cwd) : undefined);
-      const bar = io.errIsTTY && request.simulations > 0 ? progressBar('simulating') : null;
-      if (bar) request.onProgress = (done, total) => bar.update(done, total);
-      let plan;
-      try {
-        plan = planExperiment(request);
-      } catch (e) {
-        bar?.finish();
-        if (e instanceof Error && !(e instanceof UsageError)) throw new UsageError(`cannot plan: ${e.message}`);
-        throw e;
-      }
-      bar?.finish();
-      const units = { substrate: request.units.substrate, inhibitor: request.units.inhibitor };
-      const csv = plateMapCsv(plan.recommended.points, request.constraints.plate, units);
-      const text = planText(plan);
-      const json = JSON.stringify(planJson(plan), null, 2) + '\n';
-      if (dir !== null) {
-        // the page and figure code (d3 on a DOM) is loaded only when a page is written
-        const { planFigures } = await import('../../plan/plan-figures.js');
-        const { planPage } = await import('../../plan/plan-page.js');
-        const figures = planFigures(plan, wellsCurve(request));
-        // the folder appears whole or not at all, as a report folder does
-        writeFolderAtomic(dir, [
-          ['plan.json', json],
-          ['summary.txt', text],
-          ['plate-map.csv', csv],
-          ...figures.map((f) => [`figures/${f.file}`, f.svg] as const),
-          ['plan.html', planPage(plan, figures)],
-        ]);
-      }
-      if (o.plateMap) writeFileAtomic(resolve(io.cwd, o.plateMap), csv);
-      io.out(o.json ? json : text);
+  // an output folder that cannot take the plan is found before the simulations run
+  const dir = o.out ? resolve(io.cwd, o.out) : null;
+  if (dir !== null) {
+    checkOutputFolder(dir, o.out);
+    checkReplaceableReportFolder(dir, o.out!);
+  }
+  const request = planRequestFrom(o, o.from ? await readFollowUp(o, io.cwd) : undefined);
+  const bar = io.errIsTTY && request.simulations > 0 ? progressBar('simulating') : null;
+  if (bar) request.onProgress = (done, total) => bar.update(done, total);
+  let plan;
+  try {
+    plan = planExperiment(request);
+  } catch (e) {
+    bar?.finish();
+    if (e instanceof Error && !(e instanceof UsageError)) throw new UsageError(`cannot plan: ${e.message}`);
+    throw e;
+  }
+  bar?.finish();
+  const units = { substrate: request.units.substrate, inhibitor: request.units.inhibitor };
+  const csv = plateMapCsv(plan.recommended.points, request.constraints.plate, units);
+  const text = planText(plan);
+  const json = JSON.stringify(planJson(plan), null, 2) + '\n';
+  if (dir !== null) {
+    // the page and figure code (d3 on a DOM) is loaded only when a page is written
+    const { planFigures } = await import('../../plan/plan-figures.js');
+    const { planPage } = await import('../../plan/plan-page.js');
+    const figures = planFigures(plan, wellsCurve(request));
+    // the folder appears whole or not at all, as a report folder does
+    writeFolderAtomic(dir, [
+      ['plan.json', json],
+      ['summary.txt', text],
+      ['plate-map.csv', csv],
+      ...figures.map((f) => [`figures/${f.file}`, f.svg] as const),
+      ['plan.html', planPage(plan, figures)],
+    ]);
+  }
+  if (o.plateMap) writeFileAtomic(resolve(io.cwd, o.plateMap), csv);
+  io.out(o.json ? json : text);
 }
