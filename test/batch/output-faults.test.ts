@@ -75,6 +75,18 @@ function expectCompleteReports(out: string): string[] {
 
 const BATCH = ['batch', 'plates', 'loose-noncompetitive.csv', 'screen.csv'];
 
+/**
+ * A run long enough that a kill or a second run is sure to land while it holds its lock, however
+ * fast the analysis gets: LONG_COMPOUNDS compounds in one file, written once. With reports on one
+ * worker that is several seconds at the batch benchmark's target rate (docs/benchmarks.md).
+ */
+const LONG_COMPOUNDS = 40;
+const LONG_BATCH = ['batch', 'long-screen.csv'];
+writeFileSync(
+  join(inputs.root, 'long-screen.csv'),
+  compoundColumnCsv(Array.from({ length: LONG_COMPOUNDS }, (_, k) => [`LS-${String(k + 1).padStart(3, '0')}`, simulatedCsv('competitive', { Vmax: 100, Km: 10, Ki: 0.5 + k / 40 }, 100 + k)] as [string, string])),
+);
+
 beforeAll(() => {
   if (!existsSync(mainJs)) throw new Error('dist/ is missing: run `npx tsc -p tsconfig.json` first (npm test does)');
 });
@@ -193,8 +205,8 @@ describe('interrupted runs', () => {
     for (const [k, delay] of delays.entries()) {
       const out = `kill-${k}`;
       const dir = join(inputs.root, out);
-      const child = start([...BATCH, '--out', out, '--reports', '--jobs', '2']);
-      // the first kill lands while the run holds its lock, so that the takeover below is tested
+      // the first kill lands while a long run holds its lock, so that the takeover below is tested
+      const child = start([...(k === 0 ? LONG_BATCH : BATCH), '--out', out, '--reports', '--jobs', k === 0 ? '1' : '2']);
       if (k === 0) for (let waited = 0; !existsSync(join(dir, '.mechanist-run.lock')) && waited < 20_000; waited += 20) await sleep(20);
       await sleep(k === 0 ? delay / 4 : delay);
       child.kill('SIGKILL');
@@ -209,6 +221,7 @@ describe('interrupted runs', () => {
         const again = runBuilt([...BATCH, '--out', out, '--reports', '--jobs', '2']);
         expect(again.code).toBe(0);
         expect(hidden(dir)).toEqual([]);
+        // the killed run's complete reports are removed as an earlier run's; this run's seven stay
         expect(expectCompleteReports(dir)).toHaveLength(7);
       }
     }
@@ -232,7 +245,7 @@ describe('analyze after a killed analyze', () => {
 
 describe('two batches into one output folder', () => {
   it('the second refuses while the first runs (exit 2, no file touched); the summary and every report it links come from one run', { timeout: 180_000 }, async () => {
-    const first = start([...BATCH, '--out', 'shared', '--reports', '--jobs', '1', '--error', 'constant']);
+    const first = start([...LONG_BATCH, '--out', 'shared', '--reports', '--jobs', '1', '--error', 'constant']);
     const lock = join(inputs.root, 'shared', '.mechanist-run.lock');
     for (let waited = 0; !existsSync(lock) && waited < 20_000; waited += 50) await sleep(50);
     expect(existsSync(lock)).toBe(true);
@@ -250,7 +263,7 @@ describe('two batches into one output folder', () => {
     // a later run with other settings replaces the reports whole, and removes those it did not write
     const later = runBuilt(['batch', 'plates', '--out', 'shared', '--reports', '--jobs', '1', '--error', 'proportional']);
     expect(later.code).toBe(0);
-    expect(later.err).toMatch(/removed 5 report folders of an earlier run/);
+    expect(later.err).toMatch(new RegExp(`removed ${LONG_COMPOUNDS} report folders of an earlier run`));
     const names = expectCompleteReports(dir);
     expect(names.sort()).toEqual(['competitive', 'mixed', 'uncompetitive']);
     for (const name of names) expect(JSON.parse(readFileSync(join(dir, 'compounds', name, 'results.json'), 'utf8')).errorModel).toBe('proportional');
