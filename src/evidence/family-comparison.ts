@@ -23,6 +23,8 @@
  */
 import type { Mechanism, ModelFamily } from '../models/types.js';
 import type { Verdict } from './verdict.js';
+import type { Advice, VerdictHeadline, VerdictReason } from './verdict-findings.js';
+import type { Caveat } from './caveat.js';
 import type { ParameterEstimate } from './wald-estimates.js';
 import { chisqSurvival } from '../stats/distributions.js';
 import { BETA_FLOOR } from './profile-support.js';
@@ -60,7 +62,7 @@ export interface PartialEvidence {
   /** interior tests inside the family: partial noncompetitive and partial competitive in partial mixed */
   withinFamily: Record<string, BoundaryTest>;
   /** blocking caveats on the best partial model's own fit (residual checks, design) */
-  blocking: readonly string[];
+  blocking: readonly Caveat[];
 }
 
 export interface BoundaryTest {
@@ -83,11 +85,14 @@ export interface FamilyCall {
   model: string;
   mechanism: Mechanism | null;
   decisive: boolean;
-  reasons: string[];
-  suggestions: string[];
+  /** the comparison's reasons (its own still worded here: `family-note`) */
+  reasons: VerdictReason[];
+  suggestions: Advice[];
   /** the headline when another family wins (the classic headline otherwise) */
-  headline: string;
+  headline: VerdictHeadline;
 }
+
+const note = (text: string): { code: 'family-note'; text: string } => ({ code: 'family-note', text });
 
 interface FamilyInput {
   classic: Verdict;
@@ -138,9 +143,9 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
   if (!input.tight && input.classic.mechanism && input.classic.mechanism !== 'none') {
     const k = leadConstant(classicModel);
     if (k && k.value !== null && k.value < input.lowestInhibitor)
-      call.suggestions.push(
+      call.suggestions.push(note(
         `${k.name} (${fmt(k.value)}${u ? ` ${u}` : ''}) lies below the lowest [I] tested: if the enzyme concentration is within tenfold of it, tight binding biases ${k.name}; give [E]t (--enzyme CONC, an enzyme column, or --enzyme fit)`,
-      );
+      ));
   }
 
   const tight = input.tight;
@@ -149,16 +154,16 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
     const winner = tight.models.find((m) => m.mechanism === v.mechanism);
     const k = leadConstant(winner);
     if (v.outcome === 'no-inhibition' || !winner || !k || k.value === null) {
-      call.reasons.push('tight-binding family: no inhibition detected, so the enzyme concentration does not matter');
+      call.reasons.push(note('tight-binding family: no inhibition detected, so the enzyme concentration does not matter'));
     } else if (tight.enzyme === 'given') {
       const e = tight.enzymeLevel ?? 0;
       if (e * TIGHT_BINDING_RATIO >= k.value) {
         call = tightCall(v, winner, k, u, `[E]t (${fmt(e)}${u ? ` ${u}` : ''}) is within ${TIGHT_BINDING_RATIO}-fold of ${k.name}: the inhibitor bound depletes the free inhibitor, so the tight-binding (Morrison) equations apply`);
         bestAicc = winner.aicc;
       } else {
-        call.reasons.push(
+        call.reasons.push(note(
           `[E]t (${fmt(e)}${u ? ` ${u}` : ''}) is below 1/${TIGHT_BINDING_RATIO} of the tight-binding ${constantPhrase(k, u)}: depletion of free inhibitor is negligible and the classic equations stand`,
-        );
+        ));
       }
     } else {
       const et = estimate(winner, 'Et');
@@ -169,9 +174,9 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
         call = tightCall(v, winner, k, u, `[E]t is identified (${constantPhrase(et, u)}) and the tight-binding fit improves on the classic ${winner.mechanism} model (p ${test.p < 0.001 ? '< 0.001' : `= ${fmt(test.p)}`}, boundary test)`);
         bestAicc = winner.aicc;
       } else {
-        call.reasons.push(
+        call.reasons.push(note(
           `[E]t is not identifiable from these data (${closed ? 'the tight-binding fit does not improve on the classic one' : 'its profile interval is open'}): measure the active-site concentration, or extend [I] around [E]t; the classic call stands`,
-        );
+        ));
       }
     }
   }
@@ -201,17 +206,17 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
         mechanism: best.mechanism,
         decisive,
         reasons: [
-          `partial ${best.mechanism} improves on full ${best.mechanism} inhibition (p ${full.p < 0.001 ? '< 0.001' : `= ${fmt(full.p)}`}, boundary test) and on the best model so far (AICc lower by ${(bestAicc - best.aicc).toFixed(1)}); the rate levels off at a residual activity, ${betaText}`,
-          ...pick.reasons,
-          ...partial.blocking,
+          note(`partial ${best.mechanism} improves on full ${best.mechanism} inhibition (p ${full.p < 0.001 ? '< 0.001' : `= ${fmt(full.p)}`}, boundary test) and on the best model so far (AICc lower by ${(bestAicc - best.aicc).toFixed(1)}); the rate levels off at a residual activity, ${betaText}`),
+          ...pick.reasons.map(note),
+          ...partial.blocking.map((caveat) => ({ code: 'caveat' as const, caveat })),
         ],
-        suggestions: decisive ? [] : ['extend [I] to well above Ki to measure the plateau of the residual activity, and replicate'],
-        headline: `${decisive ? 'The data support' : 'Best supported, not firm:'} partial ${best.mechanism} inhibition, ${constantPhrase(k, u)}${best.mechanism === 'competitive' ? '' : `, residual activity ${betaText}`}.`,
+        suggestions: decisive ? [] : [note('extend [I] to well above Ki to measure the plateau of the residual activity, and replicate')],
+        headline: note(`${decisive ? 'The data support' : 'Best supported, not firm:'} partial ${best.mechanism} inhibition, ${constantPhrase(k, u)}${best.mechanism === 'competitive' ? '' : `, residual activity ${betaText}`}.`),
       };
     } else if (best) {
-      call.reasons.push(
+      call.reasons.push(note(
         `partial inhibition is not supported: ${!full || !(full.p < FAMILY_LEVEL) ? `the best partial model (${best.id}) does not improve on full inhibition at p < ${FAMILY_LEVEL}` : !betaExcludesZero ? 'the residual activity is consistent with zero' : `its AICc is not lower by ${PARTIAL_AICC_MARGIN} than that of the best model so far`}`,
-      );
+      ));
     }
   }
   return call;
@@ -224,9 +229,9 @@ function tightCall(v: Verdict, winner: FamilyModelEvidence, k: ParameterEstimate
     model: winner.id,
     mechanism: v.mechanism,
     decisive: v.decisive,
-    reasons: [why, ...v.reasons.map((r) => `tight-binding models: ${r}`)],
+    reasons: [note(why), ...v.reasons.map((reason) => ({ code: 'within-family' as const, models: 'tight-binding' as const, reason }))],
     suggestions: [...v.suggestions],
-    headline: `${v.decisive ? 'The data support' : 'Best supported, not firm:'} tight-binding ${what} inhibition, ${constantPhrase(k, u)}.`,
+    headline: note(`${v.decisive ? 'The data support' : 'Best supported, not firm:'} tight-binding ${what} inhibition, ${constantPhrase(k, u)}.`),
   };
 }
 
@@ -263,7 +268,7 @@ export function verdictWithFamily(classic: Verdict, call: FamilyCall, familyVerd
     decisive: call.decisive,
     candidates: call.mechanism ? [call.mechanism, ...base.candidates.filter((m) => m !== call.mechanism)] : base.candidates,
     headline: call.headline,
-    reasons: [...call.reasons, ...classic.reasons.map((r) => `classic models: ${r}`)],
+    reasons: [...call.reasons, ...classic.reasons.map((reason) => ({ code: 'within-family' as const, models: 'classic' as const, reason }))],
     suggestions: [...call.suggestions],
     ...(call.family === 'partial' ? { lean: undefined } : {}),
   };
