@@ -60,10 +60,9 @@ export type VerdictReason =
   | { code: 'exact-no-tests' }
   | { code: 'caveat'; caveat: Caveat }
   | InhibitorReach
-  /** a reason of another family's verdict, kept beside the call (tight-binding or classic models) */
+  /** a reason of another family's verdict, kept beside the family call (tight-binding or classic models) */
   | { code: 'within-family'; models: 'classic' | 'tight-binding'; reason: VerdictReason }
-  /** a reason of the family comparison (src/evidence/family-comparison.ts), still worded there */
-  | { code: 'family-note'; text: string };
+  | FamilyReason;
 
 /** A piece of advice; `leading` puts it before the others (the first thing to fix). */
 export type Advice =
@@ -72,7 +71,10 @@ export type Advice =
   | { code: 'separate'; pair: MechanismPair }
   /** the caveat's advice, if its wording has one; first when the caveat is `leading` */
   | { code: 'caveat'; caveat: Caveat }
-  | { code: 'family-note'; text: string };
+  /** the family comparison: a constant below the lowest [I] without [E]t given */
+  | { code: 'give-enzyme'; constant: ConstantFinding; unit: string }
+  /** the family comparison: a partial call that is not firm */
+  | { code: 'partial-plateau' };
 
 export type VerdictHeadline =
   | { code: 'no-fit' }
@@ -86,5 +88,30 @@ export type VerdictHeadline =
   | { code: 'not-firm'; winner: Mechanism }
   /** the headline of the blocking caveat that leads */
   | { code: 'caveat'; caveat: Caveat }
-  /** the headline of another family's call (src/evidence/family-comparison.ts), still worded there */
-  | { code: 'family-note'; text: string };
+  /** another family's call (src/evidence/family-comparison.ts): tight-binding (lean for mixed-lean) or partial */
+  | { code: 'tight-binding'; decisive: boolean; mechanism: Mechanism | null; lean?: 'competitive' | 'uncompetitive'; constant: ConstantFinding | null; unit: string }
+  /** `beta` null for partial competitive (beta = 1) */
+  | { code: 'partial'; decisive: boolean; mechanism: Mechanism; constant: ConstantFinding | null; beta: ConstantFinding | null; unit: string };
+
+/** A constant as the family comparison names it: its value and best interval (profile, else Wald). */
+export interface ConstantFinding {
+  name: string;
+  value: number | null;
+  interval: readonly [number | null, number | null] | null;
+}
+
+/** The family comparison's reasons (src/evidence/family-comparison.ts), with the levels it used. */
+export type FamilyReason =
+  | { code: 'tight-no-inhibition' }
+  /** [E]t given and within `ratio`-fold of the constant: the tight-binding call */
+  | { code: 'enzyme-near-constant'; enzyme: number; unit: string; ratio: number; name: string }
+  | { code: 'enzyme-negligible'; enzyme: number; unit: string; ratio: number; constant: ConstantFinding | null }
+  /** [E]t fitted: identified and the boundary test against the classic model (p) */
+  | { code: 'enzyme-identified'; et: ConstantFinding | null; unit: string; mechanism: Mechanism; p: number }
+  | { code: 'enzyme-not-identifiable'; intervalClosed: boolean }
+  /** the partial call: the boundary test against full inhibition, the AICc gain, beta (null: partial competitive) */
+  | { code: 'partial-improves'; mechanism: Mechanism; p: number; aiccGain: number; beta: ConstantFinding | null }
+  | { code: 'partial-mixed-beats-simpler'; level: number }
+  | { code: 'partial-rival'; rival: string; delta: number }
+  | { code: 'partial-mixed-not-better'; model: string; level: number }
+  | { code: 'partial-not-supported'; why: 'no-improvement' | 'residual-zero' | 'aicc-margin'; model: string; level: number; margin: number };

@@ -11,6 +11,7 @@ import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../evidence/alp
 import { DETECTION_FACTOR } from '../evidence/detection-bound.js';
 import { pPhrase, rounded, sig, valueWithUnit } from '../text/format-number.js';
 import { wordCaveat } from './caveat-words.js';
+import { familyAdvice, familyHeadline, familyReason } from './family-words.js';
 
 /** A verdict in words: what results.json, the report and the text summary print. */
 export interface VerdictWords {
@@ -68,8 +69,9 @@ function wordHeadline(h: VerdictHeadline): string {
       return `${capitalise(h.winner)} ranks first, but the call is not firm (see reasons).`;
     case 'caveat':
       return wordCaveat(h.caveat).headline ?? '';
-    case 'family-note':
-      return h.text;
+    case 'tight-binding':
+    case 'partial':
+      return familyHeadline(h);
   }
 }
 
@@ -113,8 +115,8 @@ function wordReason(r: VerdictReason): string {
       return reachPhrase(r);
     case 'within-family':
       return `${r.models === 'classic' ? 'classic models' : 'tight-binding models'}: ${wordReason(r.reason)}`;
-    case 'family-note':
-      return r.text;
+    default:
+      return familyReason(r);
   }
 }
 
@@ -143,8 +145,9 @@ function adviceText(a: Advice): string | undefined {
       return SEPARATING_EXPERIMENT[a.pair];
     case 'caveat':
       return wordCaveat(a.caveat).suggestion;
-    case 'family-note':
-      return a.text;
+    case 'give-enzyme':
+    case 'partial-plateau':
+      return familyAdvice(a);
   }
 }
 
