@@ -104,7 +104,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
   const preliminary = verdictFrom(models, nested, [], evidence);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
-  const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
+  const diagnostics = runDiagnostics(models, data, errorModel, winner, options.detail === 'summary');
   // The robust refit runs on request, and by itself whenever a point stands out (a studentised
   // residual beyond the suspect cut-off), so that one bad well cannot flip the call unnoticed.
   // Without noise the residual checks describe rounding only: only the design caveats are given.

@@ -29,14 +29,14 @@ interface DiagnosticsStage {
 }
 
 /**
- * Residual checks of every model (or, with `only`, of that model alone: what a batch summary
- * needs), and the per-series fits.
+ * Residual checks of every model (or, with `winnerOnly`, of the winner alone: what a batch summary
+ * needs), the per-series fits, and where they disagree with the winner's global fit.
  */
-export function runDiagnostics(models: readonly ModelResult[], data: FitData, errorModel: ErrorModel, only?: Mechanism): DiagnosticsStage {
+export function runDiagnostics(models: readonly ModelResult[], data: FitData, errorModel: ErrorModel, winner: ModelResult, winnerOnly = false): DiagnosticsStage {
   const residuals: DiagnosticsStage['residuals'] = {};
-  for (const m of models) if (m.fit.df > 0 && (only === undefined || m.mechanism === only)) residuals[m.mechanism] = residualDiagnostics(m.fit, data);
+  for (const m of models) if (m.fit.df > 0 && (!winnerOnly || m.mechanism === winner.mechanism)) residuals[m.mechanism] = residualDiagnostics(m.fit, data);
   const series = seriesFits(data, errorModel);
-  return { residuals, seriesFits: series, seriesDisagreements: [], errorModelCheck: null };
+  return { residuals, seriesFits: series, seriesDisagreements: seriesDisagreements(winner.fit, series), errorModelCheck: null };
 }
 
 function detectedValue(m: ModelResult, name: string): number | undefined {
@@ -73,8 +73,7 @@ export function caveatsFor(winner: ModelResult, stage: DiagnosticsStage, data: F
     if (large.length)
       out.push({ code: 'suspect-points', count: large.length, limit: STUDENTISED_LIMIT, robustRefitRuns: Boolean(options.robustRefitRuns), blocking: false });
   }
-  const disagreements = seriesDisagreements(winner.fit, stage.seriesFits);
-  stage.seriesDisagreements = disagreements;
+  const disagreements = stage.seriesDisagreements;
   if (disagreements.length && !options.noiseFree)
     out.push({ code: 'series-disagree', mechanism, count: disagreements.length, seLimit: SERIES_SE_LIMIT, blocking: false });
   const km = detectedValue(winner, 'Km');
