@@ -16,6 +16,7 @@ const LAYERS = [
   ['simulate', '^src/simulate/'], // simulated rates and plates from the models; the seeded random source
   ['evidence', '^src/evidence/'], // intervals, comparisons, checks, the verdict
   ['analysis', '^src/analysis/'], // one table's analysis in stages, and its result types
+  ['wording', '^src/wording/'], // the sentences of coded findings: verdict, reasons, advice, caveats
   ['figures', '^src/figures/'], // SVG figures
   ['report', '^src/report/'], // text, JSON, CSV, HTML and the result folder
   [['batch', '^src/batch/'], ['plan', '^src/plan/']], // many compounds; the experiment planner

@@ -73,7 +73,7 @@ async function runTask(t, lib) {
   return {
     design: t.design, placement: t.placement, noise: t.noise, truth: t.truth.name, mechanism: m, K,
     outcome: v.outcome, called: v.mechanism, lean: v.lean ?? null, decisive: v.decisive, family: v.family ?? null,
-    headline: v.headline, errorModel: r.errorModel, blockers: (v.caveats ?? []).filter((c) => c.blocking).map((c) => c.code),
+    headline: lib.wordVerdict(v).headline, errorModel: r.errorModel, blockers: (v.caveats ?? []).filter((c) => c.blocking).map((c) => c.code),
     mixedAlpha: pick(est('alpha')), mixedKi: pick(est('Ki')), mixedKiu: pick(est('Kiu')),
     aicc: Object.fromEntries(r.models.map((x) => [x.mechanism, x.aicc])),
     nested: r.nested.map((c) => [c.simpler, c.fuller, c.p]),
@@ -88,14 +88,15 @@ function rightCall(row) {
 
 async function loadLib() {
   const root = new URL('../dist/', import.meta.url);
-  const [a, s, t, r, pl] = await Promise.all([
+  const [a, s, t, r, pl, w] = await Promise.all([
     import(new URL('analysis/analyze-table.js', root)),
     import(new URL('simulate/simulate-rates.js', root)),
     import(new URL('simulate/table-from-points.js', root)),
     import(new URL('simulate/random.js', root)),
     import(new URL('evidence/profile-likelihood.js', root)),
+    import(new URL('wording/verdict-words.js', root)),
   ]);
-  return { analyzeTable: a.analyzeTable, simulateRates: s.simulateRates, tableFromPoints: t.tableFromPoints, seededRandom: r.seededRandom, profileTausAt: pl.profileTausAt };
+  return { analyzeTable: a.analyzeTable, simulateRates: s.simulateRates, tableFromPoints: t.tableFromPoints, seededRandom: r.seededRandom, profileTausAt: pl.profileTausAt, wordVerdict: w.wordVerdict };
 }
 
 if (!isMainThread) {

@@ -5,7 +5,10 @@
  *   import { readRateFile, analyze } from 'mechanist';
  *   const [table] = await readRateFile('rates.csv');
  *   const result = analyze(table, { errorModel: 'proportional' });
- *   console.log(result.verdict.headline);
+ *   console.log(wordVerdict(result.verdict).headline);
+ *
+ * The verdict and its caveats are data (codes with their numbers); wordVerdict and wordCaveat give
+ * the sentences the report prints.
  */
 export { analyzeTable as analyze, analyzeTable, AnalysisError, type AnalysisOptions } from './analysis/analyze-table.js';
 export type * from './analysis/types.js';
@@ -21,6 +24,10 @@ export type * from './fit/least-squares-problem.js';
 export type { ParameterEstimate, EstimateName } from './evidence/wald-estimates.js';
 export type { NestedComparison } from './evidence/nested-comparisons.js';
 export type { Verdict, VerdictOutcome } from './evidence/verdict.js';
+export type { Advice, ExclusionFinding, InhibitorReach, VerdictHeadline, VerdictReason } from './evidence/verdict-findings.js';
+export type { Caveat, CodedCaveat, WordedCaveat } from './evidence/caveat.js';
+export { wordVerdict, type VerdictWords } from './wording/verdict-words.js';
+export { wordCaveat, type CaveatWords } from './wording/caveat-words.js';
 export { simulateRates, ratesToCsv, trueRate, type SimulationDesign, type NoiseModel } from './simulate/simulate-rates.js';
 export { seededRandom, type RandomSource } from './simulate/random.js';
 export { tableFromPoints, type InMemoryTableOptions } from './simulate/table-from-points.js';

@@ -11,7 +11,6 @@ import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
 import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE, outsideFittableRange } from '../input/table-checks.js';
-import { sig } from '../text/format-number.js';
 import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
 import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
 import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
@@ -20,7 +19,8 @@ import { decideVerdict, type Caveat, type ExactFitEvidence, type Verdict } from 
 import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-check.js';
 import { robustRefit } from '../evidence/robust-refit.js';
 import { caveatsFor, errorModelCaveat, largeResidualPoints, runDiagnostics } from './stage-diagnostics.js';
-import { noInhibitionReason } from '../evidence/detection-limit.js';
+import { inhibitorReach } from '../evidence/detection-limit.js';
+import type { VerdictReason } from '../evidence/verdict-findings.js';
 import { noActivityFinding } from '../evidence/activity-check.js';
 import { exactFits } from '../evidence/exact-fit.js';
 import { activationCaveat, saturatingInhibitorCaveat, substrateInhibitionCaveat } from '../evidence/rate-pattern-checks.js';
@@ -87,8 +87,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const choice = chooseErrorModel(requested, data, mechanisms);
   const errorModel = choice.errorModel;
   const fits = choice.fits;
-  const models = rankModels(fits, data, level);
-  const bootstrap = addIntervals(models, data, table.units, {
+  const { models, bootstrap } = addIntervals(rankModels(fits, data, level), data, table.units, {
     level,
     profile: options.profile,
     profileModels: options.detail === 'summary' ? 'leading' : 'all',
@@ -105,7 +104,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   // Verdict in two passes: a preliminary call names the model whose diagnostics matter.
   const preliminary = verdictFrom(models, nested, [], evidence);
   const winner = models.find((m) => m.mechanism === preliminary.mechanism) ?? models[0];
-  const diagnostics = runDiagnostics(models, data, errorModel, options.detail === 'summary' ? winner.mechanism : undefined);
+  const diagnostics = runDiagnostics(models, data, errorModel, winner, options.detail === 'summary');
   // The robust refit runs on request, and by itself whenever a point stands out (a studentised
   // residual beyond the suspect cut-off), so that one bad well cannot flip the call unnoticed.
   // Without noise the residual checks describe rounding only: only the design caveats are given.
@@ -124,18 +123,18 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     if (caveat) caveats.push(caveat);
   }
 
-  let robust: RobustSummary | undefined;
-  if (robustRuns) {
-    robust = robustSummary(data, errorModel, models, level, table, preliminary);
-    const caveat = robustCaveat(robust, preliminary);
+  const robust = robustRuns ? robustSummary(data, errorModel, models, level, table, preliminary) : undefined;
+  if (robust) {
+    const caveat = robustCaveat(robust, preliminary, Boolean(options.robust));
     if (caveat) caveats.push(caveat);
-    else if (!options.robust)
-      caveats.push({ code: 'robust', message: `a robust (bisquare) refit, run because a point stands out, gives no point less than half weight; the call stays ${robust.verdict.mechanism}`, blocking: false });
   }
 
-  const classicVerdict = verdictFrom(models, nested, caveats, evidence);
-  if (classicVerdict.outcome === 'no-inhibition' && !noiseFree) classicVerdict.reasons.push(noInhibitionReason(models, data));
-  if (choice.automatic) classicVerdict.reasons.unshift(choice.reason);
+  // The classic verdict, once, from all the evidence gathered above.
+  const classicVerdict = verdictFrom(models, nested, caveats, {
+    ...evidence,
+    ...(choice.automatic ? { leadingReasons: [choice.reason] } : {}),
+    ...(noiseFree ? {} : { inhibitorReach: () => inhibitorReach(models, data) }),
+  });
 
   // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
   // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
@@ -192,7 +191,8 @@ interface ErrorModelChoice {
   errorModel: ErrorModel;
   fits: MechanismFit[];
   automatic: boolean;
-  reason: string;
+  /** for 'auto': the reason that leads the verdict (which error model, by how much) */
+  reason: VerdictReason;
   scores: Array<{ errorModel: ErrorModel; bestAicc: number }>;
 }
 
@@ -204,7 +204,8 @@ interface ErrorModelChoice {
 function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechanisms: readonly MechanismModel[]): ErrorModelChoice {
   if (requested !== 'auto') {
     const fits = fitAllMechanisms(data, requested, mechanisms);
-    return { errorModel: requested, fits, automatic: false, reason: '', scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
+    const reason: VerdictReason = { code: 'error-model-chosen', chosen: requested, runnerUp: null, aiccMargin: null };
+    return { errorModel: requested, fits, automatic: false, reason, scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
   }
   const { usable } = candidateErrorModels(data);
   const tried = usable.map((em) => ({ errorModel: em, fits: fitAllMechanisms(data, em, mechanisms) }));
@@ -212,10 +213,12 @@ function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechani
   const order = [...scores].sort((a, b) => a.bestAicc - b.bestAicc);
   const chosen = tried.find((t) => t.errorModel === order[0].errorModel)!;
   const margin = order.length > 1 ? order[1].bestAicc - order[0].bestAicc : Infinity;
-  const reason =
-    order.length > 1
-      ? `error model chosen automatically: ${order[0].errorModel} (AICc ${margin.toFixed(1)} lower than ${order[1].errorModel})`
-      : `error model chosen automatically: ${order[0].errorModel} (the only one usable on these rates)`;
+  const reason: VerdictReason = {
+    code: 'error-model-chosen',
+    chosen: order[0].errorModel,
+    runnerUp: order.length > 1 ? order[1].errorModel : null,
+    aiccMargin: order.length > 1 ? margin : null,
+  };
   return { errorModel: chosen.errorModel, fits: chosen.fits, automatic: true, reason, scores };
 }
 
@@ -295,11 +298,13 @@ function checkMagnitudes(table: RateTable): void {
   }
 }
 
-/** What the verdict reads besides the ranking and the nested tests. */
+/** What the verdict reads besides the ranking, the nested tests and the caveats. */
 interface VerdictEvidence {
   exclusions?: AlphaExclusions | null | (() => AlphaExclusions | null);
   exactFits?: ExactFitEvidence[];
   alphaEstimate?: number | null;
+  leadingReasons?: VerdictReason[];
+  inhibitorReach?: () => VerdictReason;
 }
 
 function verdictFrom(
@@ -329,34 +334,34 @@ function patternCaveats(models: readonly ModelResult[], winner: ModelResult, dat
   for (const w of table.warnings.filter((x) => x.code === 'repeated-block'))
     out.push({
       code: 'repeated-block',
-      message: w.message,
       blocking: true,
-      suggestion: 'remove rows pasted twice (or mark them in an exclude column) and analyse again',
       leading: true,
-      headline: 'The table repeats a block of rows exactly: no firm call until the copy is removed or confirmed.',
+      // the input layer words its warning; the advice and headline go with it
+      text: {
+        message: w.message,
+        suggestion: 'remove rows pasted twice (or mark them in an exclude column) and analyse again',
+        headline: 'The table repeats a block of rows exactly: no firm call until the copy is removed or confirmed.',
+      },
     });
   return out;
 }
 
-function lineList(points: RobustSummary['downWeighted']): string {
-  const shown = points.slice(0, 4).map((d) => `line ${d.line}, rate ${sig(d.rate, 3)}`);
-  return shown.join(', ') + (points.length > 4 ? ` and ${points.length - 4} more` : '');
-}
-
-/** The caveat of a robust refit that down-weighted points; blocking when the call changes. */
-function robustCaveat(robust: RobustSummary, lsVerdict: Verdict): Caveat | null {
-  const n = robust.downWeighted.length;
-  if (n === 0) return null;
-  const which = lineList(robust.downWeighted);
-  if (!robust.changesVerdict)
-    return { code: 'robust', message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}); the call stays ${robust.verdict.mechanism}`, blocking: false };
+/**
+ * The caveat of the robust refit: blocking when the call changes; when the call stays, a note only
+ * if points were down-weighted or the refit ran by itself (a point stands out).
+ */
+function robustCaveat(robust: RobustSummary, lsVerdict: Verdict, requested: boolean): Caveat | null {
+  const change = robust.downWeighted.length === 0 ? 'none-down-weighted' : robust.changesVerdict ? 'changes' : 'stays';
+  if (change === 'none-down-weighted' && requested) return null;
   return {
     code: 'robust',
-    message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}) and then calls it ${robust.verdict.mechanism}: the call depends on those points`,
-    blocking: true,
-    suggestion: `inspect or repeat the down-weighted wells (${which}); exclude a mistyped value and analyse again`,
-    leading: true,
-    headline: `The call depends on ${n === 1 ? 'one outlying point' : `${n} outlying points`} (${which}): with ${n === 1 ? 'it' : 'them'} down-weighted the data point to ${robust.verdict.mechanism}${robust.verdict.lean ? `, leaning ${robust.verdict.lean}` : ''}, not ${lsVerdict.mechanism}.`,
+    change,
+    downWeighted: robust.downWeighted.map((d) => ({ line: d.line, rate: d.rate })),
+    robustCall: robust.verdict.mechanism,
+    ...(robust.verdict.lean ? { robustLean: robust.verdict.lean } : {}),
+    leastSquaresCall: lsVerdict.mechanism,
+    blocking: change === 'changes',
+    ...(change === 'changes' ? { leading: true } : {}),
   };
 }
 

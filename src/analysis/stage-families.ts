@@ -225,7 +225,7 @@ export function runFamilies(
     const picked = ranked.find((m) => m.modelId === pickId);
     if (profile) addProfiles(picked, data, level);
     addBootstrap(picked, data, level, request.bootstrap);
-    const blocking = familyCaveats(picked, data, stage.checks).filter((c) => c.blocking).map((c) => c.message);
+    const blocking = familyCaveats(picked, data, stage.checks).filter((c) => c.blocking);
     stage.partial = { models: evidence, againstFull, withinFamily, blocking };
     stage.models.push(...ranked);
   }

@@ -5,7 +5,8 @@
  * - derived quantities (pKi, pKiu, IC50 at a chosen [S], apparent Vmax and Km at each [I]) with
  *   Wald, profile (where natural) and bootstrap intervals;
  * - with a bootstrap: percentile and BCa intervals, and how often each mechanism ranks first.
- * The ModelResults are completed in place; the bootstrap summary is returned.
+ * The ranked models are not changed: the stage returns new model records, completed, with the
+ * bootstrap summary.
  */
 import { MECHANISMS } from '../models/index.js';
 import { maxInhibitor, type FitData } from '../fit/fit-data.js';
@@ -56,8 +57,19 @@ interface IntervalOptions {
   onProgress?: (done: number, total: number) => void;
 }
 
-/** Completes the ranked models with intervals; returns the bootstrap summary when one was run. */
-export function addIntervals(models: ModelResult[], data: FitData, units: DerivedUnits, options: IntervalOptions): BootstrapSummary | undefined {
+/** What the intervals stage returns: the models with their intervals (new records), and the bootstrap. */
+interface IntervalStage {
+  models: ModelResult[];
+  bootstrap?: BootstrapSummary;
+}
+
+/**
+ * The ranked models completed with intervals, as new records (the input models and their
+ * estimates are left as they were), and the bootstrap summary when one was run.
+ */
+export function addIntervals(ranked: readonly ModelResult[], data: FitData, units: DerivedUnits, options: IntervalOptions): IntervalStage {
+  // the records this stage completes: copies of the models and of their estimates
+  const models: ModelResult[] = ranked.map((m) => ({ ...m, estimates: m.estimates.map((e) => ({ ...e })) }));
   const level = options.level;
   const usable = (fit: MechanismFit) => Number.isFinite(fit.sse) && fit.df > 0;
   const profiles = new Map<ModelResult, ParameterProfile[]>();
@@ -118,15 +130,18 @@ export function addIntervals(models: ModelResult[], data: FitData, units: Derive
     ];
   }
 
-  if (!run) return undefined;
+  if (!run) return { models };
   return {
-    resamples: run.resamples,
-    seed: run.seed,
-    scheme: `wild (${run.weights}), leverage-scaled residuals of ${run.generatingModel}`,
-    weights: run.weights,
-    generatingModel: run.generatingModel,
-    selection: run.selection,
-    failures: run.failures,
+    models,
+    bootstrap: {
+      resamples: run.resamples,
+      seed: run.seed,
+      scheme: `wild (${run.weights}), leverage-scaled residuals of ${run.generatingModel}`,
+      weights: run.weights,
+      generatingModel: run.generatingModel,
+      selection: run.selection,
+      failures: run.failures,
+    },
   };
 }
 

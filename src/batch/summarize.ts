@@ -13,6 +13,7 @@ import type { RateTable } from '../input/types.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
 import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
 import { interval, sig } from '../text/format-number.js';
+import { wordVerdict } from '../wording/verdict-words.js';
 
 /** Where the row of a compound sits and what it is called (set by the batch plan). */
 interface RowIdentity {
@@ -74,7 +75,7 @@ export function summarizeAnalysis(result: AnalysisResult, identity?: Partial<Row
     family,
     lean: verdict.lean ?? null,
     decisive: verdict.decisive,
-    headline: verdict.headline,
+    headline: wordVerdict(verdict).headline,
     errorModel: result.errorModel,
     topModel: top?.mechanism ?? null,
     topWeight: finiteOrNull(top?.weight),

@@ -7,10 +7,10 @@
  */
 import type { Mechanism } from '../models/types.js';
 import type { ParameterEstimate } from './wald-estimates.js';
+import type { InhibitorReach } from './verdict-findings.js';
 import { maxInhibitor, type FitData } from '../fit/fit-data.js';
-import { sig, valueWithUnit } from '../text/format-number.js';
 
-/** What noInhibitionReason reads of each ranked model (the analysis stage's ModelResult has these). */
+/** What inhibitorReach reads of each ranked model (the analysis stage's ModelResult has these). */
 interface RankedModelEstimates {
   mechanism: Mechanism;
   /** fitted rate parameters */
@@ -18,20 +18,17 @@ interface RankedModelEstimates {
   estimates: readonly ParameterEstimate[];
 }
 
-export function noInhibitionReason(models: readonly RankedModelEstimates[], data: FitData): string {
-  const imax = maxInhibitor(data);
-  // every concentration printed with its unit (issue 13): "highest [I] tested: 200 nM"
-  const c = (x: number) => valueWithUnit(sig(x, 3), data.units?.inhibitor);
+/** The reach of the tested [I] range, worded by src/wording/verdict-words.ts. */
+export function inhibitorReach(models: readonly RankedModelEstimates[], data: FitData): InhibitorReach {
+  const reach = (bound: InhibitorReach['bound']): InhibitorReach => ({ code: 'inhibitor-reach', highest: maxInhibitor(data), unit: data.units?.inhibitor ?? null, bound });
   const inhibited = models.find((m) => m.mechanism !== 'none' && m.p === 3);
   const est = inhibited?.estimates.find((e) => e.name === 'Ki' || e.name === 'Kiu');
-  if (!inhibited || !est) return `highest [I] tested: ${c(imax)}`;
+  if (!inhibited || !est) return reach({ kind: 'no-model' });
   let lower: number | null = null;
   if (est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
   else if (est.detected && est.wald) lower = Math.max(est.wald[0], 0);
   else if (!est.detected && est.profile && est.profile[0] !== null) lower = est.profile[0];
-  else if (!est.detected && est.exceeds !== undefined)
-    return `highest [I] tested: ${c(imax)}; under ${inhibited.mechanism} the fitted ${est.name} runs past ${c(est.exceeds)} (100 x the highest [I])`;
-  if (lower === null || !(lower > 0))
-    return `highest [I] tested: ${c(imax)}; the data do not bound the inhibition constant from below`;
-  return `highest [I] tested: ${c(imax)}, ${sig(imax / lower, 2)} x the smallest ${est.name} still compatible with the data under ${inhibited.mechanism} (${c(lower)})`;
+  else if (!est.detected && est.exceeds !== undefined) return reach({ kind: 'runs-past', mechanism: inhibited.mechanism, name: est.name, exceeds: est.exceeds });
+  if (lower === null || !(lower > 0)) return reach({ kind: 'unbounded' });
+  return reach({ kind: 'lower', mechanism: inhibited.mechanism, name: est.name, lower });
 }

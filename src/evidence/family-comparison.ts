@@ -23,6 +23,8 @@
  */
 import type { Mechanism, ModelFamily } from '../models/types.js';
 import type { Verdict } from './verdict.js';
+import type { Advice, ConstantFinding, VerdictHeadline, VerdictReason } from './verdict-findings.js';
+import type { Caveat } from './caveat.js';
 import type { ParameterEstimate } from './wald-estimates.js';
 import { chisqSurvival } from '../stats/distributions.js';
 import { BETA_FLOOR } from './profile-support.js';
@@ -30,6 +32,8 @@ import { BETA_FLOOR } from './profile-support.js';
 export const TIGHT_BINDING_RATIO = 10;
 export const FAMILY_LEVEL = 0.01;
 export const PARTIAL_AICC_MARGIN = 2;
+/** AICc difference within which a simpler partial model stays a rival (Burnham & Anderson 2002, sec. 2.6). */
+const PARTIAL_RIVAL_DELTA = 4;
 
 /** The view of one fitted model this module needs. */
 export interface FamilyModelEvidence {
@@ -60,7 +64,7 @@ export interface PartialEvidence {
   /** interior tests inside the family: partial noncompetitive and partial competitive in partial mixed */
   withinFamily: Record<string, BoundaryTest>;
   /** blocking caveats on the best partial model's own fit (residual checks, design) */
-  blocking: readonly string[];
+  blocking: readonly Caveat[];
 }
 
 export interface BoundaryTest {
@@ -83,11 +87,12 @@ export interface FamilyCall {
   model: string;
   mechanism: Mechanism | null;
   decisive: boolean;
-  reasons: string[];
-  suggestions: string[];
+  reasons: VerdictReason[];
+  suggestions: Advice[];
   /** the headline when another family wins (the classic headline otherwise) */
-  headline: string;
+  headline: VerdictHeadline;
 }
+
 
 interface FamilyInput {
   classic: Verdict;
@@ -103,16 +108,9 @@ function estimate(m: FamilyModelEvidence | undefined, name: string): ParameterEs
   return m?.estimates.find((e) => e.name === name);
 }
 
-function fmt(x: number | null | undefined): string {
-  return x === null || x === undefined || !Number.isFinite(x) ? '?' : Number(x.toPrecision(3)).toString();
-}
-
-/** "Ki = 2.1 nM [1.8, 2.5]" from the best interval computed. */
-function constantPhrase(e: ParameterEstimate | undefined, unit: string): string {
-  if (!e || e.value === null) return e ? `${e.name} not detected` : '';
-  const ci = e.profile ?? e.wald;
-  const u = unit ? ` ${unit}` : '';
-  return `${e.name} = ${fmt(e.value)}${u}${ci ? ` [${fmt(ci[0])}, ${fmt(ci[1])}]` : ''}`;
+/** The constant as a finding: value and best interval (profile, else Wald); null when not estimated. */
+function constantOf(e: ParameterEstimate | undefined): ConstantFinding | null {
+  return e ? { name: e.name, value: e.value, interval: e.profile ?? e.wald ?? null } : null;
 }
 
 function leadConstant(m: FamilyModelEvidence | undefined): ParameterEstimate | undefined {
@@ -138,9 +136,7 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
   if (!input.tight && input.classic.mechanism && input.classic.mechanism !== 'none') {
     const k = leadConstant(classicModel);
     if (k && k.value !== null && k.value < input.lowestInhibitor)
-      call.suggestions.push(
-        `${k.name} (${fmt(k.value)}${u ? ` ${u}` : ''}) lies below the lowest [I] tested: if the enzyme concentration is within tenfold of it, tight binding biases ${k.name}; give [E]t (--enzyme CONC, an enzyme column, or --enzyme fit)`,
-      );
+      call.suggestions.push({ code: 'give-enzyme', constant: constantOf(k)!, unit: u });
   }
 
   const tight = input.tight;
@@ -149,16 +145,14 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
     const winner = tight.models.find((m) => m.mechanism === v.mechanism);
     const k = leadConstant(winner);
     if (v.outcome === 'no-inhibition' || !winner || !k || k.value === null) {
-      call.reasons.push('tight-binding family: no inhibition detected, so the enzyme concentration does not matter');
+      call.reasons.push({ code: 'tight-no-inhibition' });
     } else if (tight.enzyme === 'given') {
       const e = tight.enzymeLevel ?? 0;
       if (e * TIGHT_BINDING_RATIO >= k.value) {
-        call = tightCall(v, winner, k, u, `[E]t (${fmt(e)}${u ? ` ${u}` : ''}) is within ${TIGHT_BINDING_RATIO}-fold of ${k.name}: the inhibitor bound depletes the free inhibitor, so the tight-binding (Morrison) equations apply`);
+        call = tightCall(v, winner, k, u, { code: 'enzyme-near-constant', enzyme: e, unit: u, ratio: TIGHT_BINDING_RATIO, name: k.name });
         bestAicc = winner.aicc;
       } else {
-        call.reasons.push(
-          `[E]t (${fmt(e)}${u ? ` ${u}` : ''}) is below 1/${TIGHT_BINDING_RATIO} of the tight-binding ${constantPhrase(k, u)}: depletion of free inhibitor is negligible and the classic equations stand`,
-        );
+        call.reasons.push({ code: 'enzyme-negligible', enzyme: e, unit: u, ratio: TIGHT_BINDING_RATIO, constant: constantOf(k) });
       }
     } else {
       const et = estimate(winner, 'Et');
@@ -166,12 +160,10 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
       const etInterval = et?.profile ?? et?.wald;
       const closed = !!etInterval && etInterval[0] !== null && etInterval[1] !== null && etInterval[0] > 0;
       if (closed && test && test.p < FAMILY_LEVEL) {
-        call = tightCall(v, winner, k, u, `[E]t is identified (${constantPhrase(et, u)}) and the tight-binding fit improves on the classic ${winner.mechanism} model (p ${test.p < 0.001 ? '< 0.001' : `= ${fmt(test.p)}`}, boundary test)`);
+        call = tightCall(v, winner, k, u, { code: 'enzyme-identified', et: constantOf(et), unit: u, mechanism: winner.mechanism, p: test.p });
         bestAicc = winner.aicc;
       } else {
-        call.reasons.push(
-          `[E]t is not identifiable from these data (${closed ? 'the tight-binding fit does not improve on the classic one' : 'its profile interval is open'}): measure the active-site concentration, or extend [I] around [E]t; the classic call stands`,
-        );
+        call.reasons.push({ code: 'enzyme-not-identifiable', intervalClosed: closed });
       }
     }
   }
@@ -193,7 +185,7 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
       best?.mechanism === 'competitive' ? !!kiuInterval && kiuInterval[1] !== null : betaInterval ? betaInterval[0] !== null && betaInterval[0] > BETA_FLOOR : false;
     if (best && pick && full && full.p < FAMILY_LEVEL && best.aicc <= bestAicc - PARTIAL_AICC_MARGIN && betaExcludesZero) {
       const k = leadConstant(best);
-      const betaText = best.mechanism === 'competitive' ? 'beta = 1 (the complex turns over at full speed)' : constantPhrase(beta, '');
+      const betaFinding = best.mechanism === 'competitive' ? null : constantOf(beta);
       const decisive = pick.decisive && partial.blocking.length === 0;
       call = {
         family: 'partial',
@@ -201,32 +193,31 @@ export function compareFamilies(input: FamilyInput): FamilyCall {
         mechanism: best.mechanism,
         decisive,
         reasons: [
-          `partial ${best.mechanism} improves on full ${best.mechanism} inhibition (p ${full.p < 0.001 ? '< 0.001' : `= ${fmt(full.p)}`}, boundary test) and on the best model so far (AICc lower by ${(bestAicc - best.aicc).toFixed(1)}); the rate levels off at a residual activity, ${betaText}`,
+          { code: 'partial-improves', mechanism: best.mechanism, p: full.p, aiccGain: bestAicc - best.aicc, beta: betaFinding },
           ...pick.reasons,
-          ...partial.blocking,
+          ...partial.blocking.map((caveat) => ({ code: 'caveat' as const, caveat })),
         ],
-        suggestions: decisive ? [] : ['extend [I] to well above Ki to measure the plateau of the residual activity, and replicate'],
-        headline: `${decisive ? 'The data support' : 'Best supported, not firm:'} partial ${best.mechanism} inhibition, ${constantPhrase(k, u)}${best.mechanism === 'competitive' ? '' : `, residual activity ${betaText}`}.`,
+        suggestions: decisive ? [] : [{ code: 'partial-plateau' }],
+        headline: { code: 'partial', decisive, mechanism: best.mechanism, constant: constantOf(k), beta: betaFinding, unit: u },
       };
     } else if (best) {
-      call.reasons.push(
-        `partial inhibition is not supported: ${!full || !(full.p < FAMILY_LEVEL) ? `the best partial model (${best.id}) does not improve on full inhibition at p < ${FAMILY_LEVEL}` : !betaExcludesZero ? 'the residual activity is consistent with zero' : `its AICc is not lower by ${PARTIAL_AICC_MARGIN} than that of the best model so far`}`,
-      );
+      const why = !full || !(full.p < FAMILY_LEVEL) ? 'no-improvement' : !betaExcludesZero ? 'residual-zero' : 'aicc-margin';
+      call.reasons.push({ code: 'partial-not-supported', why, model: best.id, level: FAMILY_LEVEL, margin: PARTIAL_AICC_MARGIN });
     }
   }
   return call;
 }
 
-function tightCall(v: Verdict, winner: FamilyModelEvidence, k: ParameterEstimate, u: string, why: string): FamilyCall {
-  const what = v.outcome === 'mixed-lean' ? `mixed, leaning ${v.lean}` : v.mechanism;
+function tightCall(v: Verdict, winner: FamilyModelEvidence, k: ParameterEstimate, u: string, why: VerdictReason): FamilyCall {
+  const lean = v.outcome === 'mixed-lean' ? v.lean : undefined;
   return {
     family: 'tight-binding',
     model: winner.id,
     mechanism: v.mechanism,
     decisive: v.decisive,
-    reasons: [why, ...v.reasons.map((r) => `tight-binding models: ${r}`)],
+    reasons: [why, ...v.reasons.map((reason) => ({ code: 'within-family' as const, models: 'tight-binding' as const, reason }))],
     suggestions: [...v.suggestions],
-    headline: `${v.decisive ? 'The data support' : 'Best supported, not firm:'} tight-binding ${what} inhibition, ${constantPhrase(k, u)}.`,
+    headline: { code: 'tight-binding', decisive: v.decisive, mechanism: v.mechanism, ...(lean ? { lean } : {}), constant: constantOf(k), unit: u },
   };
 }
 
@@ -236,15 +227,15 @@ function tightCall(v: Verdict, winner: FamilyModelEvidence, k: ParameterEstimate
  * partial competitive: beta = 1) at FAMILY_LEVEL; otherwise the better simpler model, not decisive
  * when the other simpler one stays within 4 AICc units (Burnham & Anderson 2002, sec. 2.6).
  */
-export function partialWinner(ranked: readonly FamilyModelEvidence[], partial: PartialEvidence): { model: FamilyModelEvidence; decisive: boolean; reasons: string[] } {
+export function partialWinner(ranked: readonly FamilyModelEvidence[], partial: PartialEvidence): { model: FamilyModelEvidence; decisive: boolean; reasons: VerdictReason[] } {
   const simpler = ranked.filter((m) => m.mechanism !== 'mixed');
   const mixed = ranked.find((m) => m.mechanism === 'mixed');
   const kept = simpler.filter((m) => !(mixed && mixed.aicc < m.aicc && (partial.withinFamily[m.id]?.p ?? 1) < FAMILY_LEVEL));
-  if (kept.length === 0 && mixed) return { model: mixed, decisive: true, reasons: [`partial mixed improves on each simpler partial model at p < ${FAMILY_LEVEL}`] };
+  if (kept.length === 0 && mixed) return { model: mixed, decisive: true, reasons: [{ code: 'partial-mixed-beats-simpler', level: FAMILY_LEVEL }] };
   const model = kept[0] ?? ranked[0];
-  const rival = kept.find((m) => m !== model && m.aicc - model.aicc < 4);
-  if (rival) return { model, decisive: false, reasons: [`${rival.id} stays within 4 AICc units: the partial mechanism is not settled`] };
-  return { model, decisive: true, reasons: mixed && model !== mixed ? [`partial mixed does not improve on ${model.id} at p < ${FAMILY_LEVEL}`] : [] };
+  const rival = kept.find((m) => m !== model && m.aicc - model.aicc < PARTIAL_RIVAL_DELTA);
+  if (rival) return { model, decisive: false, reasons: [{ code: 'partial-rival', rival: rival.id, delta: PARTIAL_RIVAL_DELTA }] };
+  return { model, decisive: true, reasons: mixed && model !== mixed ? [{ code: 'partial-mixed-not-better', model: model.id, level: FAMILY_LEVEL }] : [] };
 }
 
 /**
@@ -263,7 +254,7 @@ export function verdictWithFamily(classic: Verdict, call: FamilyCall, familyVerd
     decisive: call.decisive,
     candidates: call.mechanism ? [call.mechanism, ...base.candidates.filter((m) => m !== call.mechanism)] : base.candidates,
     headline: call.headline,
-    reasons: [...call.reasons, ...classic.reasons.map((r) => `classic models: ${r}`)],
+    reasons: [...call.reasons, ...classic.reasons.map((reason) => ({ code: 'within-family' as const, models: 'classic' as const, reason }))],
     suggestions: [...call.suggestions],
     ...(call.family === 'partial' ? { lean: undefined } : {}),
   };

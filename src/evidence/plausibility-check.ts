@@ -6,8 +6,7 @@
  */
 import type { ConcentrationUnit } from '../input/types.js';
 import { unitShift } from '../input/units.js';
-import type { Caveat } from './caveat.js';
-import { rounded } from '../text/format-number.js';
+import type { Caveat, ImplausibleValue } from './caveat.js';
 
 export const IMPLAUSIBLE_MOLAR = 0.1;
 
@@ -25,23 +24,16 @@ interface PlausibilityInput {
 
 export function plausibilityCaveats(input: PlausibilityInput): Caveat[] {
   const out: Caveat[] = [];
-  const flagged: string[] = [];
+  const flagged: ImplausibleValue[] = [];
   const check = (label: string, value: number, axis: 'substrate' | 'inhibitor') => {
     const unit = input.units[axis];
     if (unit === null || !Number.isFinite(value)) return;
     const m = molar(value, unit);
-    if (m > IMPLAUSIBLE_MOLAR) flagged.push(`${label} = ${rounded(value, 3)} ${unit}${unit === 'M' ? '' : ` (${rounded(m, 3)} M)`}`);
+    if (m > IMPLAUSIBLE_MOLAR) flagged.push({ label, value, unit, molar: m });
   };
   check('highest [S]', input.maxSubstrate, 'substrate');
   check('highest [I]', input.maxInhibitor, 'inhibitor');
   for (const c of input.constants) check(c.name, c.value, c.axis);
-  if (flagged.length)
-    out.push({
-      code: 'implausible-concentration',
-      message: `${flagged.join(', ')}: above ${IMPLAUSIBLE_MOLAR} M, which no enzyme assay reaches; a unit slip (for example uM values in a column labelled M) is the usual cause`,
-      blocking: false,
-      suggestion: 'check the concentration units in the column headers (or --substrate-unit / --inhibitor-unit)',
-      leading: true,
-    });
+  if (flagged.length) out.push({ code: 'implausible-concentration', flagged, limitMolar: IMPLAUSIBLE_MOLAR, blocking: false, leading: true });
   return out;
 }

@@ -19,13 +19,13 @@ import { spearmanCorrelation } from '../stats/spearman-correlation.js';
 import { median } from '../stats/median.js';
 import { activityRatios, conditionMeans, inhibitorLevelsOf, type ConditionMean } from './condition-means.js';
 import { ACTIVATION_CODE, type Caveat } from './caveat.js';
-import { rounded } from '../text/format-number.js';
 
 const SUBSTRATE_DROP_Z = 3;
 const SUBSTRATE_DROP_FRACTION = 0.05;
 const PATTERN_LEVEL = 0.01;
-const SATURATED_ACTIVITY = 0.1;
-const SATURATING_CODE = 'inhibitor-saturating';
+/** Activity (fraction of the control) below which the lowest [I] counts as complete inhibition. */
+export const SATURATED_ACTIVITY = 0.1;
+const SATURATING_CODE = 'inhibitor-saturating' as const;
 
 /**
  * Scale of the weighted scatter: the pure-error variance of replicates within conditions where
@@ -63,11 +63,11 @@ export function substrateInhibitionCaveat(data: FitData, fit: MechanismFit): Cav
   if (!(drop > SUBSTRATE_DROP_Z * se && drop > SUBSTRATE_DROP_FRACTION * peak.mean)) return null;
   return {
     code: 'substrate-inhibition',
-    message: `without inhibitor the rate falls at the highest [S] (${rounded(peak.mean, 3)} at [S] = ${rounded(peak.s, 3)}, ${rounded(top.mean, 3)} at [S] = ${rounded(top.s, 3)}; ${rounded(drop / se, 3)} standard errors): substrate inhibition? The models assume rates that level off, so Km and the call may be biased`,
+    peak: { s: peak.s, mean: peak.mean },
+    top: { s: top.s, mean: top.mean },
+    standardErrors: drop / se,
     blocking: true,
-    suggestion: 'repeat the highest [S] levels; if the fall holds, exclude the [S] levels past the peak (exclude column) and analyse again',
     leading: true,
-    headline: 'The rates fall at the highest [S] (substrate inhibition?), which the five models do not describe: no firm call.',
   };
 }
 
@@ -83,9 +83,11 @@ export function activationCaveat(data: FitData, noneFit: MechanismFit | undefine
   if (ratios.length === 0 || above < 0.75 * ratios.length) return null;
   return {
     code: ACTIVATION_CODE,
-    message: `the rates rise with [I] (at the highest [I] above the control at ${above} of ${ratios.length} [S] levels, median ratio ${rounded(median(ratios.map((r) => r.ratio)), 3)}; Spearman rho of the no-inhibition residuals against [I] ${trend.rho.toFixed(2)}): the compound looks like an activator, which none of the five models describes`,
+    levelsAbove: above,
+    levels: ratios.length,
+    medianRatio: median(ratios.map((r) => r.ratio)),
+    rho: trend.rho,
     blocking: true,
-    suggestion: 'confirm the activation with a fresh dilution, and rule out a compound signal that adds to the read (compound without enzyme)',
     leading: true,
   };
 }
@@ -100,10 +102,9 @@ export function saturatingInhibitorCaveat(data: FitData): Caveat | null {
   if (!(activity < SATURATED_ACTIVITY)) return null;
   return {
     code: SATURATING_CODE,
-    message: `at the lowest non-zero [I] (${rounded(lowest, 3)}) the activity is at most ${rounded(100 * Math.max(activity, 0), 3)}% of the control at any [S]: every tested [I] lies far above Ki, so the series carry almost no information on the mechanism`,
+    lowestInhibitor: lowest,
+    activityPercent: 100 * Math.max(activity, 0),
     blocking: true,
-    suggestion: 'test lower [I], from about 0.1 x the IC50 upwards (a dilution series reaching below the lowest [I] used here)',
     leading: true,
-    headline: 'Every tested [I] inhibits almost completely, so the mechanism cannot be read: test lower [I].',
   };
 }

@@ -62,11 +62,14 @@ export interface SeriesDisagreement {
   z: number;
 }
 
+/** Standard errors by which a per-series constant may differ from the global fit's before it is flagged. */
+export const SERIES_SE_LIMIT = 3;
+
 /**
  * Where the per-series estimates differ from the global model's apparent constants by more than
- * `zLimit` standard errors of the per-series estimate (default 3; common practice).
+ * `zLimit` standard errors of the per-series estimate (default SERIES_SE_LIMIT = 3; common practice).
  */
-export function seriesDisagreements(fit: MechanismFit, series: readonly SeriesFit[], zLimit = 3): SeriesDisagreement[] {
+export function seriesDisagreements(fit: MechanismFit, series: readonly SeriesFit[], zLimit = SERIES_SE_LIMIT): SeriesDisagreement[] {
   const out: SeriesDisagreement[] = [];
   for (const sf of series) {
     if (!sf.converged) continue;

@@ -26,13 +26,17 @@
  * The levels were chosen by simulation over sparse and generous designs, well-placed and misplaced
  * [I] ranges and 2-10% noise (bench/verdict-space-bench.mjs; docs/decisions/firm-calls-exclude-alternatives.md).
  * `decisive` is true only for the outcomes `decisive` and `mixed-lean`.
+ *
+ * The verdict is data: its headline, reasons and advice are codes with their numbers
+ * (src/evidence/verdict-findings.ts), worded by src/wording/verdict-words.ts.
  */
 import type { Mechanism } from '../models/types.js';
 import type { NestedComparison } from './nested-comparisons.js';
 export type { Caveat } from './caveat.js';
-import { pPhrase, rounded } from '../text/format-number.js';
-import { ACTIVATION_CODE, type Caveat } from './caveat.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from './alpha-exclusion.js';
+import { ACTIVATION_CODE, hasHeadline, type Caveat } from './caveat.js';
+import type { AlphaExclusions } from './alpha-exclusion.js';
+import type { Advice, ExclusionFinding, MechanismPair, VerdictHeadline, VerdictReason } from './verdict-findings.js';
+export type { ExclusionFinding } from './verdict-findings.js';
 
 /** Level of the test for inhibition against no inhibition (common practice). */
 export const INHIBITION_LEVEL = 0.05;
@@ -79,6 +83,10 @@ interface VerdictInput {
   mixedLevel?: number;
   /** AICc difference below which a rival keeps substantial support; default RIVAL_DELTA */
   rivalDelta?: number;
+  /** reasons that lead every verdict (how the error model was chosen) */
+  leadingReasons?: readonly VerdictReason[];
+  /** for a no-inhibition call on noisy data: how far the tested [I] reached (src/evidence/detection-limit.ts) */
+  inhibitorReach?: () => VerdictReason;
 }
 
 export interface Verdict {
@@ -90,58 +98,48 @@ export interface Verdict {
   decisive: boolean;
   /** mechanisms that remain plausible (the winner first) */
   candidates: Mechanism[];
-  /** one plain sentence */
-  headline: string;
-  reasons: string[];
+  /** the one sentence that leads (worded by src/wording/verdict-words.ts) */
+  headline: VerdictHeadline;
+  reasons: VerdictReason[];
   /** experiments or checks that would settle what is open */
-  suggestions: string[];
+  suggestions: Advice[];
   /** for a three-parameter winner: the test against the mixed alternative it could hide */
   exclusion?: ExclusionFinding;
   /** the caveats the verdict read, by code, and whether each blocked a firm call */
   caveats?: Array<{ code: string; blocking: boolean }>;
 }
 
-/** What the exclusion step found for a three-parameter winner. */
-export interface ExclusionFinding {
-  /** the component that a firm call must exclude */
-  component: 'uncompetitive' | 'competitive' | 'unequal-constants';
-  /** true when every test behind the call rejected the mixed alternative */
-  excluded: boolean;
-  tests: AlphaBoundTest[];
-}
-
 const THREE_PARAM: Mechanism[] = ['competitive', 'uncompetitive', 'noncompetitive'];
 
-const SEPARATING_EXPERIMENT: Record<string, string> = {
-  'competitive|noncompetitive':
-    'add substrate concentrations well above Km (up to 10 x Km): only there does a competitive inhibitor lose its effect',
-  'competitive|uncompetitive':
-    'cover substrate from about 0.2 x Km to 10 x Km: competitive inhibition fades at high [S], uncompetitive grows',
-  'noncompetitive|uncompetitive':
-    'add substrate concentrations below Km (down to about 0.2 x Km): only a noncompetitive inhibitor acts there too',
-  'competitive|mixed': 'add substrate concentrations above 5 x Km to measure the effect on the enzyme-substrate complex',
-  'mixed|uncompetitive': 'add substrate concentrations below Km to measure the effect on free enzyme',
-  'mixed|noncompetitive': 'replicate the grid and extend [I] to several times Ki to pin down alpha',
-};
-
-function pairKey(a: Mechanism, b: Mechanism): string {
-  return [a, b].sort().join('|');
+function pairKey(a: Mechanism, b: Mechanism): MechanismPair | undefined {
+  const key = [a, b].sort().join('|');
+  return SEPARABLE.includes(key as MechanismPair) ? (key as MechanismPair) : undefined;
 }
 
+const SEPARABLE: readonly MechanismPair[] = [
+  'competitive|noncompetitive',
+  'competitive|uncompetitive',
+  'noncompetitive|uncompetitive',
+  'competitive|mixed',
+  'mixed|uncompetitive',
+  'mixed|noncompetitive',
+];
 
-function fmtD(d: number): string {
-  return d.toFixed(1);
-}
-
+/** The verdict, built once from all the evidence; the leading reasons (error-model choice) come first. */
 export function decideVerdict(input: VerdictInput): Verdict {
+  const v = verdictOf(input);
+  return input.leadingReasons?.length ? { ...v, reasons: [...input.leadingReasons, ...v.reasons] } : v;
+}
+
+function verdictOf(input: VerdictInput): Verdict {
   const level = input.testLevel ?? INHIBITION_LEVEL;
   const mixedLevel = input.mixedLevel ?? MIXED_LEVEL;
   const rivalDelta = input.rivalDelta ?? RIVAL_DELTA;
   const caveats = input.caveats ?? [];
   const by = new Map(input.models.map((m) => [m.mechanism, m]));
   const test = (a: Mechanism, b: Mechanism) => input.nested.find((c) => c.simpler === a && c.fuller === b);
-  const reasons: string[] = [];
-  const suggestions: string[] = [];
+  const reasons: VerdictReason[] = [];
+  const suggestions: Advice[] = [];
   const usable = input.models.filter((m) => m.converged && Number.isFinite(m.aicc));
   if (usable.length === 0) {
     return {
@@ -149,9 +147,9 @@ export function decideVerdict(input: VerdictInput): Verdict {
       mechanism: null,
       decisive: false,
       candidates: [],
-      headline: 'No model could be fitted to these data.',
-      reasons: ['none of the five fits converged'],
-      suggestions: ['check the rates and concentrations for unit or transcription errors'],
+      headline: { code: 'no-fit' },
+      reasons: [{ code: 'no-fit-converged' }],
+      suggestions: [{ code: 'check-units' }],
     };
   }
   const bestOverall = [...usable].sort((a, b) => a.aicc - b.aicc)[0];
@@ -164,19 +162,18 @@ export function decideVerdict(input: VerdictInput): Verdict {
   const strongest = inhibitionTests.reduce<NestedComparison | undefined>((acc, c) => (!acc || c.p < acc.p ? c : acc), undefined);
   if (bestOverall.mechanism === 'none' || (strongest && !(strongest.p < level))) {
     reasons.push(
-      bestOverall.mechanism === 'none'
-        ? 'the model without inhibition has the lowest AICc'
-        : `no inhibited model improves significantly on the model without inhibition (best: ${strongest!.fuller}, ${pPhrase(strongest!.p)})`,
+      bestOverall.mechanism === 'none' ? { code: 'none-ranks-first' } : { code: 'inhibition-not-significant', best: strongest!.fuller, p: strongest!.p },
     );
     const activation = caveats.some((c) => c.code === ACTIVATION_CODE);
-    if (!activation) suggestions.push('test higher inhibitor concentrations (several times the expected Ki or the IC50)');
+    if (!activation) suggestions.push({ code: 'test-higher-inhibitor' });
     addCaveats(caveats, reasons, suggestions, false);
+    if (input.inhibitorReach) reasons.push(input.inhibitorReach());
     return {
       outcome: 'no-inhibition',
       mechanism: 'none',
       decisive: false,
       candidates: ['none'],
-      headline: activation ? 'No inhibition: the rates rise with [I], as they would for an activator.' : 'No inhibition detected in the tested inhibitor range.',
+      headline: { code: 'no-inhibition', activation },
       reasons,
       suggestions,
     };
@@ -193,13 +190,10 @@ export function decideVerdict(input: VerdictInput): Verdict {
     const vsMixed = test(best3.mechanism, 'mixed');
     if (mixedFit && vsMixed && mixedFit.aicc < best3.aicc && vsMixed.p < mixedLevel) {
       winner = mixedFit;
-      reasons.push(
-        `mixed improves on the best three-parameter model, ${best3.mechanism} (${pPhrase(vsMixed.p)}, AICc lower by ${fmtD(best3.aicc - mixedFit.aicc)})`,
-      );
+      reasons.push({ code: 'mixed-earns-constant', against: best3.mechanism, p: vsMixed.p, aiccGain: best3.aicc - mixedFit.aicc });
     } else {
       winner = best3;
-      if (mixedFit && vsMixed)
-        reasons.push(`the extra constant of mixed is not supported against ${best3.mechanism} (${pPhrase(vsMixed.p)})`);
+      if (mixedFit && vsMixed) reasons.push({ code: 'mixed-not-supported', against: best3.mechanism, p: vsMixed.p });
     }
   }
 
@@ -210,7 +204,7 @@ export function decideVerdict(input: VerdictInput): Verdict {
       : three.filter((m) => m.mechanism !== winner.mechanism && m.aicc - winner.aicc < rivalDelta);
   for (const m of three) {
     if (m.mechanism === winner.mechanism) continue;
-    reasons.push(`${m.mechanism}: AICc ${fmtD(m.aicc - winner.aicc)} above ${winner.mechanism}${m.aicc - winner.aicc < rivalDelta ? ' (still substantially supported)' : ''}`);
+    reasons.push({ code: 'aicc-gap', mechanism: m.mechanism, winner: winner.mechanism, gap: m.aicc - winner.aicc, rival: m.aicc - winner.aicc < rivalDelta });
   }
 
   let outcome: VerdictOutcome = 'decisive';
@@ -219,8 +213,8 @@ export function decideVerdict(input: VerdictInput): Verdict {
   if (rivals.length > 0) {
     outcome = 'undecided';
     for (const r of rivals) {
-      const hint = SEPARATING_EXPERIMENT[pairKey(winner.mechanism, r.mechanism)];
-      if (hint && !suggestions.includes(hint)) suggestions.push(hint);
+      const pair = pairKey(winner.mechanism, r.mechanism);
+      if (pair) addAdvice(suggestions, { code: 'separate', pair });
     }
   }
 
@@ -230,12 +224,12 @@ export function decideVerdict(input: VerdictInput): Verdict {
     // computed only here, when a three-parameter winner needs them (four constrained refits)
     const tests = typeof input.exclusions === 'function' ? input.exclusions() : (input.exclusions ?? null);
     exclusion = exclusionFinding(winner.mechanism, tests);
-    const { phrase, hint } = exclusionWords(winner.mechanism, exclusion);
-    reasons.push(phrase);
+    reasons.push({ code: 'exclusion', winner: winner.mechanism, finding: exclusion });
     if (!exclusion.excluded) {
       if (outcome === 'decisive') outcome = 'undecided';
       if (!candidates.includes('mixed')) candidates.push('mixed');
-      if (hint && !suggestions.includes(hint)) suggestions.push(hint);
+      const pair = exclusion.tests.length === 0 ? undefined : EXCLUSION_EXPERIMENT[exclusion.component];
+      if (pair) addAdvice(suggestions, { code: 'separate', pair });
     }
   }
 
@@ -245,38 +239,38 @@ export function decideVerdict(input: VerdictInput): Verdict {
     if (lo !== null && lo > 1) {
       outcome = 'mixed-lean';
       lean = 'competitive';
-      reasons.push(`the interval for alpha lies above 1 (from ${lo.toPrecision(3)}): the inhibitor prefers free enzyme`);
+      reasons.push({ code: 'alpha-above-one', lower: lo });
     } else if (hi !== null && hi < 1) {
       outcome = 'mixed-lean';
       lean = 'uncompetitive';
-      reasons.push(`the interval for alpha lies below 1 (up to ${hi.toPrecision(3)}): the inhibitor prefers the enzyme-substrate complex`);
+      reasons.push({ code: 'alpha-below-one', upper: hi });
     } else {
       outcome = 'undecided';
       candidates.push('noncompetitive');
-      reasons.push('the interval for alpha includes 1, so pure noncompetitive inhibition is not excluded');
-      suggestions.push(SEPARATING_EXPERIMENT['mixed|noncompetitive']);
+      reasons.push({ code: 'alpha-includes-one' });
+      suggestions.push({ code: 'separate', pair: 'mixed|noncompetitive' });
     }
   }
 
   if (!winner.converged) {
     outcome = 'undecided';
-    reasons.push(`the ${winner.mechanism} fit did not converge`);
+    reasons.push({ code: 'fit-not-converged', mechanism: winner.mechanism });
   }
   const detection = test('none', winner.mechanism);
-  if (none && detection) reasons.unshift(`inhibition is detected: ${winner.mechanism} improves on no inhibition (${pPhrase(detection.p)})`);
+  if (none && detection) reasons.unshift({ code: 'inhibition-detected', mechanism: winner.mechanism, p: detection.p });
   const blocked = addCaveats(caveats, reasons, suggestions, true);
   if (blocked && (outcome === 'decisive' || outcome === 'mixed-lean')) outcome = 'undecided';
 
   const decisive = outcome === 'decisive' || outcome === 'mixed-lean';
-  // the sentence of a blocking caveat leads: first one marked `leading` (the first thing to fix), else any
-  const leadingCaveat = caveats.find((c) => c.blocking && c.headline && c.leading) ?? caveats.find((c) => c.blocking && c.headline);
+  // the headline of a blocking caveat leads: first one marked `leading` (the first thing to fix), else any
+  const leadingCaveat = caveats.find((c) => c.blocking && hasHeadline(c) && c.leading) ?? caveats.find((c) => c.blocking && hasHeadline(c));
   return {
     outcome,
     mechanism: winner.mechanism,
     ...(lean ? { lean } : {}),
     decisive,
     candidates: [...new Set(candidates)],
-    headline: leadingCaveat?.headline ?? headline(outcome, winner.mechanism, lean, candidates, exclusion),
+    headline: leadingCaveat ? { code: 'caveat', caveat: leadingCaveat } : headline(outcome, winner.mechanism, lean, candidates, exclusion),
     reasons,
     suggestions,
     ...(exclusion ? { exclusion } : {}),
@@ -284,25 +278,34 @@ export function decideVerdict(input: VerdictInput): Verdict {
   };
 }
 
-/**
- * Noise-free data: the simplest model that reproduces the rates exactly is the call. No test or
- * interval means anything without noise, so the reasons say so; design caveats still apply.
- */
+/** The experiment that would settle a component the exclusion step could not exclude. */
+const EXCLUSION_EXPERIMENT: Record<ExclusionFinding['component'], MechanismPair> = {
+  uncompetitive: 'competitive|mixed',
+  competitive: 'mixed|uncompetitive',
+  'unequal-constants': 'mixed|noncompetitive',
+};
+
+/** Advice once: a separating experiment already given is not repeated. */
+function addAdvice(suggestions: Advice[], advice: Advice & { code: 'separate' }): void {
+  if (!suggestions.some((s) => s.code === 'separate' && s.pair === advice.pair)) suggestions.push(advice);
+}
+
 function caveatCodes(caveats: readonly Caveat[]): Array<{ code: string; blocking: boolean }> {
   return caveats.map((c) => ({ code: c.code, blocking: c.blocking }));
 }
 
+/**
+ * Noise-free data: the simplest model that reproduces the rates exactly is the call. No test or
+ * interval means anything without noise, so the reasons say so; design caveats still apply.
+ */
 function exactVerdict(exact: readonly ExactFitEvidence[], caveats: readonly Caveat[], alpha: number | null): Verdict {
   const simplest = exact[0];
   const mechanism = simplest.mechanism;
-  const reasons = [
-    `the ${mechanism} fit reproduces every rate exactly (weighted SSE ${simplest.relativeSse.toExponential(1)} of the weighted sum of squared rates): the rates are noise-free (simulated or computed), and no model with fewer constants fits them exactly`,
-    'without noise, p-values, intervals and residual checks describe rounding only; the call rests on which models fit exactly',
-  ];
-  const suggestions: string[] = [];
+  const reasons: VerdictReason[] = [{ code: 'exact-fit', mechanism, relativeSse: simplest.relativeSse }, { code: 'exact-no-tests' }];
+  const suggestions: Advice[] = [];
   if (mechanism === 'none') {
     addCaveats(caveats, reasons, suggestions, false);
-    return { outcome: 'no-inhibition', mechanism, decisive: false, candidates: ['none'], headline: 'No inhibition: the rates follow the model without inhibition exactly.', reasons, suggestions };
+    return { outcome: 'no-inhibition', mechanism, decisive: false, candidates: ['none'], headline: { code: 'exact-no-inhibition' }, reasons, suggestions };
   }
   let outcome: VerdictOutcome = 'decisive';
   let lean: 'competitive' | 'uncompetitive' | undefined;
@@ -320,7 +323,7 @@ function exactVerdict(exact: readonly ExactFitEvidence[], caveats: readonly Cave
     ...(lean ? { lean } : {}),
     decisive,
     candidates: [mechanism],
-    headline: decisive ? `The rates follow ${mechanism} inhibition${lean ? `, leaning ${lean},` : ''} exactly (noise-free data).` : headline(outcome, mechanism, lean, [mechanism]),
+    headline: decisive ? { code: 'exact', mechanism, ...(lean ? { lean } : {}) } : headline(outcome, mechanism, lean, [mechanism]),
     reasons,
     suggestions,
   };
@@ -334,72 +337,30 @@ function exclusionFinding(winner: Mechanism, exclusions: AlphaExclusions | null)
   return { component, excluded: tests.every((t) => t.excluded), tests };
 }
 
-/** The reason sentence for the exclusion step, and the experiment that would settle it. */
-function exclusionWords(winner: Mechanism, e: ExclusionFinding): { phrase: string; hint?: string } {
-  if (e.tests.length === 0)
-    return { phrase: `the mixed model was not fitted, so a hidden component of the ${winner} call cannot be excluded`, hint: undefined };
-  const worst = e.tests.reduce((a, b) => (b.p > a.p ? b : a));
-  const test = `one-sided profile test, ${pPhrase(worst.p)}; needed p < ${EXCLUSION_LEVEL}`;
-  if (winner === 'competitive')
-    return e.excluded
-      ? { phrase: `binding to the enzyme-substrate complex is excluded down to ${ALPHA_FAR}-fold weaker than to free enzyme (alpha > ${ALPHA_FAR}; ${test})` }
-      : {
-          phrase: `a weak uncompetitive component is not excluded: alpha = ${ALPHA_FAR} (Kiu = ${ALPHA_FAR} x Ki) fits about as well (${test})`,
-          hint: SEPARATING_EXPERIMENT['competitive|mixed'],
-        };
-  if (winner === 'uncompetitive')
-    return e.excluded
-      ? { phrase: `binding to free enzyme is excluded down to ${ALPHA_FAR}-fold weaker than to the enzyme-substrate complex (alpha < ${rounded(1 / ALPHA_FAR, 3)}; ${test})` }
-      : {
-          phrase: `a weak competitive component is not excluded: alpha = ${rounded(1 / ALPHA_FAR, 3)} (Ki = ${ALPHA_FAR} x Kiu) fits about as well (${test})`,
-          hint: SEPARATING_EXPERIMENT['mixed|uncompetitive'],
-        };
-  return e.excluded
-    ? { phrase: `Ki and Kiu agree within a factor of ${NONCOMPETITIVE_BAND} (alpha between ${rounded(1 / NONCOMPETITIVE_BAND, 3)} and ${NONCOMPETITIVE_BAND}; ${test})` }
-    : {
-        phrase: `Ki and Kiu may differ by more than a factor of ${NONCOMPETITIVE_BAND}: alpha = ${rounded(worst.bound, 3)} is not excluded (${test})`,
-        hint: SEPARATING_EXPERIMENT['mixed|noncompetitive'],
-      };
-}
-
-function addCaveats(caveats: readonly Caveat[], reasons: string[], suggestions: string[], canBlock: boolean): boolean {
+/** Every caveat becomes a reason and offers its advice; returns true when one blocks a firm call. */
+function addCaveats(caveats: readonly Caveat[], reasons: VerdictReason[], suggestions: Advice[], canBlock: boolean): boolean {
   let blocked = false;
   for (const c of caveats) {
-    reasons.push(c.message);
-    if (c.suggestion && !suggestions.includes(c.suggestion)) {
-      if (c.leading) suggestions.unshift(c.suggestion);
-      else suggestions.push(c.suggestion);
-    }
+    reasons.push({ code: 'caveat', caveat: c });
+    suggestions.push({ code: 'caveat', caveat: c });
     if (c.blocking && canBlock) blocked = true;
   }
   return blocked;
 }
 
-const HIDDEN_COMPONENT: Record<ExclusionFinding['component'], string> = {
-  uncompetitive: 'a weak uncompetitive component is not excluded',
-  competitive: 'a weak competitive component is not excluded',
-  'unequal-constants': 'Ki and Kiu may differ (mixed) by more than the data resolve',
-};
-
-function headline(outcome: VerdictOutcome, winner: Mechanism, lean: string | undefined, candidates: Mechanism[], exclusion?: ExclusionFinding): string {
+function headline(outcome: VerdictOutcome, winner: Mechanism, lean: 'competitive' | 'uncompetitive' | undefined, candidates: Mechanism[], exclusion?: ExclusionFinding): VerdictHeadline {
   switch (outcome) {
     case 'decisive':
-      return `The data support ${winner} inhibition.`;
+      return { code: 'decisive', mechanism: winner };
     case 'mixed-lean':
-      return `The data support mixed inhibition, leaning ${lean}.`;
+      return { code: 'mixed-lean', lean: lean! };
     case 'no-inhibition':
-      return 'No inhibition detected in the tested inhibitor range.';
+      return { code: 'no-inhibition', activation: false };
     case 'undecided': {
       const list = [...new Set(candidates)];
       if (exclusion && !exclusion.excluded && list.length === 2 && list[1] === 'mixed')
-        return `${capitalise(winner)} ranks first, but ${HIDDEN_COMPONENT[exclusion.component]}.`;
-      return list.length > 1
-        ? `Not decided between ${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}; ${winner} ranks first.`
-        : `${capitalise(winner)} ranks first, but the call is not firm (see reasons).`;
+        return { code: 'hidden-component', winner, component: exclusion.component };
+      return list.length > 1 ? { code: 'not-decided', winner, candidates: list } : { code: 'not-firm', winner };
     }
   }
-}
-
-function capitalise(s: string): string {
-  return s.charAt(0).toUpperCase() + s.slice(1);
 }

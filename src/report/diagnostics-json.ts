@@ -2,6 +2,7 @@
 import type { AnalysisResult } from '../analysis/types.js';
 import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
 import { jsonNumber, type Json } from './json-values.js';
+import { wordVerdict } from '../wording/verdict-words.js';
 
 
 function residualJson(d: ResidualDiagnostics, result: AnalysisResult): { [key: string]: Json } {
@@ -52,7 +53,7 @@ export function diagnosticsJson(result: AnalysisResult): { [key: string]: Json }
       method: 'Tukey bisquare, c = 4.685, weights found on mixed',
       downWeighted: result.robust.downWeighted.map((d) => ({ line: d.line, substrate: d.substrate, inhibitor: d.inhibitor, rate: d.rate, weight: jsonNumber(d.weight) })),
       ranking: result.robust.ranking.map((m) => ({ mechanism: m.mechanism, aicc: jsonNumber(m.aicc), weight: jsonNumber(m.weight) })),
-      verdict: { mechanism: result.robust.verdict.mechanism, outcome: result.robust.verdict.outcome, headline: result.robust.verdict.headline },
+      verdict: { mechanism: result.robust.verdict.mechanism, outcome: result.robust.verdict.outcome, headline: wordVerdict(result.robust.verdict).headline },
       changesVerdict: result.robust.changesVerdict,
     };
   }

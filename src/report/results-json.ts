@@ -8,6 +8,7 @@ import type { DerivedQuantity } from '../evidence/derived-quantities.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { diagnosticsJson } from './diagnostics-json.js';
 import { jsonNumber, jsonPair, type Json } from './json-values.js';
+import { wordVerdict } from '../wording/verdict-words.js';
 
 export type { Json } from './json-values.js';
 
@@ -98,6 +99,8 @@ function enzymeJson(e: AnalysisResult['enzyme']): Json {
 
 export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
   const input = result.input;
+  const verdictWords = wordVerdict(result.verdict);
+  const familyWords = wordVerdict(result.family);
   return {
     tool: { name: TOOL_NAME, version: TOOL_VERSION },
     input: {
@@ -147,14 +150,14 @@ export function analysisJson(result: AnalysisResult): { [key: string]: Json } {
       mechanism: result.verdict.mechanism,
       family: result.family.family,
       ...(result.family.family !== 'classic' ? { model: result.family.model } : {}),
-      ...(result.family.reasons.length || result.family.suggestions.length ? { familyNotes: [...new Set([...result.family.reasons, ...result.family.suggestions])] } : {}),
+      ...(familyWords.reasons.length || familyWords.suggestions.length ? { familyNotes: [...new Set([...familyWords.reasons, ...familyWords.suggestions])] } : {}),
       outcome: result.verdict.outcome,
       ...(result.verdict.lean ? { lean: result.verdict.lean } : {}),
       decisive: result.verdict.decisive,
       candidates: result.verdict.candidates,
-      headline: result.verdict.headline,
-      reasons: result.verdict.reasons,
-      suggestions: result.verdict.suggestions,
+      headline: verdictWords.headline,
+      reasons: verdictWords.reasons,
+      suggestions: verdictWords.suggestions,
       ...(result.verdict.exclusion
         ? {
             exclusion: {

@@ -6,6 +6,7 @@ import { diagnosticLines } from './diagnostic-lines.js';
 import { describeTable } from '../input/describe-table.js';
 import { distinctAdvice } from './distinct-advice.js';
 import { undetectedText } from './undetected-text.js';
+import { wordVerdict } from '../wording/verdict-words.js';
 
 function pad(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);
@@ -76,8 +77,9 @@ function derivedLines(model: ModelResult, result: AnalysisResult): string[] {
 
 /** The family notes (tight-binding, partial, the hint to give [E]t), when there are any. */
 function familyLines(result: AnalysisResult): string[] {
-  const f = result.family;
-  if (!f || (f.family === 'classic' && f.reasons.length === 0 && f.suggestions.length === 0)) return [];
+  if (!result.family) return [];
+  const f = { family: result.family.family, ...wordVerdict(result.family) };
+  if (f.family === 'classic' && f.reasons.length === 0 && f.suggestions.length === 0) return [];
   const out = [`  Family: ${f.family}${result.enzyme === 'fitted' ? ' ([E]t fitted)' : result.enzyme ? ` ([E]t = ${result.enzyme.value} ${result.enzyme.unit ?? ''}`.trimEnd() + ')' : ''}`];
   if (f.family === 'classic') {
     for (const r of f.reasons) out.push(`  - ${r}`);
@@ -88,7 +90,7 @@ function familyLines(result: AnalysisResult): string[] {
 
 export function textSummary(result: AnalysisResult): string {
   const inp = result.input;
-  const v = result.verdict;
+  const v = { ...result.verdict, ...wordVerdict(result.verdict) };
   const best = result.models.find((m) => m.mechanism === v.mechanism) ?? result.models[0];
   const lines: string[] = [];
   lines.push(result.table.detection ? describeTable(result.table) : `${inp.source}: ${inp.rowsRead} read, ${inp.rowsUsed} used`);

@@ -14,12 +14,13 @@ import { simulateModelRates } from '../../src/simulate/simulate-model.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { lookupModel } from '../../src/models/registry.js';
 import { parseRateText } from '../../src/input/parse-rate-text.js';
-import { oneParameterTest } from '../../src/evidence/family-comparison.js';
+import { oneParameterTest, TIGHT_BINDING_RATIO } from '../../src/evidence/family-comparison.js';
 import { morrisonFractions } from '../../src/models/morrison.js';
 import { renderFigures } from '../../src/figures/render-figures.js';
 import { fractionalActivity } from '../../src/figures/fractional-activity.js';
 import type { RatePoint } from '../../src/input/types.js';
 import { runCaptured } from '../helpers/cli-capture.js';
+
 
 const S = [2, 4, 7, 10, 15, 25, 50, 100];
 const sim = (model: string, params: Record<string, number>, inhibitor: number[], seed: number, enzyme?: number): RatePoint[] =>
@@ -33,7 +34,8 @@ describe('tight binding, [E]t given', () => {
   it('calls tight-binding competitive with the true Ki inside the profile interval, where the classic models do not', () => {
     expect(result.family.family).toBe('tight-binding');
     expect(result.verdict.mechanism).toBe('competitive');
-    expect(result.verdict.headline).toMatch(/tight-binding competitive inhibition, Ki = [\d.]+ nM \[/);
+    expect(result.verdict.headline).toMatchObject({ code: 'tight-binding', mechanism: 'competitive', unit: 'nM', constant: { name: 'Ki' } });
+    expect(result.verdict.reasons[0]).toEqual({ code: 'enzyme-near-constant', enzyme: 5, unit: 'nM', ratio: TIGHT_BINDING_RATIO, name: 'Ki' });
     const m = result.familyModels!.find((x) => x.modelId === 'tight-binding competitive')!;
     const ki = m.estimates.find((e) => e.name === 'Ki')!;
     expect(ki.profile![0]!).toBeLessThan(1);
@@ -59,7 +61,7 @@ describe('tight binding, [E]t given', () => {
     const [table] = parseRateText(csv, { source: 'col.csv' });
     const fromColumn = analyzeTable(table, { errorModel: 'proportional' });
     expect(fromColumn.enzyme).toEqual({ value: 5, unit: 'nM', source: 'column' });
-    expect(fromColumn.verdict.headline).toBe(result.verdict.headline);
+    expect(fromColumn.verdict.headline).toEqual(result.verdict.headline);
   });
   it('a classic inhibitor with [E]t far below Ki keeps the classic call, verdict unchanged', () => {
     const points = sim('competitive', { Vmax: 100, Km: 10, Ki: 1 }, [0, 0.5, 1, 2, 4], 77);
@@ -67,7 +69,7 @@ describe('tight binding, [E]t given', () => {
     const withE = analyzeTable(tableOf(points), { errorModel: 'proportional', enzyme: { value: 0.01, unit: 'nM' } });
     expect(withE.family.family).toBe('classic');
     expect(withE.verdict).toEqual(plain.verdict);
-    expect(withE.family.reasons[0]).toMatch(/negligible/);
+    expect(withE.family.reasons[0]).toMatchObject({ code: 'enzyme-negligible', enzyme: 0.01, ratio: TIGHT_BINDING_RATIO });
   });
   it('the fractional-activity figure draws the fitted curves from the model itself (v/v0 = Ef/E)', () => {
     const m = result.familyModels!.find((x) => x.modelId === 'tight-binding competitive')!;
@@ -95,7 +97,7 @@ describe('tight binding, [E]t fitted', () => {
     const classicPoints = sim('noncompetitive', { Vmax: 60, Km: 10, Ki: 50 }, [0, 25, 50, 100, 200], 32);
     const c = analyzeTable(tableOf(classicPoints), { errorModel: 'proportional', enzyme: 'fit' });
     expect(c.family.family).toBe('classic');
-    expect(c.family.reasons.join(' ')).toMatch(/not identifiable/);
+    expect(c.family.reasons.map((r) => r.code)).toContain('enzyme-not-identifiable');
     expect((analysisJson(c) as any).input.enzyme).toBe('fitted');
   });
 });
@@ -106,7 +108,7 @@ describe('partial inhibition', () => {
     const r = analyzeTable(tableOf(points), { errorModel: 'proportional', partial: true });
     expect(r.family.family).toBe('partial');
     expect(r.verdict.mechanism).toBe('noncompetitive');
-    expect(r.verdict.headline).toMatch(/partial noncompetitive inhibition, Ki = .* residual activity beta = /);
+    expect(r.verdict.headline).toMatchObject({ code: 'partial', mechanism: 'noncompetitive', constant: { name: 'Ki' }, beta: { name: 'beta' } });
     const json = analysisJson(r) as any;
     const m = json.models.find((x: any) => x.model === 'partial noncompetitive');
     expect(m.params.beta.profile95[0]).toBeLessThan(0.2);
@@ -146,7 +148,7 @@ describe('classic-only analysis is unchanged', () => {
   });
   it('a Ki below the lowest [I] without [E]t gives the hint to supply it', () => {
     const r = analyzeTable(tableOf(tbPoints), { errorModel: 'proportional' });
-    expect(r.family.suggestions.join(' ')).toMatch(/--enzyme/);
+    expect(r.family.suggestions).toContainEqual(expect.objectContaining({ code: 'give-enzyme', unit: 'nM', constant: expect.objectContaining({ name: 'Ki' }) }));
   });
 });
 

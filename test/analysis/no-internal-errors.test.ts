@@ -10,6 +10,7 @@ import fc from 'fast-check';
 import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { simulateRates } from '../../src/simulate/simulate-rates.js';
+import { wordVerdict } from '../../src/wording/verdict-words.js';
 
 const S = [1, 3, 10, 30];
 const I = [0, 1, 4];
@@ -35,8 +36,9 @@ describe('no internal errors on random rate tables', () => {
           return;
         }
         analysed++;
-        const text = [result.verdict.headline, ...result.verdict.reasons, ...result.verdict.suggestions].join(' ');
-        expect(result.verdict.headline.length).toBeGreaterThan(0);
+        const words = wordVerdict(result.verdict);
+        const text = [words.headline, ...words.reasons, ...words.suggestions].join(' ');
+        expect(words.headline.length).toBeGreaterThan(0);
         expect(text).not.toMatch(/NaN|undefined/);
       }),
       { numRuns: 100, seed: 20261202 },
@@ -60,7 +62,8 @@ describe('no internal errors on random rate tables', () => {
           let text: string;
           try {
             const r = analyzeTable(tableFromPoints(points), { detail: 'summary' });
-            text = [r.verdict.headline, ...r.verdict.reasons, ...r.verdict.suggestions].join(' ');
+            const words = wordVerdict(r.verdict);
+            text = [words.headline, ...words.reasons, ...words.suggestions].join(' ');
           } catch (e) {
             expect(e).toBeInstanceOf(AnalysisError);
             text = (e as Error).message;

@@ -10,13 +10,25 @@ import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js
 import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
+import type { Caveat } from '../../src/evidence/caveat.js';
+import { SATURATED_ACTIVITY } from '../../src/evidence/rate-pattern-checks.js';
 
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'odd-data');
 async function analysed(name: string) {
   const [table] = await readRateFile(join(dir, `${name}.csv`));
   return analyzeTable(table, { detail: 'summary' });
 }
-const codesOf = (r: Awaited<ReturnType<typeof analysed>>) => r.verdict.reasons.join(' | ');
+type Result = Awaited<ReturnType<typeof analysed>>;
+/** The caveats among the verdict's reasons, and the codes of the reasons. */
+const caveatsOf = (r: Result): Caveat[] => r.verdict.reasons.flatMap((x) => (x.code === 'caveat' ? [x.caveat] : []));
+const caveatCodes = (r: Result) => caveatsOf(r).map((c) => c.code);
+/** The caveat whose headline leads the verdict, if one does. */
+const leadingCaveat = (r: Result) => (r.verdict.headline.code === 'caveat' ? r.verdict.headline.caveat : undefined);
+/** The code of the first piece of advice, and of the caveat it comes from. */
+const firstAdvice = (r: Result) => {
+  const a = r.verdict.suggestions.find((x) => x.code === 'caveat' && x.caveat.leading);
+  return a?.code === 'caveat' ? a.caveat.code : r.verdict.suggestions[0]?.code;
+};
 
 describe('odd tables get the statement an enzymologist expects', () => {
   it('the clean reference table: a firm competitive call', async () => {
@@ -32,16 +44,20 @@ describe('odd tables get the statement an enzymologist expects', () => {
     expect(r.robust!.downWeighted.map((d) => d.line)).toContain(23);
     expect(r.robust!.verdict.mechanism).toBe('competitive');
     expect(r.verdict.decisive).toBe(false);
-    expect(r.verdict.headline).toMatch(/^The call depends on one outlying point \(line 23, rate 3\.\d+e7\): with it down-weighted the data point to competitive/);
-    expect(r.verdict.suggestions[0]).toMatch(/line 23/);
+    const lead = leadingCaveat(r);
+    expect(lead).toMatchObject({ code: 'robust', change: 'changes', robustCall: 'competitive', blocking: true, leading: true });
+    expect(lead?.code === 'robust' && lead.downWeighted.map((d) => d.line)).toEqual([23]);
+    expect(lead?.code === 'robust' && lead.downWeighted[0].rate).toBeGreaterThan(3e7);
+    expect(firstAdvice(r)).toBe('robust');
   });
 
   it('noise-free rates: called competitive, with no residual "miss" and no division by zero', async () => {
     const r = await analysed('noise-free-competitive');
     expect(r.verdict.mechanism).toBe('competitive');
     expect(r.verdict.decisive).toBe(true);
-    expect(r.verdict.headline).toBe('The rates follow competitive inhibition exactly (noise-free data).');
-    expect(codesOf(r)).not.toMatch(/misses systematically|lack-of-fit/);
+    expect(r.verdict.headline).toEqual({ code: 'exact', mechanism: 'competitive' });
+    expect(caveatCodes(r)).not.toContain('residual-runs');
+    expect(caveatCodes(r)).not.toContain('lack-of-fit');
     for (const m of r.models) expect(Number.isNaN(m.aicc)).toBe(false);
   });
 
@@ -62,23 +78,30 @@ describe('odd tables get the statement an enzymologist expects', () => {
   it('an activator is named as such, without the "test higher [I]" advice', async () => {
     const r = await analysed('activator');
     expect(r.verdict.outcome).toBe('no-inhibition');
-    expect(r.verdict.headline).toBe('No inhibition: the rates rise with [I], as they would for an activator.');
-    expect(r.verdict.suggestions.join(' ')).not.toMatch(/higher inhibitor/);
-    expect(r.verdict.suggestions[0]).toMatch(/confirm the activation/);
+    expect(r.verdict.headline).toEqual({ code: 'no-inhibition', activation: true });
+    expect(r.verdict.suggestions.map((a) => a.code)).not.toContain('test-higher-inhibitor');
+    expect(firstAdvice(r)).toBe('activation');
+    const a = caveatsOf(r).find((c) => c.code === 'activation');
+    expect(a?.code === 'activation' && a.levelsAbove / a.levels).toBeGreaterThanOrEqual(0.75);
+    expect(a?.code === 'activation' && a.medianRatio).toBeGreaterThan(1);
   });
 
   it('substrate inhibition is named and blocks a firm call', async () => {
     const r = await analysed('substrate-inhibition');
     expect(r.verdict.decisive).toBe(false);
-    expect(r.verdict.headline).toMatch(/substrate inhibition\?/);
-    expect(r.verdict.suggestions[0]).toMatch(/highest \[S\]/);
+    const lead = leadingCaveat(r);
+    expect(lead?.code).toBe('substrate-inhibition');
+    expect(lead?.code === 'substrate-inhibition' && lead.top.mean).toBeLessThan(lead?.code === 'substrate-inhibition' ? lead.peak.mean : 0);
+    expect(firstAdvice(r)).toBe('substrate-inhibition');
   });
 
   it('complete inhibition at the lowest [I] asks for lower [I] first', async () => {
     const r = await analysed('saturating-inhibitor');
     expect(r.verdict.decisive).toBe(false);
-    expect(r.verdict.headline).toBe('Every tested [I] inhibits almost completely, so the mechanism cannot be read: test lower [I].');
-    expect(r.verdict.suggestions[0]).toMatch(/^test lower \[I\]/);
+    const lead = leadingCaveat(r);
+    expect(lead?.code).toBe('inhibitor-saturating');
+    expect(lead?.code === 'inhibitor-saturating' && lead.activityPercent).toBeLessThan(100 * SATURATED_ACTIVITY);
+    expect(firstAdvice(r)).toBe('inhibitor-saturating');
   });
 
   it('a block of rows pasted twice is noticed, with its lines, and blocks a firm call', async () => {
@@ -86,13 +109,18 @@ describe('odd tables get the statement an enzymologist expects', () => {
     const w = r.input.warnings.find((x) => x.code === 'repeated-block');
     expect(w?.message).toMatch(/^lines 82-89 repeat lines 32-39 exactly/);
     expect(r.verdict.decisive).toBe(false);
-    expect(r.verdict.headline).toMatch(/repeats a block of rows exactly/);
+    expect(leadingCaveat(r)?.code).toBe('repeated-block');
   });
 
   it(`an [I] column in M holding uM values gets a plausibility note (above ${IMPLAUSIBLE_MOLAR} M)`, async () => {
     const r = await analysed('inhibitor-unit-slip');
-    expect(codesOf(r)).toMatch(/highest \[I\] = 8 M, Ki = [\d.]+ M: above 0\.1 M.*unit slip/);
-    expect(r.verdict.suggestions[0]).toMatch(/check the concentration units/);
+    const c = caveatsOf(r).find((x) => x.code === 'implausible-concentration');
+    expect(c?.code === 'implausible-concentration' && c.limitMolar).toBe(IMPLAUSIBLE_MOLAR);
+    const flagged = c?.code === 'implausible-concentration' ? c.flagged : [];
+    expect(flagged.map((f) => f.label)).toEqual(['highest [I]', 'Ki']);
+    expect(flagged[0]).toMatchObject({ value: 8, unit: 'M', molar: 8 });
+    expect(flagged[1].molar).toBeGreaterThan(IMPLAUSIBLE_MOLAR);
+    expect(firstAdvice(r)).toBe('implausible-concentration');
   });
 
   it('one [S] level: no Wald interval where the profile is open, and no firm call', async () => {
@@ -125,7 +153,7 @@ describe('constants the data cannot determine', () => {
     expect(vmax.note).toMatch(/Vmax is not determined: the fit runs along a ridge/);
     expect(r.verdict.decisive).toBe(false);
     // the design shortfall behind the ridge leads the verdict
-    expect(r.verdict.headline).toMatch(/^The highest \[S\] is only 0\.\d+ x Km, too low to tell the mechanisms apart/);
+    expect(leadingCaveat(r)?.code).toBe('substrate-below-2km');
   });
   it('Wald intervals of positive constants are formed on the log scale and stay positive', async () => {
     const r = await analysed('clean-competitive');

@@ -81,14 +81,14 @@ describe('error model check', () => {
   it('--error auto picks proportional on proportional noise and constant on constant noise', () => {
     const prop = analyzeTable(simulatedTable('competitive', 31), { errorModel: 'auto' });
     expect(prop.errorModel).toBe('proportional');
-    expect(prop.verdict.reasons[0]).toMatch(/error model chosen automatically: proportional/);
+    expect(prop.verdict.reasons[0]).toMatchObject({ code: 'error-model-chosen', chosen: 'proportional' });
     const cons = analyzeTable(simulatedTable('competitive', 32, GOOD_DESIGN, { noise: 'constant', noiseLevel: 2 }), { errorModel: 'auto' });
     expect(cons.errorModel).toBe('constant');
   });
   it('warns when the chosen error model is clearly worse', () => {
     const r = analyzeTable(simulatedTable('competitive', 33, GOOD_DESIGN, { noiseLevel: 0.1 }), { errorModel: 'constant' });
     expect(r.errorModelCheck?.clearlyWorse).toBe(true);
-    expect(r.verdict.reasons.join(' ')).toMatch(/constant error model fits the scatter clearly worse than/);
+    expect(r.verdict.reasons).toContainEqual({ code: 'caveat', caveat: expect.objectContaining({ code: 'error-model', chosen: 'constant', best: r.errorModelCheck!.best }) });
   });
 });
 

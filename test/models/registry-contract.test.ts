@@ -14,6 +14,7 @@ import { summarizeAnalysis } from '../../src/batch/summarize.js';
 import { summaryCsv } from '../../src/batch/summary-files.js';
 import { simulateModelRates } from '../../src/simulate/simulate-model.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
+import { wordVerdict } from '../../src/wording/verdict-words.js';
 
 const toy: MechanismModel = {
   mechanism: 'uncompetitive',
@@ -82,7 +83,7 @@ describe('a model registered from outside goes end to end', () => {
     expect(result.family.family).toBe('partial');
     expect(result.family.model).toBe('toy partial uncompetitive');
     expect(result.verdict.mechanism).toBe('uncompetitive');
-    expect(result.verdict.headline).toContain('partial uncompetitive');
+    expect(wordVerdict(result.verdict).headline).toContain('partial uncompetitive');
     // JSON report
     const json = analysisJson(result) as any;
     const entry = json.models.find((x: any) => x.model === 'toy partial uncompetitive');

@@ -11,6 +11,7 @@ import type { AnalysisResult } from '../../src/analysis/types.js';
 import { fitChecksSection } from '../../src/report/html/sections/fit-checks-section.js';
 import { pValue, sig } from '../../src/text/format-number.js';
 import { simulatedTable } from '../helpers/sim-table.js';
+import { wordVerdict } from '../../src/wording/verdict-words.js';
 
 function sectionOf(result: AnalysisResult): Element {
   return new JSDOM(`<body>${fitChecksSection(result)}</body>`).window.document.getElementById('checks')!;
@@ -62,7 +63,7 @@ describe('checks section with an injected outlier and --robust', () => {
     const ranking = rowsOf(section, 'robust-ranking').map((r) => r[1]);
     expect(ranking).toEqual(result.robust!.ranking.map((m) => m.mechanism));
     const text = section.textContent ?? '';
-    expect(text).toContain(result.robust!.verdict.headline);
+    expect(text).toContain(wordVerdict(result.robust!.verdict).headline);
     expect(text).toContain(result.robust!.changesVerdict ? 'The call changes' : 'The call stands');
   });
 

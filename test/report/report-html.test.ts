@@ -15,6 +15,7 @@ import { DATE_ELEMENT_PATTERN } from '../../src/report/html/sections/provenance-
 import { escapeHtml } from '../../src/report/html/escape.js';
 import { sha256Hex } from '../../src/input/file-hash.js';
 import { TOOL_VERSION } from '../../src/version.js';
+import { wordVerdict } from '../../src/wording/verdict-words.js';
 
 let demo: AnalysisResult;
 let figures: FigureOutput[];
@@ -52,9 +53,10 @@ describe('report page', () => {
 
   it('shows the verdict headline and each reason', () => {
     const verdict = doc.getElementById('verdict')!;
-    expect(verdict.querySelector('.headline')!.textContent).toBe(demo.verdict.headline);
+    const words = wordVerdict(demo.verdict);
+    expect(verdict.querySelector('.headline')!.textContent).toBe(words.headline);
     const reasons = Array.from(verdict.querySelectorAll('ul.reasons li')).map((li) => li.textContent);
-    expect(reasons).toEqual(demo.verdict.reasons);
+    expect(reasons).toEqual(words.reasons);
   });
 
   it('inlines every figure once, each with a title', () => {

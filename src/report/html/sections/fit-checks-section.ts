@@ -17,6 +17,7 @@ import { displayUnit, withUnit as quantityWithUnit } from '../../../figures/axis
 import { escapeHtml } from '../escape.js';
 import { pValue, sig } from '../../../text/format-number.js';
 import { cell, htmlTable, type Cell } from '../html-table.js';
+import { wordVerdict } from '../../../wording/verdict-words.js';
 
 /** One residual test as a table row: what was tested, the statistic, p, and a plain reading. */
 interface TestRow {
@@ -248,9 +249,10 @@ function robustBlock(result: AnalysisResult): string {
     ]),
     'data robust-ranking',
   );
+  const robustHeadline = wordVerdict(r.verdict).headline;
   const call = r.changesVerdict
-    ? `<p class="warn"><strong>The call changes:</strong> ${escapeHtml(`with these points down-weighted, the robust fits say: ${r.verdict.headline} The least-squares call depends on them.`)}</p>`
-    : `<p><strong>The call stands:</strong> ${escapeHtml(`the robust fits say: ${r.verdict.headline}`)}</p>`;
+    ? `<p class="warn"><strong>The call changes:</strong> ${escapeHtml(`with these points down-weighted, the robust fits say: ${robustHeadline} The least-squares call depends on them.`)}</p>`
+    : `<p><strong>The call stands:</strong> ${escapeHtml(`the robust fits say: ${robustHeadline}`)}</p>`;
   return `<h3>Robust refit</h3>
 <p>${escapeHtml(`Tukey's bisquare weights (Beaton & Tukey 1974) found on the mixed fit, then held fixed while all mechanisms were refitted.${r.downWeighted.length ? ` Points weighted below 0.5: ${r.downWeighted.length}.` : ''}`)}</p>
 ${points}

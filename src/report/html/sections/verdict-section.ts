@@ -6,6 +6,7 @@ import { parameterUnit } from '../units-text.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { distinctAdvice } from '../../distinct-advice.js';
 import { undetectedText } from '../../undetected-text.js';
+import { wordVerdict } from '../../../wording/verdict-words.js';
 
 const OUTCOME_LABEL: Record<string, string> = {
   decisive: 'firm call',
@@ -16,13 +17,14 @@ const OUTCOME_LABEL: Record<string, string> = {
 
 /** Notes on the other families when the call stayed classic (why, or the hint to give [E]t); '' when there are none. */
 function familyNotes(result: AnalysisResult): string {
-  const f = result.family;
-  if (!f || f.family !== 'classic' || (f.reasons.length === 0 && f.suggestions.length === 0)) return '';
+  if (!result.family || result.family.family !== 'classic') return '';
+  const f = wordVerdict(result.family);
+  if (f.reasons.length === 0 && f.suggestions.length === 0) return '';
   return `\n<h3>Tight binding and partial inhibition</h3><ul class="family-notes">${[...f.reasons, ...f.suggestions].map((t) => `<li>${escapeHtml(t)}</li>`).join('')}</ul>`;
 }
 
 export function verdictSection(result: AnalysisResult): string {
-  const v = result.verdict;
+  const v = { ...result.verdict, ...wordVerdict(result.verdict) };
   const model = drawnModel(result);
   const pct = Math.round(result.level * 100);
   const keys = model.estimates
