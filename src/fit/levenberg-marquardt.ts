@@ -92,8 +92,11 @@ function takeWorkspace(n: number, m: number): Workspace {
   return w;
 }
 
+/** Larger problems (a big single-compound file) are rare and allocate afresh: nothing big is kept. */
+const LARGEST_KEPT_WORKSPACE = 65536;
+
 function releaseWorkspace(n: number, m: number, w: Workspace): void {
-  if (m < 64) idleWorkspaces.set(n * 64 + m, w);
+  if (m < 64 && n * m <= LARGEST_KEPT_WORKSPACE) idleWorkspaces.set(n * 64 + m, w);
 }
 
 /** Euclidean norm of r at x, or Infinity when x is outside the domain or r is not finite. */
