@@ -51,8 +51,10 @@ function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [
   const free = Array.from({ length: m }, (_, j) => j).filter((j) => j !== held[0] && j !== held[1]);
   const theta = new Float64Array(m);
   const jFull = new Float64Array(n * m);
+  const freeIndex = Int32Array.from(free);
+  const mFree = free.length;
   const fill = (z: ArrayLike<number>) => {
-    free.forEach((j, f) => (theta[j] = z[f]));
+    for (let f = 0; f < mFree; f++) theta[freeIndex[f]] = z[f];
     theta[held[0]] = fixed[0];
     theta[held[1]] = fixed[1];
     return theta;
@@ -63,9 +65,11 @@ function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [
     residuals: (z, r) => full.residuals(fill(z), r),
     jacobian: (z, J) => {
       full.jacobian(fill(z), jFull);
-      // plain loops (no closure per row): this copy ran for every ray step and was a tenth of the analysis
-      const mFree = free.length;
-      for (let k = 0; k < n; k++) for (let f = 0; f < mFree; f++) J[k * mFree + f] = jFull[k * m + free[f]];
+      // plain loops over typed arrays, column by column: this copy runs for every ray step
+      for (let f = 0; f < mFree; f++) {
+        const j = freeIndex[f];
+        for (let k = 0; k < n; k++) J[k * mFree + f] = jFull[k * m + j];
+      }
     },
   };
   return { problem, theta, free };

@@ -76,6 +76,16 @@ export function profiledProblem(full: LeastSquaresProblem, q: ProfiledQuantity, 
   const theta = new Float64Array(m);
   const jFull = new Float64Array(n * m);
   const mFree = m - 1;
+  // For each free index f, the full columns feeding it (one, or two for Ki under alpha), in
+  // increasing order: J[., f] = (0 + column first) + column second, the sum a zeroed J accumulated.
+  const first = new Int32Array(mFree).fill(-1);
+  const second = new Int32Array(mFree).fill(-1);
+  for (let i = 0; i < m; i++) {
+    const f = q.freeIndex[i];
+    if (f < 0) continue;
+    if (first[f] < 0) first[f] = i;
+    else second[f] = i;
+  }
   return {
     n,
     m: mFree,
@@ -84,12 +94,12 @@ export function profiledProblem(full: LeastSquaresProblem, q: ProfiledQuantity, 
     },
     jacobian(z, J) {
       full.jacobian(fullTheta(q, z, fixed.value, theta), jFull);
-      J.fill(0);
-      for (let k = 0; k < n; k++) {
-        for (let i = 0; i < m; i++) {
-          const f = q.freeIndex[i];
-          if (f >= 0) J[k * mFree + f] += jFull[k * m + i];
-        }
+      for (let f = 0; f < mFree; f++) {
+        const a = first[f];
+        const b = second[f];
+        if (a < 0) for (let k = 0; k < n; k++) J[k * mFree + f] = 0;
+        else if (b < 0) for (let k = 0; k < n; k++) J[k * mFree + f] = 0 + jFull[k * m + a];
+        else for (let k = 0; k < n; k++) J[k * mFree + f] = 0 + jFull[k * m + a] + jFull[k * m + b];
       }
     },
   };

@@ -1,9 +1,10 @@
 /**
- * Scales and axes shared by the figures: d3-scale for the mapping, d3-axis for the ticks, styled
- * for print (8 pt tick labels, thin dark lines) with attributes only, so every SVG stands alone.
+ * Scales and axes shared by the figures: d3-scale for the mapping, the markup of d3-axis written
+ * as text (axisMarkup), styled for print (8 pt tick labels, thin dark lines) with attributes only,
+ * so every SVG stands alone.
  */
 import * as d3 from 'd3';
-import type { Group } from './svg-document.js';
+import { appendRawElement, type Group } from './svg-document.js';
 import { INK } from './palette.js';
 import { FONT, textWidth } from './text-metrics.js';
 
@@ -127,11 +128,46 @@ export function bottomGutter(withTitle = true): number {
   return FONT.tick + 8 + (withTitle ? FONT.axisTitle + 5 : 0);
 }
 
-function styleAxis(g: Group): void {
-  g.attr('font-size', FONT.tick).attr('font-family', null).attr('color', INK.axis);
-  g.selectAll('text').attr('fill', INK.text);
-  g.selectAll('.domain').attr('stroke-width', 0.6);
-  g.selectAll('.tick line').attr('stroke-width', 0.5);
+/** d3-axis's half-unit offset for crisp lines (its value when no browser window is present). */
+const AXIS_OFFSET = 0.5;
+const TICK_SIZE = 3;
+const TICK_PADDING = 2;
+
+function escapeText(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/\u00a0/g, '&nbsp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+}
+
+/**
+ * The markup of a bottom or left axis, written as text: the bytes d3.axisBottom / d3.axisLeft
+ * (tick size 3, padding 2) produce on jsdom once restyled for print (tick font size, no font
+ * family, the axis colour, label ink, thin lines), built without a DOM. Drawing the axes node by
+ * node on jsdom was about 40% of a report's figure time (docs/decisions/analysis-cost.md); the
+ * figure tests and the committed demo figures check that the output is unchanged.
+ */
+function axisMarkup(orient: 'bottom' | 'left', scale: NumericScale, values: readonly number[], label: (d: number) => string, attributes: string): string {
+  const range = scale.range();
+  const range0 = +range[0] + AXIS_OFFSET;
+  const range1 = +range[range.length - 1] + AXIS_OFFSET;
+  const bottom = orient === 'bottom';
+  const k = bottom ? 1 : -1;
+  const d = bottom
+    ? `M${range0},${k * TICK_SIZE}V${AXIS_OFFSET}H${range1}V${k * TICK_SIZE}`
+    : `M${k * TICK_SIZE},${range0}H${AXIS_OFFSET}V${range1}H${k * TICK_SIZE}`;
+  const parts = [
+    `<g ${attributes} fill="none" font-size="${FONT.tick}" text-anchor="${bottom ? 'middle' : 'end'}" color="${INK.axis}">`,
+    `<path class="domain" stroke="currentColor" d="${d}" stroke-width="0.6"></path>`,
+  ];
+  const spacing = Math.max(TICK_SIZE, 0) + TICK_PADDING;
+  for (const value of values) {
+    const p = +scale(value) + AXIS_OFFSET;
+    parts.push(
+      `<g class="tick" opacity="1" transform="${bottom ? `translate(${p},0)` : `translate(0,${p})`}">`,
+      `<line stroke="currentColor" ${bottom ? 'y2' : 'x2'}="${k * TICK_SIZE}" stroke-width="0.5"></line>`,
+      `<text fill="${INK.text}" ${bottom ? 'y' : 'x'}="${k * spacing}" dy="${bottom ? '0.71em' : '0.32em'}">${escapeText(label(value))}</text></g>`,
+    );
+  }
+  parts.push('</g>');
+  return parts.join('');
 }
 
 interface AxesOptions {
@@ -144,27 +180,9 @@ interface AxesOptions {
 
 /** Draws the x axis at the bottom and the y axis on the left of a plot area of size (w, h). */
 export function drawAxes(g: Group, x: NumericScale, y: NumericScale, xSpec: AxisSpec, ySpec: AxisSpec, w: number, h: number, options: AxesOptions = {}): void {
-  const xAxis = d3
-    .axisBottom(x)
-    .tickValues(ticksOf(x, xSpec))
-    .tickFormat((d) => tickLabel(Number(d)))
-    .tickSizeOuter(0)
-    .tickSize(3)
-    .tickPadding(2);
-  const gx = g.append('g').attr('class', 'axis x').attr('transform', `translate(0,${h})`);
-  gx.call(xAxis);
-  styleAxis(gx);
+  appendRawElement(g, axisMarkup('bottom', x, ticksOf(x, xSpec), (d) => tickLabel(Number(d)), `class="axis x" transform="translate(0,${h})"`));
   const showYLabels = options.yLabels ?? true;
-  const yAxis = d3
-    .axisLeft(y)
-    .tickValues(ticksOf(y, ySpec))
-    .tickFormat((d) => (showYLabels ? tickLabel(Number(d)) : ''))
-    .tickSizeOuter(0)
-    .tickSize(3)
-    .tickPadding(2);
-  const gy = g.append('g').attr('class', 'axis y');
-  gy.call(yAxis);
-  styleAxis(gy);
+  appendRawElement(g, axisMarkup('left', y, ticksOf(y, ySpec), (d) => (showYLabels ? tickLabel(Number(d)) : ''), 'class="axis y"'));
   if (options.xTitle ?? true) {
     g.append('text')
       .attr('class', 'axis-title')

@@ -52,13 +52,30 @@ export function appendRawLayer(parent: d3.Selection<SVGGElement, unknown, null, 
 }
 
 /**
+ * A whole element written as text (the axes, src/figures/axes.ts): the parent gets an empty
+ * placeholder, which serialiseSvg replaces by `markup` itself. The markup must be exactly what
+ * the DOM would have serialised, and may hold only numbers, fixed names and escaped text.
+ */
+const rawElements = new Map<string, string>();
+
+export function appendRawElement(parent: d3.Selection<SVGGElement, unknown, null, undefined>, markup: string): void {
+  const key = `raw${++rawCounter}`;
+  rawElements.set(key, markup);
+  parent.append('g').attr('data-raw-element', key);
+}
+
+/**
  * Serialises a finished figure as standalone SVG markup. The HTML serialiser of jsdom is used
  * (several times faster than XMLSerializer); for SVG content it writes well-formed XML as long as
  * no attribute value holds '<' (none does: user text only ever goes into text nodes, which are
  * escaped), and the root carries its xmlns attribute explicitly (createSvg).
  */
 export function serialiseSvg(svg: Svg): string {
-  const markup = (svg.node() as SVGSVGElement).outerHTML;
+  const markup = (svg.node() as SVGSVGElement).outerHTML.replace(/<g data-raw-element="(raw\d+)"><\/g>/g, (_m, key: string) => {
+    const element = rawElements.get(key) ?? '';
+    rawElements.delete(key);
+    return element;
+  });
   return markup.replace(/<g class="([a-z-]+)" data-raw="(raw\d+)"><\/g>/g, (_m, cls: string, key: string) => {
     const inner = rawLayers.get(key) ?? '';
     rawLayers.delete(key);

@@ -23,7 +23,18 @@ export const FONT = {
 const NARROW = new Set(Array.from("iljt.,:;'|!()[]/ f-r1I"));
 const WIDE = new Set(Array.from('mwMW@%'));
 
+const emCache = new Map<string, number>();
+
 function charEm(ch: string): number {
+  let em = emCache.get(ch);
+  if (em === undefined) {
+    em = charEmOf(ch);
+    emCache.set(ch, em);
+  }
+  return em;
+}
+
+function charEmOf(ch: string): number {
   if (NARROW.has(ch)) return 0.34;
   if (WIDE.has(ch)) return 0.89;
   if (/[0-9]/.test(ch)) return 0.56;
@@ -45,13 +56,20 @@ export function wrapText(text: string, width: number, fontSize: number): string[
   const words = text.split(/\s+/).filter((w) => w.length > 0);
   const lines: string[] = [];
   let line = '';
+  // the line's width in em, summed character by character as textWidth sums it (so the same
+  // number), carried on from word to word instead of re-summed for every candidate line
+  let lineEm = 0;
   for (const word of words) {
-    const next = line ? `${line} ${word}` : word;
-    if (line && textWidth(next, fontSize) > width) {
+    let nextEm = line ? lineEm + charEm(' ') : 0;
+    for (const ch of word) nextEm += charEm(ch);
+    if (line && nextEm * fontSize * 1.06 > width) {
       lines.push(line);
       line = word;
+      lineEm = 0;
+      for (const ch of word) lineEm += charEm(ch);
     } else {
-      line = next;
+      line = line ? `${line} ${word}` : word;
+      lineEm = nextEm;
     }
   }
   if (line) lines.push(line);

@@ -74,6 +74,31 @@ function makeWorkspace(n: number, m: number): Workspace {
   };
 }
 
+/**
+ * One idle workspace per problem size, reused by the next call of that size: a profile or a joint
+ * region runs hundreds of small solves, and allocating fifteen arrays for each was about a tenth
+ * of an analysis (docs/decisions/analysis-cost.md). A call takes the workspace out while it runs
+ * (a nested call of the same size gets a fresh one) and zeroes it, so every call starts from the
+ * same state as with fresh arrays.
+ */
+const idleWorkspaces = new Map<number, Workspace>();
+
+function takeWorkspace(n: number, m: number): Workspace {
+  const key = n * 64 + m;
+  const w = idleWorkspaces.get(key);
+  if (!w) return makeWorkspace(n, m);
+  idleWorkspaces.delete(key);
+  for (const a of [w.qr, w.pivot, w.rdiag, w.columnNorms, w.scale, w.qtf, w.step, w.trial, w.trialResiduals, w.rowJacobian, w.sdiag, w.wa1, w.wa2, w.wa3, w.wan]) a.fill(0);
+  return w;
+}
+
+/** Larger problems (a big single-compound file) are rare and allocate afresh: nothing big is kept. */
+const LARGEST_KEPT_WORKSPACE = 65536;
+
+function releaseWorkspace(n: number, m: number, w: Workspace): void {
+  if (m < 64 && n * m <= LARGEST_KEPT_WORKSPACE) idleWorkspaces.set(n * 64 + m, w);
+}
+
 /** Euclidean norm of r at x, or Infinity when x is outside the domain or r is not finite. */
 function residualNorm(problem: LeastSquaresProblem, x: Float64Array, r: Float64Array): number {
   if (problem.residuals(x, r) === false) return Infinity;
@@ -238,7 +263,7 @@ export function levenbergMarquardt(
     throw new RangeError('levenbergMarquardt: tolerances must be >= 0, factor > 0 and maxEvaluations >= 1');
   }
 
-  const w = makeWorkspace(n, m);
+  const w = takeWorkspace(n, m);
   const x = Float64Array.from(x0);
   const residuals = new Float64Array(n);
   let evaluations = 1;
@@ -250,7 +275,8 @@ export function levenbergMarquardt(
     if (!jacobianCurrent && fnorm < Infinity && !options.skipFinalJacobian) {
       problem.jacobian(x, jacobian);
     }
-    jacobian = Float64Array.from(jacobian);
+    jacobian = jacobian.slice();
+    releaseWorkspace(n, m, w);
     const converged = status !== 'max-evaluations' && status !== 'failed';
     return {
       x,

@@ -22,6 +22,15 @@ export const competitive: MechanismModel = {
     out[o + 1] = (-v * free) / d;
     out[o + 2] = (v * p[1] * i) / (p[2] * d);
   },
+  // one loop per model file, so that each calls its own rate law (inlined; see MechanismModel.rates)
+  rates(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) out[k] = competitive.rate(p, s[k], i[k]);
+  },
+  gradLogs(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) competitive.gradLog(p, s[k], i[k], out, 3 * k);
+  },
   starts(data) {
     const r = roughScales(data);
     return singleConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);

@@ -29,6 +29,15 @@ export const mixed: MechanismModel = {
     out[o + 2] = (v * p[1] * i) / (p[2] * d);
     out[o + 3] = (v * s * i) / (p[3] * d);
   },
+  // one loop per model file, so that each calls its own rate law (inlined; see MechanismModel.rates)
+  rates(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) out[k] = mixed.rate(p, s[k], i[k]);
+  },
+  gradLogs(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) mixed.gradLog(p, s[k], i[k], out, 4 * k);
+  },
   starts(data) {
     // three corners of the log grid (both arms alike, each arm dominant); the warm starts from the
     // nested models (src/fit/fit-all-mechanisms.ts) cover the limits

@@ -19,6 +19,15 @@ export const noInhibition: MechanismModel = {
     out[o] = v;
     out[o + 1] = (-v * p[1]) / d;
   },
+  // one loop per model file, so that each calls its own rate law (inlined; see MechanismModel.rates)
+  rates(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) out[k] = noInhibition.rate(p, s[k], i[k]);
+  },
+  gradLogs(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) noInhibition.gradLog(p, s[k], i[k], out, 2 * k);
+  },
   starts(data) {
     const r = roughScales(data);
     return [[r.vmax, r.km]];

@@ -21,6 +21,15 @@ export const noncompetitive: MechanismModel = {
     out[o + 1] = (-v * p[1]) / (p[1] + s);
     out[o + 2] = (v * ratio) / (1 + ratio);
   },
+  // one loop per model file, so that each calls its own rate law (inlined; see MechanismModel.rates)
+  rates(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) out[k] = noncompetitive.rate(p, s[k], i[k]);
+  },
+  gradLogs(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) noncompetitive.gradLog(p, s[k], i[k], out, 3 * k);
+  },
   starts(data) {
     const r = roughScales(data);
     return singleConstantGuesses(r).map((ki) => [r.vmax, r.km, ki]);

@@ -83,6 +83,15 @@ export interface MechanismModel {
    * Analytic; tested against central differences.
    */
   gradLog(p: ArrayLike<number>, s: number, i: number, out: Float64Array, offset: number, e?: number): void;
+  /**
+   * Optional: `rate` at every point of `data` into out[0 .. n), the same numbers as n calls of
+   * `rate`. A fit evaluates the rates of all points thousands of times per analysis; one call per
+   * evaluation, with the loop inside the model's own file, lets the engine inline the rate law
+   * instead of calling it through a site shared by every model (docs/decisions/analysis-cost.md).
+   */
+  rates?(p: ArrayLike<number>, data: KineticData, out: Float64Array): void;
+  /** Optional: `gradLog` at every point, row-major n x params.length (point k at offset k * params.length). */
+  gradLogs?(p: ArrayLike<number>, data: KineticData, out: Float64Array): void;
   /** Data-driven starting values on the natural scale (each a full parameter vector). */
   starts(data: KineticData): number[][];
   /** family; absent means 'classic' */

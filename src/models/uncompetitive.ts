@@ -22,6 +22,15 @@ export const uncompetitive: MechanismModel = {
     out[o + 1] = (-v * p[1]) / d;
     out[o + 2] = (v * s * i) / (p[2] * d);
   },
+  // one loop per model file, so that each calls its own rate law (inlined; see MechanismModel.rates)
+  rates(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) out[k] = uncompetitive.rate(p, s[k], i[k]);
+  },
+  gradLogs(p, data, out) {
+    const { s, i } = data;
+    for (let k = 0; k < s.length; k++) uncompetitive.gradLog(p, s[k], i[k], out, 3 * k);
+  },
   starts(data) {
     const r = roughScales(data);
     return singleConstantGuesses(r).map((kiu) => [r.vmax, r.km, kiu]);
