@@ -26,19 +26,23 @@ const CR = 13;
 const SPACE = 32;
 const TAB = 9;
 
+/** Every row of `text`, in order. */
 export function tokenize(text: string, separator: string, source: string): TextRow[] {
+  return Array.from(textRows(text, separator, source));
+}
+
+/**
+ * The rows of `text` one at a time, so a reader can use each row and let it go (a long table is
+ * never held as rows of cells all at once; docs/decisions/reader-memory.md). A problem is thrown
+ * when the scan reaches it.
+ */
+export function* textRows(text: string, separator: string, source: string): Generator<TextRow, void, undefined> {
   const sep = separator.charCodeAt(0);
-  const rows: TextRow[] = [];
   const n = text.length;
   let line = 1;
   let i = 0;
   let cells: string[] = [];
   let rowLine = 1;
-
-  const endRow = (): void => {
-    rows.push({ line: rowLine, cells });
-    cells = [];
-  };
 
   while (i <= n) {
     // at the start of a field
@@ -87,7 +91,7 @@ export function tokenize(text: string, separator: string, source: string): TextR
       while (k < n && (text.charCodeAt(k) === SPACE || text.charCodeAt(k) === TAB) && text.charCodeAt(k) !== sep) k++;
       cells.push(value);
       if (k >= n) {
-        endRow();
+        yield { line: rowLine, cells };
         break;
       }
       const after = text.charCodeAt(k);
@@ -96,7 +100,8 @@ export function tokenize(text: string, separator: string, source: string): TextR
         continue;
       }
       if (after === CR || after === LF) {
-        endRow();
+        yield { line: rowLine, cells };
+        cells = [];
         line++;
         i = k + (after === CR && k + 1 < n && text.charCodeAt(k + 1) === LF ? 2 : 1);
         rowLine = line;
@@ -117,7 +122,7 @@ export function tokenize(text: string, separator: string, source: string): TextR
     }
     cells.push(text.slice(i, k));
     if (k >= n) {
-      endRow();
+      yield { line: rowLine, cells };
       break;
     }
     const c = text.charCodeAt(k);
@@ -125,13 +130,13 @@ export function tokenize(text: string, separator: string, source: string): TextR
       i = k + 1;
       continue;
     }
-    endRow();
+    yield { line: rowLine, cells };
+    cells = [];
     line++;
     i = k + (c === CR && k + 1 < n && text.charCodeAt(k + 1) === LF ? 2 : 1);
     rowLine = line;
     if (i >= n) break;
   }
-  return rows;
 }
 
 /** True when every cell of the row is empty or whitespace. */
