@@ -46,7 +46,10 @@ export function parseRateText(text: string, options: ParseOptions & { source: st
   const decimalMark = options.decimalMark ?? detectDecimalMark(rows(), separator);
   const layout = options.layout ?? detectLayout(rows());
   const context = { source, decimalMark };
-  const read = layout === 'long' ? readLongLayout(rows(), context) : readMatrixLayout(tokenize(body, separator, source), context);
+  const read =
+    layout === 'long'
+      ? readLongLayout(textRows(body, separator, source, options.onReadProgress), context)
+      : readMatrixLayout(tokenize(body, separator, source), context);
 
   const { units, warnings: unitWarnings } = resolveUnits(read, options, source);
   const detection = {

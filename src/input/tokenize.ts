@@ -36,13 +36,19 @@ export function tokenize(text: string, separator: string, source: string): TextR
  * never held as rows of cells all at once; docs/decisions/reader-memory.md). A problem is thrown
  * when the scan reaches it.
  */
-export function* textRows(text: string, separator: string, source: string): Generator<TextRow, void, undefined> {
+export function* textRows(
+  text: string,
+  separator: string,
+  source: string,
+  onPosition?: (done: number, total: number) => void,
+): Generator<TextRow, void, undefined> {
   const sep = separator.charCodeAt(0);
   const n = text.length;
   let line = 1;
   let i = 0;
   let cells: string[] = [];
   let rowLine = 1;
+  let rowsSinceReport = 0;
 
   while (i <= n) {
     // at the start of a field
@@ -135,9 +141,17 @@ export function* textRows(text: string, separator: string, source: string): Gene
     line++;
     i = k + (c === CR && k + 1 < n && text.charCodeAt(k + 1) === LF ? 2 : 1);
     rowLine = line;
+    if (onPosition && ++rowsSinceReport === ROWS_PER_REPORT) {
+      rowsSinceReport = 0;
+      onPosition(i, n);
+    }
     if (i >= n) break;
   }
+  onPosition?.(n, n);
 }
+
+/** Rows between two position reports of textRows. */
+const ROWS_PER_REPORT = 1024;
 
 /** True when every cell of the row is empty or whitespace. */
 export function isBlankRow(row: TextRow): boolean {
