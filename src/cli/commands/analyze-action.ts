@@ -42,8 +42,8 @@ function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): voi
 
 /**
  * From this many usable points on, `analyze` says on stderr (a terminal only) what it is doing
- * before the fits start: the time of an analysis grows with the points (docs/benchmarks.md,
- * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
+ * before the fits start: the time of an analysis and the size of its report grow with the points
+ * (README, "Big inputs"; bench/bigfile-bench.mjs), and a silent wait looks like a hang.
  */
 const LARGE_TABLE_POINTS = 100_000;
 
@@ -194,7 +194,7 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
   const results: AnalysisResult[] = tables.map((t, k) => {
     if (io.errIsTTY && t.points.length >= LARGE_TABLE_POINTS) {
       compoundBar?.finish();
-      io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; fitting five mechanisms to them can take minutes (README, "Big inputs")\n`);
+      io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; the analysis takes seconds per 100,000 points, and the report's figures draw every point, so --out grows large (README, "Big inputs")\n`);
     }
     const table = { ...t, source: file };
     const result = analyzeTable(table, at === undefined ? analysis : { ...analysis, atSubstrate: atSubstrateFor(at, table) });
