@@ -64,7 +64,7 @@ export interface FitOptions {
 const LOG_SPAN = 35;
 
 /** A weighted problem; `refreshWeights` must be called after sqrtW is changed in place. */
-export interface WeightedProblem extends LeastSquaresProblem {
+interface WeightedProblem extends LeastSquaresProblem {
   /** re-reads sqrtW (the pooled form caches sums over it; the per-point form reads it live) */
   refreshWeights(): void;
 }

@@ -87,7 +87,7 @@ function findGroups(data: FitData): ReplicateGroups | null {
 }
 
 /** Pooled weights, weighted means and the within-condition sum of squares, for given sqrt(weights). */
-export interface PooledConditions {
+interface PooledConditions {
   /** sqrt(W_g) per condition */
   sqrtW: Float64Array;
   /** weighted mean rate per condition */
