@@ -7,7 +7,7 @@ import { MECHANISMS } from '../models/index.js';
 import type { Mechanism, MechanismModel } from '../models/types.js';
 import { fitAllMechanisms } from '../fit/fit-all-mechanisms.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
-import { fitDataFromTable, maxInhibitor, type FitData } from '../fit/fit-data.js';
+import { fitDataFromTable, maxInhibitor, maxSubstrate, type FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
 import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE, outsideFittableRange } from '../input/table-checks.js';
@@ -330,7 +330,7 @@ function patternCaveats(models: readonly ModelResult[], winner: ModelResult, dat
   const constants = winner.estimates
     .filter((e) => e.detected && e.value !== null && (e.name === 'Km' || e.name === 'Ki' || e.name === 'Kiu'))
     .map((e) => ({ name: e.name, value: e.value as number, axis: e.name === 'Km' ? ('substrate' as const) : ('inhibitor' as const) }));
-  out.push(...plausibilityCaveats({ units: table.units, maxSubstrate: Math.max(...data.s), maxInhibitor: maxInhibitor(data), constants }));
+  out.push(...plausibilityCaveats({ units: table.units, maxSubstrate: maxSubstrate(data), maxInhibitor: maxInhibitor(data), constants }));
   for (const w of table.warnings.filter((x) => x.code === 'repeated-block'))
     out.push({
       code: 'repeated-block',

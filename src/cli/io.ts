@@ -4,6 +4,8 @@ export interface CliIo {
   err(text: string): void;
   /** true when stderr is a terminal (progress bars only then) */
   errIsTTY: boolean;
+  /** wait before a progress bar first draws (ms); default 1000 (tests set 0 to see the bars) */
+  progressDelayMs?: number;
   cwd: string;
   /**
    * Calls `handler` once on SIGINT or SIGTERM (with the signal's name); returns a function that

@@ -63,6 +63,7 @@ export function refitFromStarts(model: MechanismModel, data: FitData, errorModel
     for (let pass = 0; pass < MAX_REWEIGHT_PASSES; pass++) {
       previous.set(weights);
       setWeights(predict(model, best.x.map(Math.exp), data, fitted));
+      problem.refreshWeights();
       let change = 0;
       for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(weights[k] - previous[k]) / previous[k]);
       const last = change < WEIGHT_CHANGE;

@@ -29,10 +29,10 @@ export function fractionalActivityFigures(ctx: FigureContext): FigureOutput[] {
   const drawn = called ?? r.familyModels[0];
   const e = r.enzyme && r.enzyme !== 'fitted' ? r.enzyme.value : undefined;
   const data = r.data;
-  const iMax = Math.max(...data.i);
+  const iMax = data.i.reduce((a, b) => Math.max(a, b), -Infinity); // no spread: a table can hold a million points
   const xs = grid(0, iMax * 1.04, 120);
   const ratio = Float64Array.from(data.v, (v, k) => v / drawn.fit.model.rate(drawn.fit.params, data.s[k], 0, data.e?.[k] ?? e));
-  const yTop = Math.max(1.15, ...Array.from(ratio).filter(Number.isFinite)) * 1.04;
+  const yTop = ratio.reduce((top, x) => (Number.isFinite(x) ? Math.max(top, x) : top), 1.15) * 1.04;
   const levels = ctx.substrate.values;
   const id = 'fig-fractional-activity';
   const title = 'Fractional activity against inhibitor';

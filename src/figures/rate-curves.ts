@@ -20,9 +20,9 @@ export function inhibitorSeriesKey(ctx: FigureContext): LegendItem[] {
 
 export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): FigureOutput {
   const { data } = ctx.result;
-  const sMax = Math.max(...data.s);
+  const sMax = data.s.reduce((a, b) => Math.max(a, b), -Infinity); // no spread: a table can hold a million points
   const xDomain: [number, number] = logSubstrate ? paddedExtent(data.s, 0.05, true) : [0, sMax * 1.04];
-  const yDomain: [number, number] = [0, Math.max(...data.v, 0) * 1.06];
+  const yDomain: [number, number] = [0, data.v.reduce((a, b) => Math.max(a, b), 0) * 1.06];
   const xs = logSubstrate ? grid(xDomain[0], xDomain[1], 80, true) : grid(0, xDomain[1], 80);
   const id = logSubstrate ? 'fig-rate-curves-log' : 'fig-rate-curves';
   const title = logSubstrate ? 'Initial rate against substrate, log scale' : 'Initial rate against substrate';

@@ -67,8 +67,9 @@ export function familyMeetingPoint(c: RateConstants, levels: readonly number[], 
  * point when it lies within MEETING_REACH data spans of the data.
  */
 export function lineExtent(dataX: readonly number[], meet: Point | null): { lo: number; hi: number; meetShown: boolean } {
-  let lo = Math.min(0, ...dataX);
-  let hi = Math.max(...dataX);
+  // no spread: the data can hold a million points
+  let lo = dataX.reduce((a, b) => Math.min(a, b), 0);
+  let hi = dataX.reduce((a, b) => Math.max(a, b), -Infinity);
   const span = hi - lo || 1;
   let meetShown = false;
   if (meet && meet.x >= lo - MEETING_REACH * span && meet.x <= hi + MEETING_REACH * span) {
@@ -95,7 +96,7 @@ export function lineEnds(
   const span = extent.hi - extent.lo || 1;
   const last = new Array<number>(nSeries).fill(-Infinity);
   for (let k = 0; k < px.length; k++) if (Number.isFinite(px[k])) last[seriesIndex[k]] = Math.max(last[seriesIndex[k]], px[k]);
-  const meetRight = meet !== null && extent.meetShown && meet.x > Math.max(...px.filter(Number.isFinite));
+  const meetRight = meet !== null && extent.meetShown && meet.x > px.reduce((top, x) => (Number.isFinite(x) ? Math.max(top, x) : top), -Infinity);
   return last.map((hi) => [extent.lo, meetRight || !Number.isFinite(hi) ? extent.hi : Math.min(extent.hi, hi + 0.04 * span)]);
 }
 

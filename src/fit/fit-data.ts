@@ -47,6 +47,13 @@ export function maxInhibitor(data: FitData): number {
   return imax;
 }
 
+/** The highest substrate concentration tested (a loop: no spread of a million-point array). */
+export function maxSubstrate(data: FitData): number {
+  let smax = 0;
+  for (const x of data.s) if (x > smax) smax = x;
+  return smax;
+}
+
 /** The points at the given indices, in that order. */
 export function subsetFitData(data: FitData, indices: readonly number[]): FitData {
   const pick = (a: Float64Array) => Float64Array.from(indices, (k) => a[k]);

@@ -9,6 +9,7 @@ import type { LeastSquaresOptions, LeastSquaresProblem, LeastSquaresResult } fro
 import { levenbergMarquardt } from './levenberg-marquardt.js';
 import { computeWeights, gaussianLogLikelihood, weightsDependOnFit, type ErrorModel } from './error-models.js';
 import type { FitData } from './fit-data.js';
+import { poolConditions, replicateGroups, type ReplicateGroups } from './replicate-groups.js';
 
 export interface MechanismFit {
   mechanism: Mechanism;
@@ -62,24 +63,28 @@ export interface FitOptions {
 /** Largest |ln p - ln scale| allowed; beyond it a step is treated as outside the domain. */
 const LOG_SPAN = 35;
 
+/** A weighted problem; `refreshWeights` must be called after sqrtW is changed in place. */
+interface WeightedProblem extends LeastSquaresProblem {
+  /** re-reads sqrtW (the pooled form caches sums over it; the per-point form reads it live) */
+  refreshWeights(): void;
+}
+
 /**
  * A least-squares problem in theta = ln(p) with fixed weights. Residual k is
- * sqrt(w_k) * (v_k - f(S_k, I_k; exp(theta))).
+ * sqrt(w_k) * (v_k - f(S_k, I_k; exp(theta))). For large replicated tables the replicates of each
+ * condition are pooled (src/fit/replicate-groups.ts): the same sum of squares and the same steps
+ * from one residual per condition plus one constant residual.
  */
-export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Float64Array, logScale: Float64Array): LeastSquaresProblem {
-  const n = data.v.length;
+export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Float64Array, logScale: Float64Array): WeightedProblem {
   const m = model.params.length;
+  const groups = replicateGroups(data);
+  if (groups && groups.count >= m) return pooledProblem(model, data, groups, sqrtW, logScale);
+  const n = data.v.length;
   const p = new Float64Array(m);
   const grad = new Float64Array(m);
   // the models' batch loops where they have them (MechanismModel.rates): the same numbers, faster
   const batch = model.rates && model.gradLogs ? { rates: model.rates, gradLogs: model.gradLogs, f: new Float64Array(n), g: new Float64Array(n * m) } : null;
-  const toNatural = (x: Float64Array): boolean => {
-    for (let j = 0; j < m; j++) {
-      if (!(Math.abs(x[j] - logScale[j]) <= LOG_SPAN)) return false;
-      p[j] = Math.exp(x[j]);
-    }
-    return true;
-  };
+  const toNatural = naturalParams(p, logScale);
   return {
     n,
     m,
@@ -117,6 +122,59 @@ export function weightedProblem(model: MechanismModel, data: FitData, sqrtW: Flo
         const row = k * m;
         for (let j = 0; j < m; j++) J[row + j] = -sqrtW[k] * grad[j];
       }
+    },
+    refreshWeights() {},
+  };
+}
+
+/** Writes exp(x) into p; false when x leaves the allowed domain around logScale. */
+function naturalParams(p: Float64Array, logScale: Float64Array): (x: Float64Array) => boolean {
+  return (x) => {
+    for (let j = 0; j < p.length; j++) {
+      if (!(Math.abs(x[j] - logScale[j]) <= LOG_SPAN)) return false;
+      p[j] = Math.exp(x[j]);
+    }
+    return true;
+  };
+}
+
+/** The pooled form: residual g is sqrt(W_g) (vbar_g - f_g); the last residual is the constant sqrt(C). */
+function pooledProblem(model: MechanismModel, data: FitData, groups: ReplicateGroups, sqrtW: Float64Array, logScale: Float64Array): WeightedProblem {
+  const G = groups.count;
+  const m = model.params.length;
+  const p = new Float64Array(m);
+  const grad = new Float64Array(m);
+  const toNatural = naturalParams(p, logScale);
+  const first = groups.first;
+  let pooled = poolConditions(groups, data.v, sqrtW);
+  return {
+    n: G + 1,
+    m,
+    residuals(x, r) {
+      if (!toNatural(x)) return false;
+      const { sqrtW: w, mean } = pooled;
+      for (let g = 0; g < G; g++) {
+        const k = first[g];
+        const f = model.rate(p, data.s[k], data.i[k], data.e?.[k]);
+        r[g] = w[g] * (mean[g] - f);
+        if (!Number.isFinite(r[g])) return false;
+      }
+      r[G] = pooled.sqrtWithin;
+      return Number.isFinite(r[G]);
+    },
+    jacobian(x, J) {
+      toNatural(x);
+      const w = pooled.sqrtW;
+      for (let g = 0; g < G; g++) {
+        const k = first[g];
+        model.gradLog(p, data.s[k], data.i[k], grad, 0, data.e?.[k]);
+        const row = g * m;
+        for (let j = 0; j < m; j++) J[row + j] = -w[g] * grad[j];
+      }
+      J.fill(0, G * m, (G + 1) * m);
+    },
+    refreshWeights() {
+      pooled = poolConditions(groups, data.v, sqrtW);
     },
   };
 }
@@ -208,6 +266,7 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
       predict(model, result.x, data, fitted);
       previous.set(weights);
       setWeights(fitted);
+      problem.refreshWeights();
       passes++;
       let change = 0;
       for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(weights[k] - previous[k]) / previous[k]);
@@ -223,6 +282,7 @@ export function fitMechanism(model: MechanismModel, data: FitData, errorModel: E
     // final weights are those of the final fitted values
     predict(model, result.x, data, fitted);
     setWeights(fitted);
+    problem.refreshWeights();
     result = refitFrom(problem, result.x, logScale);
   }
   return assembleFit(model, data, errorModel, result, weights, sqrtW, starts.length, reaching, passes);

@@ -8,7 +8,7 @@ import { readCornerCell, readTitleRow } from './matrix-layout.js';
  * Matrix when the first non-blank row starts with a corner cell (`substrate (uM) \ inhibitor (nM)`),
  * or is a compound title row followed by one; long otherwise.
  */
-export function detectLayout(rows: TextRow[]): 'long' | 'matrix' {
+export function detectLayout(rows: Iterable<TextRow>): 'long' | 'matrix' {
   const filled: TextRow[] = [];
   for (const row of rows) {
     if (!isBlankRow(row)) filled.push(row);

@@ -33,7 +33,7 @@ export function detectSeparator(text: string): Separator {
  * then not numbers, and are excluded with that reason). With no vote, semicolon files take the
  * comma (the usual pairing in spreadsheet exports) and tab files the point.
  */
-export function detectDecimalMark(rows: TextRow[], separator: Separator): '.' | ',' {
+export function detectDecimalMark(rows: Iterable<TextRow>, separator: Separator): '.' | ',' {
   if (separator === ',') return '.';
   let commas = 0;
   let points = 0;

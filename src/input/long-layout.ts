@@ -97,31 +97,47 @@ function planColumns(header: TextRow, dataRows: TextRow[], context: LayoutContex
   return plan;
 }
 
-/** Reads rows of the long layout; `rows` start at the header line. */
-export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutResult {
+/**
+ * Reads rows of the long layout; `rows` start at the header line. The rows are used one at a time
+ * and not kept (docs/decisions/reader-memory.md); only a header with an unnamed column makes the
+ * reader hold them, to name the first row that has data there before anything else is read.
+ */
+export function readLongLayout(rows: Iterable<TextRow>, context: LayoutContext): LayoutResult {
   const { source } = context;
-  const firstIndex = rows.findIndex((row) => !isBlankRow(row));
-  if (firstIndex < 0) {
+  const iterator = rows[Symbol.iterator]();
+  let header: TextRow | undefined;
+  for (let next = iterator.next(); !next.done; next = iterator.next()) {
+    if (!isBlankRow(next.value)) {
+      header = next.value;
+      break;
+    }
+  }
+  if (!header) {
     throw emptyFileError(source);
   }
-  const header = rows[firstIndex];
-  const dataRows = rows.slice(firstIndex + 1).filter((row) => !isBlankRow(row));
-  const plan = planColumns(header, dataRows, context);
-  if (dataRows.length === 0) {
-    throw new InputError(
-      `${locate(source, { line: header.line })}no data rows below the header; add one row per measured rate`,
-      source, header.line,
-    );
-  }
+  const rest: Iterable<TextRow> = { [Symbol.iterator]: () => iterator };
+  const hasUnnamedColumn = header.cells.some((cell) => splitHeaderName(cell).name === '');
+  const held = hasUnnamedColumn ? [...rest].filter((row) => !isBlankRow(row)) : null;
+  const plan = planColumns(header, held ?? [], context);
   const col = plan.known as Required<Pick<ColumnPlan['known'], 'substrate' | 'inhibitor' | 'rate'>> & ColumnPlan['known'];
 
-  // Compound names: either every row names one, or none does.
+  // Compound names: either every row names one, or none does. Without held rows, whether any row
+  // names one is known only at the end: rows before the first named one are kept aside until then.
   const compoundIndex = col.compound;
   const compoundOf = (row: TextRow): string => (compoundIndex === undefined ? '' : (row.cells[compoundIndex] ?? '').trim());
-  const named = compoundIndex !== undefined && dataRows.some((row) => compoundOf(row) !== '');
   const groups = new Map<string, CompoundRows>();
+  const strings = new Map<string, string>();
+  const shared = (text: string): string => {
+    const known = strings.get(text);
+    if (known !== undefined) return known;
+    strings.set(text, text);
+    return text;
+  };
+  let named: boolean | null = compoundIndex === undefined ? false : held ? held.some((row) => compoundOf(row) !== '') : null;
+  let unnamedRows: TextRow[] = [];
+  let dataRows = 0;
 
-  for (const row of dataRows) {
+  const take = (row: TextRow): void => {
     const compound = named ? compoundOf(row) : '';
     if (named && compound === '') {
       const place = { line: row.line, column: compoundIndex! + 1 };
@@ -136,9 +152,35 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
       groups.set(compound, group);
     }
     group.rowsRead++;
-    const outcome = readLongRow(row, plan, context, named ? compound : undefined);
+    const outcome = readLongRow(row, plan, context, group.compound, shared);
     if ('reason' in outcome) group.excluded.push(outcome);
     else group.points.push(outcome);
+  };
+
+  for (const row of held ?? rest) {
+    if (isBlankRow(row)) continue;
+    dataRows++;
+    if (named === null) {
+      if (compoundOf(row) === '') {
+        unnamedRows.push(row);
+        continue;
+      }
+      named = true;
+      // a blank compound before the first named row: the same error, at that row
+      if (unnamedRows.length > 0) take(unnamedRows[0]);
+    }
+    take(row);
+  }
+  if (dataRows === 0) {
+    throw new InputError(
+      `${locate(source, { line: header.line })}no data rows below the header; add one row per measured rate`,
+      source, header.line,
+    );
+  }
+  if (named === null) {
+    named = false;
+    for (const row of unnamedRows) take(row);
+    unnamedRows = [];
   }
 
   const headerPlace = (index: number): Place => ({ line: header.line, column: index + 1 });
@@ -151,7 +193,13 @@ export function readLongLayout(rows: TextRow[], context: LayoutContext): LayoutR
 }
 
 /** One data row: a point, or the exclusion that keeps it out (the first problem found). */
-function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, compound: string | undefined): RatePoint | Exclusion {
+function readLongRow(
+  row: TextRow,
+  plan: ColumnPlan,
+  context: LayoutContext,
+  compound: string | undefined,
+  shared: (text: string) => string,
+): RatePoint | Exclusion {
   const { source } = context;
   const col = plan.known;
 
@@ -194,9 +242,10 @@ function readLongRow(row: TextRow, plan: ColumnPlan, context: LayoutContext, com
   }
   if (compound !== undefined) point.compound = compound;
   const replicate = cellAt(row, col.replicate).trim();
-  if (replicate !== '') point.replicate = replicate;
+  // one string object per distinct replicate and well name (they repeat down a long table)
+  if (replicate !== '') point.replicate = shared(replicate);
   const well = cellAt(row, col.well).trim();
-  if (well !== '') point.well = well;
+  if (well !== '') point.well = shared(well);
   for (const { index, label } of plan.annotations) {
     const value = cellAt(row, index).trim();
     if (value === '') continue;

@@ -21,4 +21,9 @@ export interface ParseOptions {
    * inhibitor level among its usable points, as a mechanism analysis compares them
    */
   requireMechanismDesign?: boolean;
+  /**
+   * called now and then while the rows of a long table are read, with the characters of text read
+   * so far and in all (the last call has done === total); for a progress display
+   */
+  onReadProgress?: (done: number, total: number) => void;
 }

@@ -6,7 +6,7 @@ import type { ParseOptions } from './options.js';
 import { locate, quoteText } from './messages.js';
 import { refuseBinaryText } from './decode.js';
 import { detectDecimalMark, detectSeparator } from './dialect.js';
-import { tokenize } from './tokenize.js';
+import { textRows, tokenize } from './tokenize.js';
 import { detectLayout } from './detect-layout.js';
 import { readLongLayout } from './long-layout.js';
 import { readMatrixLayout } from './matrix-layout.js';
@@ -40,11 +40,16 @@ export function parseRateText(text: string, options: ParseOptions & { source: st
   }
 
   const separator = options.separator ?? detectSeparator(body);
-  const rows = tokenize(body, separator, source);
-  const decimalMark = options.decimalMark ?? detectDecimalMark(rows, separator);
-  const layout = options.layout ?? detectLayout(rows);
+  // The rows are scanned as they are needed (a vote for the decimal mark, the first rows for the
+  // layout, then the reading itself) rather than held all at once: docs/decisions/reader-memory.md.
+  const rows = () => textRows(body, separator, source);
+  const decimalMark = options.decimalMark ?? detectDecimalMark(rows(), separator);
+  const layout = options.layout ?? detectLayout(rows());
   const context = { source, decimalMark };
-  const read = layout === 'long' ? readLongLayout(rows, context) : readMatrixLayout(rows, context);
+  const read =
+    layout === 'long'
+      ? readLongLayout(textRows(body, separator, source, options.onReadProgress), context)
+      : readMatrixLayout(tokenize(body, separator, source), context);
 
   const { units, warnings: unitWarnings } = resolveUnits(read, options, source);
   const detection = {

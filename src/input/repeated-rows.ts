@@ -20,21 +20,33 @@ interface RepeatedBlock {
   rows: number;
 }
 
-function key(p: RatePoint): string {
-  return `${p.substrate}|${p.inhibitor}|${p.rate}`;
-}
-
 function same(a: RatePoint, b: RatePoint): boolean {
   return a.substrate === b.substrate && a.inhibitor === b.inhibitor && a.rate === b.rate;
 }
 
+/**
+ * Earlier rows by rate: one index, or several in increasing order. Keyed by the number (no key
+ * text per row: on a table of a million rows, text keys were most of the reader's peak memory).
+ */
+type Seen = Map<number, number | number[]>;
+
+const NONE: readonly number[] = [];
+
+/** The earlier rows with exactly the values of `points[k]`, in increasing order. */
+function earlierCopies(seen: Seen, points: readonly RatePoint[], k: number): readonly number[] {
+  const bucket = seen.get(points[k].rate);
+  if (bucket === undefined) return NONE;
+  if (typeof bucket === 'number') return same(points[bucket], points[k]) ? [bucket] : NONE;
+  return bucket.filter((j) => same(points[j], points[k]));
+}
+
 /** Every maximal block of REPEATED_BLOCK_ROWS or more rows that repeats earlier rows exactly. */
 function repeatedBlocks(points: readonly RatePoint[]): RepeatedBlock[] {
-  const seen = new Map<string, number[]>();
+  const seen: Seen = new Map();
   const blocks: RepeatedBlock[] = [];
   let k = 0;
   while (k < points.length) {
-    const earlier = seen.get(key(points[k])) ?? [];
+    const earlier = earlierCopies(seen, points, k);
     let best = 0;
     let from = -1;
     if (earlier.length <= MAX_OCCURRENCES) {
@@ -59,10 +71,11 @@ function repeatedBlocks(points: readonly RatePoint[]): RepeatedBlock[] {
   return blocks;
 }
 
-function remember(seen: Map<string, number[]>, p: RatePoint, index: number): void {
-  const list = seen.get(key(p));
-  if (list) list.push(index);
-  else seen.set(key(p), [index]);
+function remember(seen: Seen, p: RatePoint, index: number): void {
+  const bucket = seen.get(p.rate);
+  if (bucket === undefined) seen.set(p.rate, index);
+  else if (typeof bucket === 'number') seen.set(p.rate, [bucket, index]);
+  else bucket.push(index);
 }
 
 /** The warning for the repeated blocks of a table, or none. */

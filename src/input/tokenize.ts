@@ -26,19 +26,29 @@ const CR = 13;
 const SPACE = 32;
 const TAB = 9;
 
+/** Every row of `text`, in order. */
 export function tokenize(text: string, separator: string, source: string): TextRow[] {
+  return Array.from(textRows(text, separator, source));
+}
+
+/**
+ * The rows of `text` one at a time, so a reader can use each row and let it go (a long table is
+ * never held as rows of cells all at once; docs/decisions/reader-memory.md). A problem is thrown
+ * when the scan reaches it.
+ */
+export function* textRows(
+  text: string,
+  separator: string,
+  source: string,
+  onPosition?: (done: number, total: number) => void,
+): Generator<TextRow, void, undefined> {
   const sep = separator.charCodeAt(0);
-  const rows: TextRow[] = [];
   const n = text.length;
   let line = 1;
   let i = 0;
   let cells: string[] = [];
   let rowLine = 1;
-
-  const endRow = (): void => {
-    rows.push({ line: rowLine, cells });
-    cells = [];
-  };
+  let rowsSinceReport = 0;
 
   while (i <= n) {
     // at the start of a field
@@ -87,7 +97,7 @@ export function tokenize(text: string, separator: string, source: string): TextR
       while (k < n && (text.charCodeAt(k) === SPACE || text.charCodeAt(k) === TAB) && text.charCodeAt(k) !== sep) k++;
       cells.push(value);
       if (k >= n) {
-        endRow();
+        yield { line: rowLine, cells };
         break;
       }
       const after = text.charCodeAt(k);
@@ -96,7 +106,8 @@ export function tokenize(text: string, separator: string, source: string): TextR
         continue;
       }
       if (after === CR || after === LF) {
-        endRow();
+        yield { line: rowLine, cells };
+        cells = [];
         line++;
         i = k + (after === CR && k + 1 < n && text.charCodeAt(k + 1) === LF ? 2 : 1);
         rowLine = line;
@@ -117,7 +128,7 @@ export function tokenize(text: string, separator: string, source: string): TextR
     }
     cells.push(text.slice(i, k));
     if (k >= n) {
-      endRow();
+      yield { line: rowLine, cells };
       break;
     }
     const c = text.charCodeAt(k);
@@ -125,14 +136,22 @@ export function tokenize(text: string, separator: string, source: string): TextR
       i = k + 1;
       continue;
     }
-    endRow();
+    yield { line: rowLine, cells };
+    cells = [];
     line++;
     i = k + (c === CR && k + 1 < n && text.charCodeAt(k + 1) === LF ? 2 : 1);
     rowLine = line;
+    if (onPosition && ++rowsSinceReport === ROWS_PER_REPORT) {
+      rowsSinceReport = 0;
+      onPosition(i, n);
+    }
     if (i >= n) break;
   }
-  return rows;
+  onPosition?.(n, n);
 }
+
+/** Rows between two position reports of textRows. */
+const ROWS_PER_REPORT = 1024;
 
 /** True when every cell of the row is empty or whitespace. */
 export function isBlankRow(row: TextRow): boolean {

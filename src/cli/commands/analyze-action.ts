@@ -4,6 +4,7 @@ import { basename, dirname, join, resolve } from 'node:path';
 import { mkdirSync, statSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { decodeRateBytes, parseRateText, readRateFile, type ParseOptions } from '../../input/index.js';
+import { cliProgressBar, megabytesRead, type ProgressBar } from '../progress-bar.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
 import type { AnalysisResult } from '../../analysis/types.js';
 import type { RateTable } from '../../input/types.js';
@@ -40,8 +41,8 @@ function writeDoseResponseFiles(result: SingleSubstrateResult, dir: string): voi
 
 /**
  * From this many usable points on, `analyze` says on stderr (a terminal only) what it is doing
- * before the fits start: the time of an analysis grows with the points (docs/benchmarks.md,
- * bench/bigfile-bench.mjs), and a silent wait of minutes looks like a hang.
+ * before the fits start: the time of an analysis and the size of its report grow with the points
+ * (README, "Big inputs"; bench/bigfile-bench.mjs), and a silent wait looks like a hang.
  */
 const LARGE_TABLE_POINTS = 100_000;
 
@@ -104,7 +105,7 @@ export function prepareReportFolders(out: string, shown: string, folders: readon
  * Reads the file's bytes once, for both the tables and the SHA-256 in the report footer. When the
  * bytes cannot be read, readRateFile is left to word the error (one line naming the file).
  */
-async function readInputOnce(path: string, parse: ParseOptions): Promise<{ tables: RateTable[]; bytes: Uint8Array | null }> {
+async function readInputOnce(path: string, parse: ParseOptions, bar: ProgressBar | null): Promise<{ tables: RateTable[]; bytes: Uint8Array | null }> {
   let bytes: Uint8Array | null = null;
   try {
     bytes = await readFile(path);
@@ -112,7 +113,14 @@ async function readInputOnce(path: string, parse: ParseOptions): Promise<{ table
     // reported below, in the input stage's own words
   }
   if (bytes === null) return { tables: await readRateFile(path, parse), bytes: null };
-  return { tables: parseRateText(decodeRateBytes(bytes, path), { ...parse, source: path }), bytes };
+  const size = bytes.length;
+  // the bar counts bytes; the reader reports characters of text, about one byte each
+  const onReadProgress = bar ? (done: number, total: number) => bar.update(Math.round((done / total) * size), size) : undefined;
+  try {
+    return { tables: parseRateText(decodeRateBytes(bytes, path), { ...parse, source: path, ...(onReadProgress ? { onReadProgress } : {}) }), bytes };
+  } finally {
+    bar?.finish();
+  }
 }
 
 /**
@@ -156,7 +164,7 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
     file = fileArgument;
     const path = resolve(io.cwd, file);
     if (io.errIsTTY) noteLargeFile(path, file, io);
-    input = await readInputOnce(path, parse);
+    input = await readInputOnce(path, parse, o.json ? null : cliProgressBar(io, 'reading', megabytesRead));
   }
   const tables = chooseTables(input.tables, o.compound, file);
   const at = atSubstrateOption(o);
@@ -179,12 +187,20 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
     } else io.out(doseResults.map(doseResponseText).join('\n'));
     return;
   }
-  const results: AnalysisResult[] = tables.map((t) => {
-    if (io.errIsTTY && t.points.length >= LARGE_TABLE_POINTS)
-      io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; fitting five mechanisms to them can take minutes (README, "Big inputs")\n`);
+  // several compounds: a bar over them (one compound's stages are not counted)
+  const compoundBar = !o.json && tables.length > 1 ? cliProgressBar(io, 'analysing', (done, total) => `(${done}/${total} compounds)`) : null;
+  compoundBar?.update(0, tables.length);
+  const results: AnalysisResult[] = tables.map((t, k) => {
+    if (io.errIsTTY && t.points.length >= LARGE_TABLE_POINTS) {
+      compoundBar?.finish();
+      io.err(`mechanist: note: ${file}${t.compound !== undefined ? ` (${t.compound})` : ''}: ${t.points.length} usable points read; the analysis takes seconds per 100,000 points, and the report's figures draw every point, so --out grows large (README, "Big inputs")\n`);
+    }
     const table = { ...t, source: file };
-    return analyzeTable(table, at === undefined ? analysis : { ...analysis, atSubstrate: atSubstrateFor(at, table) });
+    const result = analyzeTable(table, at === undefined ? analysis : { ...analysis, atSubstrate: atSubstrateFor(at, table) });
+    compoundBar?.update(k + 1, tables.length);
+    return result;
   });
+  compoundBar?.finish();
   if (out !== null) {
     const provenance = analyzeProvenance(input.bytes, o.reads !== undefined ? '' : file, cmd);
     // The figure code (d3 on a jsdom document) is loaded only here, when figures are drawn:

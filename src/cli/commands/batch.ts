@@ -6,7 +6,7 @@
 import { Command } from 'commander';
 import { availableParallelism } from 'node:os';
 import { relative } from 'node:path';
-import { progressBar, type ProgressBar } from '../progress-bar.js';
+import { cliProgressBar, type ProgressBar } from '../progress-bar.js';
 import { addSharedOptions, analysisOptionsFrom, atSubstrateOption, parseOptionsFrom, type SharedCliOptions } from '../analysis-options.js';
 import { EXIT_ANALYSIS_FAILED, EXIT_OK, UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
@@ -58,9 +58,12 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
     const analysis = analysisOptionsFrom(o);
     const jobs = o.jobs === undefined ? availableParallelism() : integerOption('--jobs', o.jobs, 1);
     // the shared bar draws on stderr when it is a terminal; --quiet (and a non-terminal io) turn it off
-    const bar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('batch') : null;
-    // reading big inputs takes seconds too: a bar of its own, files read of files given
-    const readBar: ProgressBar | null = io.errIsTTY && !o.quiet ? progressBar('reading') : null;
+    const bar: ProgressBar | null = io.errIsTTY && !o.quiet ? cliProgressBar(io, 'batch') : null;
+    // reading big inputs takes seconds too: a bar of its own, files read of files given, moving
+    // on within a file as its rows are read
+    let filesRead = 0;
+    let inputCount = Math.max(1, inputs.length + generatedInputs.length);
+    const readBar: ProgressBar | null = io.errIsTTY && !o.quiet ? cliProgressBar(io, 'reading', (done, total) => `(${Math.floor(done)}/${total} files)`) : null;
     // Ctrl-C: the workers stop, this run's temporary files and its lock are removed (exit 130)
     const interrupt = new AbortController();
     let signalName: NodeJS.Signals | null = null;
@@ -76,10 +79,14 @@ export function batchCommand(io: CliIo, outcome: BatchOutcome): Command {
       out: o.out,
       reports: Boolean(o.reports),
       jobs,
-      parse,
+      parse: readBar ? { ...parse, onReadProgress: (done: number, total: number) => readBar.update(filesRead + (done < total ? done / total : 0), inputCount) } : parse,
       analysis,
       cwd: io.cwd,
-      onRead: (done, total) => readBar?.update(done, total),
+      onRead: (done, total) => {
+        filesRead = done;
+        inputCount = total;
+        readBar?.update(done, total);
+      },
       onPlan: () => readBar?.finish(),
       ...(o.atSubstrate !== undefined ? { atSubstrate: atSubstrateOption(o)! } : {}),
       onCompound: (_row, done, total) => bar?.update(done, total),
