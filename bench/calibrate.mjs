@@ -61,9 +61,9 @@ async function runCell(cell) {
   const { fitAllMechanisms } = await import('../dist/fit/fit-all-mechanisms.js');
   const { fitDataFromArrays } = await import('../dist/fit/fit-data.js');
   const { simulateRates } = await import('../dist/simulate/simulate-rates.js');
-  const { profileAllOfFit } = await import('../dist/evidence/profile-likelihood.js');
-  const { waldEstimates } = await import('../dist/evidence/wald-estimates.js');
-  const { runBootstrap, bootstrapIntervalsOf } = await import('../dist/evidence/bootstrap.js');
+  const { profileAllOfFit } = await import('../dist/evidence/intervals/profile-likelihood.js');
+  const { waldEstimates } = await import('../dist/evidence/intervals/wald-estimates.js');
+  const { runBootstrap, bootstrapIntervalsOf } = await import('../dist/evidence/bootstrap/bootstrap.js');
 
   const truth = TRUTH[cell.mechanism];
   const inhibitionScale = truth.Ki ?? truth.Kiu ?? 5;

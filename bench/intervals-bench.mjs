@@ -17,8 +17,8 @@ import { availableParallelism, loadavg } from 'node:os';
 import { fitAllMechanisms } from '../dist/fit/fit-all-mechanisms.js';
 import { fitDataFromArrays } from '../dist/fit/fit-data.js';
 import { simulateRates } from '../dist/simulate/simulate-rates.js';
-import { profileAllOfFit } from '../dist/evidence/profile-likelihood.js';
-import { runBootstrap } from '../dist/evidence/bootstrap.js';
+import { profileAllOfFit } from '../dist/evidence/intervals/profile-likelihood.js';
+import { runBootstrap } from '../dist/evidence/bootstrap/bootstrap.js';
 
 const RESAMPLES = Number(process.argv[2] ?? 1000);
 

@@ -84,7 +84,7 @@ for (const r of rows) {
 }
 console.log(`(${seconds.toFixed(1)} s, ${(1000 * seconds / (PER_MECHANISM * MECHANISMS.length)).toFixed(1)} ms per analysis)`);
 
-/** AICc penalty of k estimated quantities (parameters + the error variance) at n points (src/evidence/information-criteria.ts). */
+/** AICc penalty of k estimated quantities (parameters + the error variance) at n points (src/evidence/selection/information-criteria.ts). */
 function aiccPenalty(k, n) {
   return 2 * k + (2 * k * (k + 1)) / (n - k - 1);
 }

@@ -23,7 +23,7 @@ import { analyzeTable } from '../dist/analysis/analyze-table.js';
 import { simulateModelRates } from '../dist/simulate/simulate-model.js';
 import { tableFromPoints } from '../dist/simulate/table-from-points.js';
 import { lookupModel } from '../dist/models/registry.js';
-import { profileAllOfFit } from '../dist/evidence/profile-likelihood.js';
+import { profileAllOfFit } from '../dist/evidence/intervals/profile-likelihood.js';
 
 const N = Number(process.argv[2] ?? 10);
 const S = [2, 4, 7, 10, 15, 25, 50, 100];

@@ -93,7 +93,7 @@ async function loadLib() {
     import(new URL('simulate/simulate-rates.js', root)),
     import(new URL('simulate/table-from-points.js', root)),
     import(new URL('simulate/random.js', root)),
-    import(new URL('evidence/profile-likelihood.js', root)),
+    import(new URL('evidence/intervals/profile-likelihood.js', root)),
     import(new URL('wording/verdict-words.js', root)),
   ]);
   return { analyzeTable: a.analyzeTable, simulateRates: s.simulateRates, tableFromPoints: t.tableFromPoints, seededRandom: r.seededRandom, profileTausAt: pl.profileTausAt, wordVerdict: w.wordVerdict };

@@ -21,11 +21,11 @@ export { fitDataFromArrays, fitDataFromTable, type FitData } from './fit/fit-dat
 export { ERROR_MODELS, type ErrorModel } from './fit/error-models.js';
 export { levenbergMarquardt } from './fit/levenberg-marquardt.js';
 export type * from './fit/least-squares-problem.js';
-export type { ParameterEstimate, EstimateName } from './evidence/wald-estimates.js';
-export type { NestedComparison } from './evidence/nested-comparisons.js';
-export type { Verdict, VerdictOutcome } from './evidence/verdict.js';
-export type { Advice, ExclusionFinding, InhibitorReach, VerdictHeadline, VerdictReason } from './evidence/verdict-findings.js';
-export type { Caveat, CodedCaveat, WordedCaveat } from './evidence/caveat.js';
+export type { ParameterEstimate, EstimateName } from './evidence/intervals/wald-estimates.js';
+export type { NestedComparison } from './evidence/selection/nested-comparisons.js';
+export type { Verdict, VerdictOutcome } from './evidence/verdict/verdict.js';
+export type { Advice, ExclusionFinding, InhibitorReach, VerdictHeadline, VerdictReason } from './evidence/verdict/verdict-findings.js';
+export type { Caveat, CodedCaveat, WordedCaveat } from './evidence/verdict/caveat.js';
 export { wordVerdict, type VerdictWords } from './wording/verdict-words.js';
 export { wordCaveat, type CaveatWords } from './wording/caveat-words.js';
 export { simulateRates, ratesToCsv, trueRate, type SimulationDesign, type NoiseModel } from './simulate/simulate-rates.js';
@@ -97,8 +97,8 @@ export { isSingleSubstrateTable, substrateLevels, analyzeSingleSubstrate } from 
 export type { SingleSubstrateOptions, SingleSubstrateResult } from './analysis/single-substrate.js';
 export { fitDoseResponse, doseResponseRate, DOSE_RESPONSE_LABELS } from './fit/dose-response-fit.js';
 export type { DoseResponseFit, DoseResponseModel } from './fit/dose-response-fit.js';
-export { doseResponseEvidence, chengPrusoffKi } from './evidence/dose-response.js';
-export type { DoseResponseEvidence, DoseResponseModelResult, ImpliedKi, ChengPrusoffMechanism } from './evidence/dose-response.js';
+export { doseResponseEvidence, chengPrusoffKi } from './evidence/constants/dose-response.js';
+export type { DoseResponseEvidence, DoseResponseModelResult, ImpliedKi, ChengPrusoffMechanism } from './evidence/constants/dose-response.js';
 export { doseResponseJson, doseResponseText } from './report/dose-response-output.js';
 export { parseConcentration, concentrationIn } from './input/units.js';
 export type { Concentration } from './input/units.js';
@@ -120,6 +120,6 @@ export { TIGHT_BINDING_GIVEN, TIGHT_BINDING_FITTED, apparentConstant } from './m
 export { morrisonFractions, type MorrisonFractions } from './models/morrison.js';
 export { PARTIAL_MODELS, partialCompetitive, partialNoncompetitive, partialMixed } from './models/partial.js';
 export { fitFamily } from './fit/fit-family.js';
-export { compareFamilies, oneParameterTest, TIGHT_BINDING_RATIO, FAMILY_LEVEL, PARTIAL_AICC_MARGIN, type FamilyCall } from './evidence/family-comparison.js';
+export { compareFamilies, oneParameterTest, TIGHT_BINDING_RATIO, FAMILY_LEVEL, PARTIAL_AICC_MARGIN, type FamilyCall } from './evidence/selection/family-comparison.js';
 export { resolveEnzyme, type EnzymeOption, type EnzymeInput, type FamilyRequest } from './analysis/stage-families.js';
 export { simulateModelRates, type ModelSimulation } from './simulate/simulate-model.js';

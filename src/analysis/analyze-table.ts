@@ -11,21 +11,21 @@ import { fitDataFromTable, maxInhibitor, maxSubstrate, type FitData } from '../f
 import type { ErrorModel } from '../fit/error-models.js';
 import type { RateTable } from '../input/types.js';
 import { LARGEST_MAGNITUDE, MINIMUM_ANALYSIS_POINTS, SMALLEST_MAGNITUDE, outsideFittableRange } from '../input/table-checks.js';
-import { aicc, akaikeWeights, bic, deltas } from '../evidence/information-criteria.js';
-import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/wald-estimates.js';
-import { nestedComparisons, type NestedComparison } from '../evidence/nested-comparisons.js';
+import { aicc, akaikeWeights, bic, deltas } from '../evidence/selection/information-criteria.js';
+import { waldEstimates, type DataSpan, type ParameterEstimate } from '../evidence/intervals/wald-estimates.js';
+import { nestedComparisons, type NestedComparison } from '../evidence/selection/nested-comparisons.js';
 import { addIntervals, type BootstrapRequest } from './stage-intervals.js';
-import { decideVerdict, type Caveat, type ExactFitEvidence, type Verdict } from '../evidence/verdict.js';
-import { candidateErrorModels, checkErrorModel } from '../evidence/error-model-check.js';
-import { robustRefit } from '../evidence/robust-refit.js';
+import { decideVerdict, type Caveat, type ExactFitEvidence, type Verdict } from '../evidence/verdict/verdict.js';
+import { candidateErrorModels, checkErrorModel } from '../evidence/diagnostics/error-model-check.js';
+import { robustRefit } from '../evidence/diagnostics/robust-refit.js';
 import { caveatsFor, errorModelCaveat, largeResidualPoints, runDiagnostics } from './stage-diagnostics.js';
-import { inhibitorReach } from '../evidence/detection-limit.js';
-import type { VerdictReason } from '../evidence/verdict-findings.js';
-import { noActivityFinding } from '../evidence/activity-check.js';
-import { exactFits } from '../evidence/exact-fit.js';
-import { activationCaveat, saturatingInhibitorCaveat, substrateInhibitionCaveat } from '../evidence/rate-pattern-checks.js';
-import { plausibilityCaveats } from '../evidence/plausibility-check.js';
-import { alphaExclusions, type AlphaExclusions } from '../evidence/alpha-exclusion.js';
+import { inhibitorReach } from '../evidence/checks/detection-limit.js';
+import type { VerdictReason } from '../evidence/verdict/verdict-findings.js';
+import { noActivityFinding } from '../evidence/checks/activity-check.js';
+import { exactFits } from '../evidence/checks/exact-fit.js';
+import { activationCaveat, saturatingInhibitorCaveat, substrateInhibitionCaveat } from '../evidence/checks/rate-pattern-checks.js';
+import { plausibilityCaveats } from '../evidence/checks/plausibility-check.js';
+import { alphaExclusions, type AlphaExclusions } from '../evidence/selection/alpha-exclusion.js';
 import type { AnalysisResult, ModelResult, RobustSummary } from './types.js';
 import { runFamilies, type FamilyRequest } from './stage-families.js';
 import { familyCallFor } from './family-call.js';
@@ -136,7 +136,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     ...(noiseFree ? {} : { inhibitorReach: () => inhibitorReach(models, data) }),
   });
 
-  // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/family-comparison.ts.
+  // Families (tight-binding, partial): src/analysis/stage-families.ts, src/evidence/selection/family-comparison.ts.
   // Without --enzyme, an enzyme column or --partial, `verdict` is the classic verdict object itself.
   // A tight-binding call rests on the same exclusion tests, run on the tight-binding mixed fit.
   const familyExclusions = new WeakMap<readonly ModelResult[], () => AlphaExclusions | null>();

@@ -5,8 +5,8 @@
  */
 import type { RateTable } from '../input/types.js';
 import type { FitData } from '../fit/fit-data.js';
-import { compareFamilies, verdictWithFamily, type FamilyCall } from '../evidence/family-comparison.js';
-import type { Verdict } from '../evidence/verdict.js';
+import { compareFamilies, verdictWithFamily, type FamilyCall } from '../evidence/selection/family-comparison.js';
+import type { Verdict } from '../evidence/verdict/verdict.js';
 import type { FamilyStage } from './stage-families.js';
 import type { ModelResult } from './types.js';
 

@@ -1,7 +1,7 @@
 /**
  * IC50-shift experiments: two or three [S] levels, each with a full [I] series. The table still
  * goes through the global mechanism fit; in addition each [S] series is fitted alone as a
- * dose-response curve (src/evidence/dose-response.ts), giving one IC50 per [S]. How the IC50
+ * dose-response curve (src/evidence/constants/dose-response.ts), giving one IC50 per [S]. How the IC50
  * moves with [S] is what practitioners read from this design: it rises with [S] for a
  * competitive inhibitor, falls for an uncompetitive one and stays flat for a noncompetitive one
  * (Cheng, Y. and Prusoff, W. H. (1973) Biochem. Pharmacol. 22, 3099-3108).
@@ -10,7 +10,7 @@
  * [S] levels, each with at least IC50_SHIFT_MIN_INHIBITOR_LEVELS non-zero [I] levels.
  */
 import type { RateTable } from '../input/types.js';
-import { doseResponseEvidence, type Interval } from '../evidence/dose-response.js';
+import { doseResponseEvidence, type Interval } from '../evidence/constants/dose-response.js';
 import type { DoseResponseModel } from '../fit/dose-response-fit.js';
 import { distinctLevels } from '../input/distinct-levels.js';
 

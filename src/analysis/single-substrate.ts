@@ -1,7 +1,7 @@
 /**
  * Tables measured at one substrate concentration (IC50 curves). Such a table cannot tell a
  * mechanism, so it is not sent through the five global fits: it is recognised here and fitted as a
- * dose-response curve instead (src/evidence/dose-response.ts: four-parameter logistic and
+ * dose-response curve instead (src/evidence/constants/dose-response.ts: four-parameter logistic and
  * single-site hyperbola, IC50 with intervals, Cheng-Prusoff Ki per mechanism given Km).
  *
  * The entry points for a caller that dispatches (the CLI's `analyze`, or analyzeTable):
@@ -10,7 +10,7 @@
  * Two or more [S] levels go through the global mechanism fit as before.
  */
 import type { RateTable } from '../input/types.js';
-import { doseResponseEvidence, type DoseResponseEvidence } from '../evidence/dose-response.js';
+import { doseResponseEvidence, type DoseResponseEvidence } from '../evidence/constants/dose-response.js';
 import { distinctLevels } from '../input/distinct-levels.js';
 
 /** The distinct [S] of the used points, ascending. */

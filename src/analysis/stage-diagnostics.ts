@@ -1,7 +1,7 @@
 /**
  * The diagnostics stage: residual checks of every model, per-series fits, the error-model check,
  * design checks that need fitted constants, and (on request) the robust refit. Turns what it finds
- * into coded verdict caveats (src/evidence/caveat.ts) with their numbers; src/wording/caveat-words.ts
+ * into coded verdict caveats (src/evidence/verdict/caveat.ts) with their numbers; src/wording/caveat-words.ts
  * words them.
  *
  * Thresholds (DEVELOPERS.md, "The verdict rule"): runs test "too few runs" p < 0.01 and lack-of-fit
@@ -12,11 +12,11 @@
 import type { Mechanism } from '../models/types.js';
 import type { FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
-import { residualDiagnostics, STUDENTISED_LIMIT, type ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
-import { SERIES_SE_LIMIT, seriesDisagreements, seriesFits, type SeriesDisagreement } from '../evidence/series-fits.js';
-import type { ErrorModelCheck } from '../evidence/error-model-check.js';
-import { designCaveats } from '../evidence/design-caveats.js';
-import type { Caveat } from '../evidence/verdict.js';
+import { residualDiagnostics, STUDENTISED_LIMIT, type ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
+import { SERIES_SE_LIMIT, seriesDisagreements, seriesFits, type SeriesDisagreement } from '../evidence/diagnostics/series-fits.js';
+import type { ErrorModelCheck } from '../evidence/diagnostics/error-model-check.js';
+import { designCaveats } from '../evidence/checks/design-caveats.js';
+import type { Caveat } from '../evidence/verdict/verdict.js';
 import type { ModelResult, SeriesFit } from './types.js';
 
 export const DIAGNOSTIC_LEVEL = 0.01;

@@ -1,7 +1,7 @@
 /**
  * The tight-binding and partial families beside the classic five: which of them to fit, the
  * enzyme concentration they read, their fits (src/fit/fit-family.ts), ranking, tests and profile
- * intervals, and the evidence the family comparison (src/evidence/family-comparison.ts) reads.
+ * intervals, and the evidence the family comparison (src/evidence/selection/family-comparison.ts) reads.
  * When neither family is requested nothing here runs, and the classic analysis is unchanged.
  */
 import type { Mechanism, MechanismModel } from '../models/types.js';
@@ -12,13 +12,13 @@ import type { ErrorModel } from '../fit/error-models.js';
 import { fitFamily } from '../fit/fit-family.js';
 import { InputError, type ConcentrationUnit, type RateTable } from '../input/types.js';
 import { parseConcentrationUnit, scaleByPowerOfTen, unitShift } from '../input/units.js';
-import { compareNested, type NestedComparison } from '../evidence/nested-comparisons.js';
-import { profileAllOfFit } from '../evidence/profile-likelihood.js';
-import { oneParameterTest, partialWinner, type BoundaryTest, type FamilyModelEvidence, type PartialEvidence, type TightBindingEvidence } from '../evidence/family-comparison.js';
-import type { Caveat, Verdict } from '../evidence/verdict.js';
-import { familyBootstrap } from '../evidence/family-bootstrap.js';
-import type { WildWeights } from '../evidence/bootstrap-tasks.js';
-import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
+import { compareNested, type NestedComparison } from '../evidence/selection/nested-comparisons.js';
+import { profileAllOfFit } from '../evidence/intervals/profile-likelihood.js';
+import { oneParameterTest, partialWinner, type BoundaryTest, type FamilyModelEvidence, type PartialEvidence, type TightBindingEvidence } from '../evidence/selection/family-comparison.js';
+import type { Caveat, Verdict } from '../evidence/verdict/verdict.js';
+import { familyBootstrap } from '../evidence/bootstrap/family-bootstrap.js';
+import type { WildWeights } from '../evidence/bootstrap/bootstrap-tasks.js';
+import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
 import { caveatsFor } from './stage-diagnostics.js';
 import type { EnzymeInput, ModelResult } from './types.js';
 
@@ -31,7 +31,7 @@ export interface FamilyRequest {
   enzyme?: EnzymeOption;
   /** fit the partial family (docs/decisions/family-selection.md: on request only) */
   partial?: boolean;
-  /** wild bootstrap of the family models the call can name (src/evidence/family-bootstrap.ts) */
+  /** wild bootstrap of the family models the call can name (src/evidence/bootstrap/family-bootstrap.ts) */
   bootstrap?: { resamples: number; seed: number; weights?: WildWeights };
 }
 
@@ -218,7 +218,7 @@ export function runFamilies(
         if (rule && g !== f) withinFamily[modelId(g.model)] = oneParameterTest(g.logLik, f.logLik, rule.rules.some((r) => r.kind === 'limit'));
       }
     }
-    // the model the family comparison will name (same rule, src/evidence/family-comparison.ts) gets the profiles and the fit checks
+    // the model the family comparison will name (same rule, src/evidence/selection/family-comparison.ts) gets the profiles and the fit checks
     const evidence = ranked.map(evidenceOf);
     const usable = evidence.filter((m) => m.converged && Number.isFinite(m.aicc));
     const pickId = usable.length ? partialWinner(usable, { models: evidence, againstFull, withinFamily, blocking: [] }).model.id : undefined;

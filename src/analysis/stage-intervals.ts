@@ -12,10 +12,10 @@ import { MECHANISMS } from '../models/index.js';
 import { maxInhibitor, type FitData } from '../fit/fit-data.js';
 import { valueWithUnit } from '../text/format-number.js';
 import type { MechanismFit } from '../fit/fit-mechanism.js';
-import { profileAllOfFit, type ParameterProfile } from '../evidence/profile-likelihood.js';
-import { jointRegionKiKiu } from '../evidence/joint-region.js';
-import { runBootstrap, bootstrapIntervalsOf, type BootstrapRun } from '../evidence/bootstrap.js';
-import type { WildWeights } from '../evidence/bootstrap-tasks.js';
+import { profileAllOfFit, type ParameterProfile } from '../evidence/intervals/profile-likelihood.js';
+import { jointRegionKiKiu } from '../evidence/intervals/joint-region.js';
+import { runBootstrap, bootstrapIntervalsOf, type BootstrapRun } from '../evidence/bootstrap/bootstrap.js';
+import type { WildWeights } from '../evidence/bootstrap/bootstrap-tasks.js';
 import {
   deltaMethodSe,
   derivedDefinitions,
@@ -23,9 +23,9 @@ import {
   type DerivedDefinition,
   type DerivedQuantity,
   type DerivedUnits,
-} from '../evidence/derived-quantities.js';
-import { waldEstimates, waldInterval } from '../evidence/wald-estimates.js';
-import { detectionBound } from '../evidence/detection-bound.js';
+} from '../evidence/intervals/derived-quantities.js';
+import { waldEstimates, waldInterval } from '../evidence/intervals/wald-estimates.js';
+import { detectionBound } from '../evidence/intervals/detection-bound.js';
 import { tQuantile } from '../stats/distributions.js';
 import type { BootstrapSummary, ModelResult } from './types.js';
 import { distinctLevels } from '../input/distinct-levels.js';

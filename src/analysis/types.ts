@@ -4,21 +4,21 @@ import type { MechanismFit } from '../fit/fit-mechanism.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import type { FitData } from '../fit/fit-data.js';
 import type { Exclusion, InputWarning, RateTable } from '../input/types.js';
-import type { ParameterEstimate } from '../evidence/wald-estimates.js';
-import type { NestedComparison } from '../evidence/nested-comparisons.js';
-import type { Verdict } from '../evidence/verdict.js';
-import type { FamilyCall } from '../evidence/family-comparison.js';
-import type { DerivedQuantity } from '../evidence/derived-quantities.js';
-import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
-import type { SeriesDisagreement, SeriesFit } from '../evidence/series-fits.js';
-import type { ErrorModelCheck } from '../evidence/error-model-check.js';
-import type { ProfileCurve } from '../evidence/profile-likelihood.js';
-import type { JointRegion } from '../evidence/joint-region.js';
+import type { ParameterEstimate } from '../evidence/intervals/wald-estimates.js';
+import type { NestedComparison } from '../evidence/selection/nested-comparisons.js';
+import type { Verdict } from '../evidence/verdict/verdict.js';
+import type { FamilyCall } from '../evidence/selection/family-comparison.js';
+import type { DerivedQuantity } from '../evidence/intervals/derived-quantities.js';
+import type { ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
+import type { SeriesDisagreement, SeriesFit } from '../evidence/diagnostics/series-fits.js';
+import type { ErrorModelCheck } from '../evidence/diagnostics/error-model-check.js';
+import type { ProfileCurve } from '../evidence/intervals/profile-likelihood.js';
+import type { JointRegion } from '../evidence/intervals/joint-region.js';
 
 // Produced by the evidence stage and owned there; re-exported so the result types stay in one place for readers.
-export type { ProfileCurve } from '../evidence/profile-likelihood.js';
-export type { JointRegion } from '../evidence/joint-region.js';
-export type { SeriesFit } from '../evidence/series-fits.js';
+export type { ProfileCurve } from '../evidence/intervals/profile-likelihood.js';
+export type { JointRegion } from '../evidence/intervals/joint-region.js';
+export type { SeriesFit } from '../evidence/diagnostics/series-fits.js';
 
 /** What a bootstrap run did, and how often each mechanism ranked first by AICc across resamples. */
 export interface BootstrapSummary {

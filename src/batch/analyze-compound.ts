@@ -49,7 +49,7 @@ export interface CompoundSettings {
 /**
  * The options of a batch run as plain data. A bootstrap runs in the thread of its compound
  * (workers: 1): the batch is already parallel across compounds, and the bootstrap's result does
- * not depend on its number of threads (src/evidence/bootstrap-threads.ts).
+ * not depend on its number of threads (src/evidence/bootstrap/bootstrap-threads.ts).
  */
 export function toPortableOptions(options: AnalysisOptions): PortableAnalysisOptions {
   const { models, ...rest } = options;

@@ -5,10 +5,10 @@
  * Constants are those of the called mechanism (verdict.mechanism): Ki, Kiu and alpha are null
  * when that mechanism has no such constant (e.g. Kiu of the competitive model). Intervals are the
  * profile-likelihood ones when the estimate carries them (Bates & Watts 1988, sec. 6.1), else the
- * Wald ones (src/evidence/wald-estimates.ts).
+ * Wald ones (src/evidence/intervals/wald-estimates.ts).
  */
 import type { AnalysisResult } from '../analysis/types.js';
-import type { EstimateName, ParameterEstimate } from '../evidence/wald-estimates.js';
+import type { EstimateName, ParameterEstimate } from '../evidence/intervals/wald-estimates.js';
 import type { RateTable } from '../input/types.js';
 import type { CompoundSummary, ConstantSummary } from './types.js';
 import type { SingleSubstrateResult } from '../analysis/single-substrate.js';

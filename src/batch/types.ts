@@ -3,7 +3,7 @@
  * summary table (summary.csv, summary.json, index.html).
  */
 import type { Mechanism } from '../models/types.js';
-import type { VerdictOutcome } from '../evidence/verdict.js';
+import type { VerdictOutcome } from '../evidence/verdict/verdict.js';
 import type { RateTable } from '../input/types.js';
 
 /**

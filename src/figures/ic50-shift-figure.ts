@@ -2,10 +2,10 @@
  * IC50 against [S] for an IC50-shift design (src/analysis/ic50-shift.ts): one point per [S]
  * series, the IC50 of that series fitted alone as a dose-response curve, with its interval; and
  * the IC50 the global fit of the drawn mechanism implies at each [S] (closed forms of Cheng and
- * Prusoff 1973, src/evidence/cheng-prusoff.ts). Log-log axes. Drawn only for that design.
+ * Prusoff 1973, src/evidence/constants/cheng-prusoff.ts). Log-log axes. Drawn only for that design.
  */
 import { ic50ShiftSeries } from '../analysis/ic50-shift.js';
-import { ic50AtSubstrate } from '../evidence/cheng-prusoff.js';
+import { ic50AtSubstrate } from '../evidence/constants/cheng-prusoff.js';
 import type { FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';

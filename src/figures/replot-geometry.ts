@@ -24,7 +24,7 @@
  * (2012) Fundamentals of Enzyme Kinetics, 4th ed.)
  */
 import type { ModelResult } from '../analysis/types.js';
-import { inhibitionArms } from '../evidence/apparent-constants.js';
+import { inhibitionArms } from '../evidence/constants/apparent-constants.js';
 
 /** The rate constants of a global fit, an absent arm at +Infinity. */
 export interface RateConstants {
@@ -60,7 +60,7 @@ export function modelRate(c: RateConstants, s: number, i: number): number {
 
 /**
  * Apparent Michaelis-Menten constants at inhibitor level I, from constants already in the mixed
- * form (src/evidence/apparent-constants.ts computes the same from a fit's parameter vector).
+ * form (src/evidence/constants/apparent-constants.ts computes the same from a fit's parameter vector).
  */
 function apparentAtLevel(c: RateConstants, i: number): { Vmax: number; Km: number } {
   const u = 1 + i / c.Kiu;

@@ -5,7 +5,7 @@
  * which crosses zero at [I] = -Ki (slope) and [I] = -Kiu (intercept). Drawn only when the
  * analysis carries per-series fits.
  */
-import type { SeriesFit } from '../evidence/series-fits.js';
+import type { SeriesFit } from '../evidence/diagnostics/series-fits.js';
 import { concentrationText, type FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';

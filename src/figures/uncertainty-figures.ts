@@ -9,7 +9,7 @@
  *    noncompetitive) for reference.
  */
 import type { ModelResult } from '../analysis/types.js';
-import type { ProfileCurve } from '../evidence/profile-likelihood.js';
+import type { ProfileCurve } from '../evidence/intervals/profile-likelihood.js';
 import type { FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';

@@ -1,6 +1,6 @@
 /**
  * Design checks that need the fitted constants (pure): the one place for their thresholds and
- * wording. The analysis turns them into verdict caveats (src/evidence/design-caveats.ts); the
+ * wording. The analysis turns them into verdict caveats (src/evidence/checks/design-caveats.ts); the
  * library's designWarnings (design-warnings.ts) turns them into input warnings.
  *
  * Targets (BRIEF section 7; NIH/NCATS Assay Guidance Manual, mechanism-of-action chapter, for

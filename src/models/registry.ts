@@ -5,7 +5,7 @@
  * description here: model ids, the nested pairs to test, warm starts embedded from smaller
  * solutions, parameter units and starting scales.
  *
- * The nested pairs (src/evidence/nested-comparisons.ts) and the warm starts and nesting check of
+ * The nested pairs (src/evidence/selection/nested-comparisons.ts) and the warm starts and nesting check of
  * the classic five (src/fit/fit-all-mechanisms.ts) and of the other families
  * (src/fit/fit-family.ts) are derived here. The classic apparent-constant, Cheng-Prusoff and replot
  * geometry tables are still written by hand (their closed forms hold for the classic laws only).

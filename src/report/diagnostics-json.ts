@@ -1,6 +1,6 @@
 /** The diagnostics part of the JSON document: residual checks, per-series fits, error model, robust refit. */
 import type { AnalysisResult } from '../analysis/types.js';
-import type { ResidualDiagnostics } from '../evidence/residual-diagnostics.js';
+import type { ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
 import { jsonNumber, type Json } from './json-values.js';
 import { wordVerdict } from '../wording/verdict-words.js';
 

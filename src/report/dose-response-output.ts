@@ -6,7 +6,7 @@
  * Interval keys are named for the level (ci95 at 0.95, ci99 at 0.99). Non-finite numbers are null.
  */
 import type { SingleSubstrateResult } from '../analysis/single-substrate.js';
-import type { DoseResponseModelResult, Interval } from '../evidence/dose-response.js';
+import type { DoseResponseModelResult, Interval } from '../evidence/constants/dose-response.js';
 import { describeTable } from '../input/describe-table.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { interval, sig, valueWithUnit } from '../text/format-number.js';

@@ -3,8 +3,8 @@
  * The shape is documented in README.md ("JSON output"). Non-finite numbers become null.
  */
 import type { AnalysisResult, ModelResult } from '../analysis/types.js';
-import type { ParameterEstimate } from '../evidence/wald-estimates.js';
-import type { DerivedQuantity } from '../evidence/derived-quantities.js';
+import type { ParameterEstimate } from '../evidence/intervals/wald-estimates.js';
+import type { DerivedQuantity } from '../evidence/intervals/derived-quantities.js';
 import { TOOL_NAME, TOOL_VERSION } from '../version.js';
 import { diagnosticsJson } from './diagnostics-json.js';
 import { jsonNumber, jsonPair, type Json } from './json-values.js';

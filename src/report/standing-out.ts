@@ -6,7 +6,7 @@
  * matters. The analysis keeps every flagged point (results.json `suspects`); only the wording of
  * the report and the text summary is filtered. The limit 2 is common practice (no source).
  */
-import type { ResidualDiagnostics, SuspectPoint } from '../evidence/residual-diagnostics.js';
+import type { ResidualDiagnostics, SuspectPoint } from '../evidence/diagnostics/residual-diagnostics.js';
 
 export const LEVERAGED_RESIDUAL_LIMIT = 2;
 

@@ -3,7 +3,7 @@
  * estimate's note carries the bound as a bare number, since the fit knows no units. Used by the
  * text summary and the report page (issue 13: every printed concentration carries its unit).
  */
-import type { ParameterEstimate } from '../evidence/wald-estimates.js';
+import type { ParameterEstimate } from '../evidence/intervals/wald-estimates.js';
 import { sig } from '../text/format-number.js';
 
 export function undetectedText(e: Pick<ParameterEstimate, 'name' | 'note' | 'exceeds'>, unit: string): string {

@@ -1,9 +1,9 @@
 /**
- * The words of a caveat (src/evidence/caveat.ts): its sentence among the verdict's reasons, the
+ * The words of a caveat (src/evidence/verdict/caveat.ts): its sentence among the verdict's reasons, the
  * experiment or action that would remove it, and, for one that blocks, the headline it leads with.
  * The numbers and thresholds come from the caveat; rewording here changes no result.
  */
-import { isWorded, type Caveat, type CodedCaveat, type DownWeightedLine } from '../evidence/caveat.js';
+import { isWorded, type Caveat, type CodedCaveat, type DownWeightedLine } from '../evidence/verdict/caveat.js';
 import { pPhrase, rounded, sig } from '../text/format-number.js';
 
 export interface CaveatWords {

@@ -1,9 +1,9 @@
 /**
- * The words of the family comparison (src/evidence/family-comparison.ts): why [E]t does or does
+ * The words of the family comparison (src/evidence/selection/family-comparison.ts): why [E]t does or does
  * not matter, why a partial call is made or not, and the headline of a tight-binding or partial
  * call. Used by src/wording/verdict-words.ts.
  */
-import type { Advice, ConstantFinding, FamilyReason, VerdictHeadline } from '../evidence/verdict-findings.js';
+import type { Advice, ConstantFinding, FamilyReason, VerdictHeadline } from '../evidence/verdict/verdict-findings.js';
 
 /** Three significant digits, trailing zeros dropped; '?' for a missing value. */
 function fmt(x: number | null | undefined): string {

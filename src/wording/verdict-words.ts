@@ -1,14 +1,14 @@
 /**
- * The words of a verdict (src/evidence/verdict.ts): the headline, the reasons and the advice, from
+ * The words of a verdict (src/evidence/verdict/verdict.ts): the headline, the reasons and the advice, from
  * the codes and numbers the verdict holds. The report, the text summary, results.json and the batch
  * summary word a verdict only through wordVerdict; the thresholds in a sentence are the constants
- * the rule uses (src/evidence/verdict.ts, src/evidence/alpha-exclusion.ts).
+ * the rule uses (src/evidence/verdict/verdict.ts, src/evidence/selection/alpha-exclusion.ts).
  */
 import type { Mechanism } from '../models/types.js';
-import type { Verdict } from '../evidence/verdict.js';
-import type { Advice, ExclusionFinding, InhibitorReach, MechanismPair, VerdictHeadline, VerdictReason } from '../evidence/verdict-findings.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../evidence/alpha-exclusion.js';
-import { DETECTION_FACTOR } from '../evidence/detection-bound.js';
+import type { Verdict } from '../evidence/verdict/verdict.js';
+import type { Advice, ExclusionFinding, InhibitorReach, MechanismPair, VerdictHeadline, VerdictReason } from '../evidence/verdict/verdict-findings.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../evidence/selection/alpha-exclusion.js';
+import { DETECTION_FACTOR } from '../evidence/intervals/detection-bound.js';
 import { pPhrase, rounded, sig, valueWithUnit } from '../text/format-number.js';
 import { wordCaveat } from './caveat-words.js';
 import { familyAdvice, familyHeadline, familyReason } from './family-words.js';
@@ -151,7 +151,7 @@ function adviceText(a: Advice): string | undefined {
   }
 }
 
-/** The reason sentence for the exclusion step (src/evidence/alpha-exclusion.ts). */
+/** The reason sentence for the exclusion step (src/evidence/selection/alpha-exclusion.ts). */
 function exclusionPhrase(winner: Mechanism, e: ExclusionFinding): string {
   if (e.tests.length === 0) return `the mixed model was not fitted, so a hidden component of the ${winner} call cannot be excluded`;
   const worst = e.tests.reduce((a, b) => (b.p > a.p ? b : a));

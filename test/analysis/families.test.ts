@@ -14,7 +14,7 @@ import { simulateModelRates } from '../../src/simulate/simulate-model.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { lookupModel } from '../../src/models/registry.js';
 import { parseRateText } from '../../src/input/parse-rate-text.js';
-import { oneParameterTest, TIGHT_BINDING_RATIO } from '../../src/evidence/family-comparison.js';
+import { oneParameterTest, TIGHT_BINDING_RATIO } from '../../src/evidence/selection/family-comparison.js';
 import { morrisonFractions } from '../../src/models/morrison.js';
 import { renderFigures } from '../../src/figures/render-figures.js';
 import { fractionalActivity } from '../../src/figures/fractional-activity.js';

@@ -7,11 +7,11 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readRateFile } from '../../src/input/read-rate-file.js';
 import { analyzeTable, AnalysisError } from '../../src/analysis/analyze-table.js';
-import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
+import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/checks/plausibility-check.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
-import type { Caveat } from '../../src/evidence/caveat.js';
-import { SATURATED_ACTIVITY } from '../../src/evidence/rate-pattern-checks.js';
+import type { Caveat } from '../../src/evidence/verdict/caveat.js';
+import { SATURATED_ACTIVITY } from '../../src/evidence/checks/rate-pattern-checks.js';
 
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'fixtures', 'odd-data');
 async function analysed(name: string) {

@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../src/evidence/alpha-exclusion.js';
-import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../src/evidence/selection/alpha-exclusion.js';
+import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict/verdict.js';
 import { DIAGNOSTIC_LEVEL } from '../../src/analysis/stage-diagnostics.js';
 import { MINIMUM_ANALYSIS_POINTS } from '../../src/input/table-checks.js';
 

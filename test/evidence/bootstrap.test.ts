@@ -8,9 +8,9 @@ import { MECHANISMS } from '../../src/models/index.js';
 import { fitAllMechanisms } from '../../src/fit/fit-all-mechanisms.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
 import { simulateRates } from '../../src/simulate/simulate-rates.js';
-import { bootstrapPlan, runBootstrap, bootstrapIntervalsOf } from '../../src/evidence/bootstrap.js';
-import { rowWidth, runTasks, resampleSeed, wildResample } from '../../src/evidence/bootstrap-tasks.js';
-import { bcaInterval, jackknifeAcceleration, percentileInterval, sortedQuantile } from '../../src/evidence/bootstrap-intervals.js';
+import { bootstrapPlan, runBootstrap, bootstrapIntervalsOf } from '../../src/evidence/bootstrap/bootstrap.js';
+import { rowWidth, runTasks, resampleSeed, wildResample } from '../../src/evidence/bootstrap/bootstrap-tasks.js';
+import { bcaInterval, jackknifeAcceleration, percentileInterval, sortedQuantile } from '../../src/evidence/bootstrap/bootstrap-intervals.js';
 
 const points = simulateRates({
   mechanism: 'mixed',

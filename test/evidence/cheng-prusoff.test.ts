@@ -6,9 +6,9 @@
 import { describe, expect, it } from 'vitest';
 import { modelFor } from '../../src/models/index.js';
 import type { Mechanism } from '../../src/models/types.js';
-import { ic50AtSubstrate } from '../../src/evidence/cheng-prusoff.js';
-import { apparentKm, apparentVmax } from '../../src/evidence/apparent-constants.js';
-import { findRoot } from '../../src/evidence/find-root.js';
+import { ic50AtSubstrate } from '../../src/evidence/constants/cheng-prusoff.js';
+import { apparentKm, apparentVmax } from '../../src/evidence/constants/apparent-constants.js';
+import { findRoot } from '../../src/evidence/intervals/find-root.js';
 
 const TRUTH: Record<Exclude<Mechanism, 'none'>, number[]> = {
   competitive: [12, 30, 0.8],

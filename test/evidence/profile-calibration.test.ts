@@ -10,7 +10,7 @@ import { competitive } from '../../src/models/competitive.js';
 import { fitMechanism } from '../../src/fit/fit-mechanism.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
 import { simulateRates } from '../../src/simulate/simulate-rates.js';
-import { profileAllOfFit } from '../../src/evidence/profile-likelihood.js';
+import { profileAllOfFit } from '../../src/evidence/intervals/profile-likelihood.js';
 
 const TRUTH = { Vmax: 10, Km: 20, Ki: 5 };
 

@@ -4,7 +4,7 @@
  * sec. 6.1), whichever way the end was reached. Invented data (simulated, seeded).
  */
 import { describe, expect, it } from 'vitest';
-import { profileAllOfFit, profileTausAt } from '../../src/evidence/profile-likelihood.js';
+import { profileAllOfFit, profileTausAt } from '../../src/evidence/intervals/profile-likelihood.js';
 import { fitAllMechanisms } from '../../src/fit/fit-all-mechanisms.js';
 import { fitDataFromTable } from '../../src/fit/fit-data.js';
 import { simulateReferenceDesign } from '../../src/simulate/reference-design.js';

@@ -5,12 +5,12 @@
  *  - published-table.json: R 4.2.2 values at the precision R printed them (copied by hand);
  *  - r-reference.json: the same quantities at 17 digits, written by runner.R (R 4.2.2).
  * R's logLik for nls is the Gaussian log-likelihood at sigma^2 = RSS/n, and AIC/BIC count sigma as a
- * parameter (logLik df = fitted parameters + 1), which is the k = p + 1 of src/evidence/information-criteria.ts.
+ * parameter (logLik df = fitted parameters + 1), which is the k = p + 1 of src/evidence/selection/information-criteria.ts.
  * R has no AICc; AICc - 2k(k+1)/(n-k-1) must equal R's AIC (Hurvich & Tsai 1989 correction term).
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { aicc, bic } from '../../src/evidence/information-criteria.js';
+import { aicc, bic } from '../../src/evidence/selection/information-criteria.js';
 import { extraSumOfSquaresTest } from '../../src/stats/extra-sum-of-squares-test.js';
 import { gaussianLogLikelihood } from '../../src/fit/error-models.js';
 import { fitMechanism } from '../../src/fit/fit-mechanism.js';

@@ -16,7 +16,7 @@ import { describe, expect, it } from 'vitest';
 import { noInhibition } from '../../src/models/no-inhibition.js';
 import { fitMechanism } from '../../src/fit/fit-mechanism.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
-import { profileAllOfFit } from '../../src/evidence/profile-likelihood.js';
+import { profileAllOfFit } from '../../src/evidence/intervals/profile-likelihood.js';
 import { agreesToDigits } from '../fit/significant-digits.js';
 
 const R_CONFINT = {

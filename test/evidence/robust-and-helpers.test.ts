@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { bisquareWeights, madScale, BISQUARE_C } from '../../src/evidence/robust-refit.js';
-import { residualSeriesBySubstrate } from '../../src/evidence/residual-diagnostics.js';
+import { bisquareWeights, madScale, BISQUARE_C } from '../../src/evidence/diagnostics/robust-refit.js';
+import { residualSeriesBySubstrate } from '../../src/evidence/diagnostics/residual-diagnostics.js';
 import { median } from '../../src/stats/median.js';
 import { maxInhibitor, subsetFitData, fitDataFromArrays } from '../../src/fit/fit-data.js';
 import { pPhrase } from '../../src/text/format-number.js';

@@ -10,8 +10,8 @@ import { modelFor } from '../../src/models/index.js';
 import type { Mechanism } from '../../src/models/types.js';
 import { fitMechanism } from '../../src/fit/fit-mechanism.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
-import { profileAllOfFit } from '../../src/evidence/profile-likelihood.js';
-import { profileSupport } from '../../src/evidence/profile-support.js';
+import { profileAllOfFit } from '../../src/evidence/intervals/profile-likelihood.js';
+import { profileSupport } from '../../src/evidence/intervals/profile-support.js';
 
 interface Reference {
   levels: number[];

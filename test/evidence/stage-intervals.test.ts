@@ -12,8 +12,8 @@ import { simulateRates } from '../../src/simulate/simulate-rates.js';
 import type { Mechanism, ParamName } from '../../src/models/types.js';
 import { analysisJson } from '../../src/report/results-json.js';
 import { profileText, textSummary } from '../../src/report/text-summary.js';
-import { ic50AtSubstrate } from '../../src/evidence/cheng-prusoff.js';
-import { profileSupport } from '../../src/evidence/profile-support.js';
+import { ic50AtSubstrate } from '../../src/evidence/constants/cheng-prusoff.js';
+import { profileSupport } from '../../src/evidence/intervals/profile-support.js';
 import { tableFromPoints } from '../../src/simulate/table-from-points.js';
 
 function table(mechanism: Mechanism, params: Partial<Record<ParamName, number>>, seed: number, inhibitorUnit: 'uM' | null = 'uM'): RateTable {

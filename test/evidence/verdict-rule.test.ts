@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { decideVerdict, MIXED_LEVEL, type RankedModelEvidence } from '../../src/evidence/verdict.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from '../../src/evidence/alpha-exclusion.js';
-import type { NestedComparison } from '../../src/evidence/nested-comparisons.js';
+import { decideVerdict, MIXED_LEVEL, type RankedModelEvidence } from '../../src/evidence/verdict/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest, type AlphaExclusions } from '../../src/evidence/selection/alpha-exclusion.js';
+import type { NestedComparison } from '../../src/evidence/selection/nested-comparisons.js';
 import type { Mechanism } from '../../src/models/types.js';
-import type { Caveat } from '../../src/evidence/caveat.js';
+import type { Caveat } from '../../src/evidence/verdict/caveat.js';
 
 function models(aiccs: Partial<Record<Mechanism, number>>): RankedModelEvidence[] {
   return (Object.entries(aiccs) as Array<[Mechanism, number]>).map(([mechanism, aicc]) => ({ mechanism, aicc, weight: 0, converged: true }));

@@ -1,5 +1,5 @@
 /**
- * Single-[S] dose-response fits (src/fit/dose-response-fit.ts, src/evidence/dose-response.ts)
+ * Single-[S] dose-response fits (src/fit/dose-response-fit.ts, src/evidence/constants/dose-response.ts)
  * against an independent reference: scipy.optimize.least_squares (method lm, tolerances 1e-15,
  * several starts) on three simulated curves (INVENTED data), test/fixtures/dose-response/runner.py
  * -> reference.json. Same minimum (SSE to 1e-9 relative), same parameters (1e-6 relative, or 1e-6
@@ -9,7 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fitDoseResponse, doseResponseRate } from '../../src/fit/dose-response-fit.js';
-import { chengPrusoffKi, doseResponseEvidence } from '../../src/evidence/dose-response.js';
+import { chengPrusoffKi, doseResponseEvidence } from '../../src/evidence/constants/dose-response.js';
 
 interface RefFit { x: number[]; sse: number; se: number[] }
 interface RefCase { name: string; inhibitor: number[]; rate: number[]; fourPL: RefFit; hyperbolic: RefFit }

@@ -11,7 +11,7 @@ import { fitAllMechanisms } from '../../src/fit/fit-all-mechanisms.js';
 import { fitDataFromArrays, type FitData } from '../../src/fit/fit-data.js';
 import type { ErrorModel } from '../../src/fit/error-models.js';
 import type { MechanismFit } from '../../src/fit/fit-mechanism.js';
-import { detectionBound } from '../../src/evidence/detection-bound.js';
+import { detectionBound } from '../../src/evidence/intervals/detection-bound.js';
 import { REFERENCE_INHIBITOR, REFERENCE_KM, REFERENCE_TRUTH, simulateReferenceDesign } from '../../src/simulate/reference-design.js';
 
 const KM = REFERENCE_KM;

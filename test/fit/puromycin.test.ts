@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { noInhibition } from '../../src/models/no-inhibition.js';
 import { fitMechanism } from '../../src/fit/fit-mechanism.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
-import { waldEstimates } from '../../src/evidence/wald-estimates.js';
+import { waldEstimates } from '../../src/evidence/intervals/wald-estimates.js';
 import { agreesToDigits } from './significant-digits.js';
 
 const FIXTURES = new URL('../fixtures/puromycin/', import.meta.url);

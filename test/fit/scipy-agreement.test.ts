@@ -17,7 +17,7 @@ import type { Mechanism } from '../../src/models/types.js';
 import { fitAllMechanisms } from '../../src/fit/fit-all-mechanisms.js';
 import { fitDataFromArrays } from '../../src/fit/fit-data.js';
 import type { ErrorModel } from '../../src/fit/error-models.js';
-import { detectionBound } from '../../src/evidence/detection-bound.js';
+import { detectionBound } from '../../src/evidence/intervals/detection-bound.js';
 
 const DIR = new URL('../fixtures/scipy-fit/', import.meta.url);
 

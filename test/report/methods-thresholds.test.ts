@@ -1,8 +1,8 @@
 /** The methods text states the verdict thresholds from the constants the rule uses (issue 15, issue 14). */
 import { describe, expect, it } from 'vitest';
 import { methodsVerdictText } from '../../src/report/html/sections/methods-section.js';
-import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../src/evidence/alpha-exclusion.js';
+import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../src/evidence/verdict/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../src/evidence/selection/alpha-exclusion.js';
 
 describe('methods text and verdict constants', () => {
   it('every threshold the verdict uses appears in the methods sentence', () => {

@@ -1,12 +1,12 @@
 /**
  * The words of the family comparison (src/wording/family-words.ts), from codes and numbers, with
- * the levels taken from src/evidence/family-comparison.ts. The sentences are those the analysis
+ * the levels taken from src/evidence/selection/family-comparison.ts. The sentences are those the analysis
  * printed before the findings became codes (simulated tight-binding and partial tables of
  * test/analysis/families.test.ts).
  */
 import { describe, expect, it } from 'vitest';
-import { FAMILY_LEVEL, PARTIAL_AICC_MARGIN, TIGHT_BINDING_RATIO } from '../../src/evidence/family-comparison.js';
-import type { Advice, VerdictHeadline, VerdictReason } from '../../src/evidence/verdict-findings.js';
+import { FAMILY_LEVEL, PARTIAL_AICC_MARGIN, TIGHT_BINDING_RATIO } from '../../src/evidence/selection/family-comparison.js';
+import type { Advice, VerdictHeadline, VerdictReason } from '../../src/evidence/verdict/verdict-findings.js';
 import { wordVerdict } from '../../src/wording/verdict-words.js';
 
 const words = (headline: VerdictHeadline, reasons: VerdictReason[] = [], suggestions: Advice[] = []) => wordVerdict({ headline, reasons, suggestions });

@@ -5,15 +5,15 @@
  * taken from the constant the rule uses.
  */
 import { describe, expect, it } from 'vitest';
-import { decideVerdict, type RankedModelEvidence } from '../../src/evidence/verdict.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest } from '../../src/evidence/alpha-exclusion.js';
-import type { NestedComparison } from '../../src/evidence/nested-comparisons.js';
-import type { Caveat } from '../../src/evidence/caveat.js';
+import { decideVerdict, type RankedModelEvidence } from '../../src/evidence/verdict/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND, type AlphaBoundTest } from '../../src/evidence/selection/alpha-exclusion.js';
+import type { NestedComparison } from '../../src/evidence/selection/nested-comparisons.js';
+import type { Caveat } from '../../src/evidence/verdict/caveat.js';
 import type { Mechanism } from '../../src/models/types.js';
-import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/plausibility-check.js';
-import { STUDENTISED_LIMIT } from '../../src/evidence/residual-diagnostics.js';
-import { SERIES_SE_LIMIT } from '../../src/evidence/series-fits.js';
-import { DETECTION_FACTOR } from '../../src/evidence/detection-bound.js';
+import { IMPLAUSIBLE_MOLAR } from '../../src/evidence/checks/plausibility-check.js';
+import { STUDENTISED_LIMIT } from '../../src/evidence/diagnostics/residual-diagnostics.js';
+import { SERIES_SE_LIMIT } from '../../src/evidence/diagnostics/series-fits.js';
+import { DETECTION_FACTOR } from '../../src/evidence/intervals/detection-bound.js';
 import { wordVerdict } from '../../src/wording/verdict-words.js';
 import { wordCaveat } from '../../src/wording/caveat-words.js';
 import { rounded } from '../../src/text/format-number.js';

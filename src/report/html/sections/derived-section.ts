@@ -1,12 +1,12 @@
 /**
- * Quantities derived from the drawn model's constants (src/evidence/derived-quantities.ts): alpha,
+ * Quantities derived from the drawn model's constants (src/evidence/intervals/derived-quantities.ts): alpha,
  * pKi, pKiu, the IC50 at the chosen [S] with its closed form (Cheng, Y. and Prusoff, W. H. (1973)
  * Biochem. Pharmacol. 22, 3099-3108), the apparent Vmax and Km at each tested [I], and, when a
  * bootstrap ran, how often each mechanism ranked first across the resamples. Every interval the
  * analysis produced is shown; none is made up here.
  */
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
-import type { DerivedQuantity } from '../../../evidence/derived-quantities.js';
+import type { DerivedQuantity } from '../../../evidence/intervals/derived-quantities.js';
 import type { Mechanism } from '../../../models/types.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { displayUnit } from '../../../figures/axis-units.js';

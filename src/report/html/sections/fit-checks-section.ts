@@ -6,11 +6,11 @@
  * verdict caveats (src/analysis/stage-diagnostics.ts).
  */
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
-import type { ResidualDiagnostics } from '../../../evidence/residual-diagnostics.js';
-import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/residual-diagnostics.js';
+import type { ResidualDiagnostics } from '../../../evidence/diagnostics/residual-diagnostics.js';
+import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/diagnostics/residual-diagnostics.js';
 import { LEVERAGED_RESIDUAL_LIMIT, pointsThatStandOut, standsOut } from '../../standing-out.js';
-import { CLEARLY_WORSE_DELTA } from '../../../evidence/error-model-check.js';
-import { apparentConstants } from '../../../evidence/apparent-constants.js';
+import { CLEARLY_WORSE_DELTA } from '../../../evidence/diagnostics/error-model-check.js';
+import { apparentConstants } from '../../../evidence/constants/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
 import { drawnModel } from '../../../figures/figure-context.js';
 import { displayUnit, withUnit as quantityWithUnit } from '../../../figures/axis-units.js';

@@ -3,13 +3,13 @@
  * intervals, each with the publication it comes from. Only the methods this analysis used are
  * listed (profile and bootstrap intervals appear when they were computed).
  */
-import { FAMILY_LEVEL, TIGHT_BINDING_RATIO } from '../../../evidence/family-comparison.js';
+import { FAMILY_LEVEL, TIGHT_BINDING_RATIO } from '../../../evidence/selection/family-comparison.js';
 import type { AnalysisResult } from '../../../analysis/types.js';
 import type { ErrorModel } from '../../../fit/error-models.js';
 import { escapeHtml } from '../escape.js';
-import { DETECTION_FACTOR } from '../../../evidence/detection-bound.js';
-import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../../evidence/verdict.js';
-import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../../evidence/alpha-exclusion.js';
+import { DETECTION_FACTOR } from '../../../evidence/intervals/detection-bound.js';
+import { INHIBITION_LEVEL, MIXED_LEVEL, RIVAL_DELTA } from '../../../evidence/verdict/verdict.js';
+import { ALPHA_FAR, EXCLUSION_LEVEL, NONCOMPETITIVE_BAND } from '../../../evidence/selection/alpha-exclusion.js';
 
 const ERROR_MODEL_TEXT: Record<ErrorModel, string> = {
   constant: 'constant SD: every rate has the same standard deviation σ (unweighted least squares).',

@@ -3,7 +3,7 @@
  * profile and bootstrap when computed), then the constants of the other mechanisms.
  */
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
-import type { ParameterEstimate } from '../../../evidence/wald-estimates.js';
+import type { ParameterEstimate } from '../../../evidence/intervals/wald-estimates.js';
 import { escapeHtml } from '../escape.js';
 import { undetectedText } from '../../undetected-text.js';
 import { interval, sig } from '../../../text/format-number.js';
