@@ -13,6 +13,7 @@ import type { Mechanism } from '../models/types.js';
 import type { FitData } from '../fit/fit-data.js';
 import type { ErrorModel } from '../fit/error-models.js';
 import { residualDiagnostics, STUDENTISED_LIMIT, type ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
+import { largeResidualPoints } from '../evidence/diagnostics/standing-out.js';
 import { SERIES_SE_LIMIT, seriesDisagreements, seriesFits, type SeriesDisagreement } from '../evidence/diagnostics/series-fits.js';
 import type { ErrorModelCheck } from '../evidence/diagnostics/error-model-check.js';
 import { designCaveats } from '../evidence/checks/design-caveats.js';
@@ -44,11 +45,6 @@ function detectedValue(m: ModelResult, name: string): number | undefined {
   return e && e.detected && e.value !== null ? e.value : undefined;
 }
 
-/** Caveats about the fit of the given (preliminary winning) model. */
-/** Points whose studentised residual is beyond the suspect cut-off (not high leverage alone). */
-export function largeResidualPoints(d: ResidualDiagnostics | undefined): ResidualDiagnostics['suspects'] {
-  return (d?.suspects ?? []).filter((s) => s.why !== 'high leverage');
-}
 
 interface CaveatOptions {
   /** noise-free rates: residual checks describe rounding only, so only the design caveats are given */

@@ -1,7 +1,7 @@
 /** The "checks" block of the text summary: the main diagnostic flags of the winning model. */
 import type { AnalysisResult } from '../analysis/types.js';
 import { pPhrase, sig, valueWithUnit } from '../text/format-number.js';
-import { pointsThatStandOut } from './standing-out.js';
+import { pointsThatStandOut } from '../evidence/diagnostics/standing-out.js';
 
 export function diagnosticLines(result: AnalysisResult): string[] {
   const mech = result.verdict.mechanism;

@@ -8,7 +8,7 @@
 import type { AnalysisResult, ModelResult } from '../../../analysis/types.js';
 import type { ResidualDiagnostics } from '../../../evidence/diagnostics/residual-diagnostics.js';
 import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/diagnostics/residual-diagnostics.js';
-import { LEVERAGED_RESIDUAL_LIMIT, pointsThatStandOut, standsOut } from '../../standing-out.js';
+import { LEVERAGED_RESIDUAL_LIMIT, pointsThatStandOut, standsOut } from '../../../evidence/diagnostics/standing-out.js';
 import { CLEARLY_WORSE_DELTA } from '../../../evidence/diagnostics/error-model-check.js';
 import { apparentConstants } from '../../../evidence/constants/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
