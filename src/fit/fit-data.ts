@@ -14,6 +14,8 @@ export interface FitData {
   units?: { substrate: string | null; inhibitor: string | null };
   /** total active enzyme per point, in inhibitor units (tight-binding models only) */
   e?: Float64Array;
+  /** true: every point is its own residual, never pooled with its replicates (src/fit/replicate-groups.ts) */
+  perPointFit?: boolean;
 }
 
 export function fitDataFromTable(table: RateTable): FitData {

@@ -38,28 +38,14 @@ export interface ReplicateGroups {
 }
 
 const cache = new WeakMap<FitData, ReplicateGroups | null>();
-let pooling = true;
 
 /**
- * Runs `work` with pooling switched off, so every fit inside it uses the per-point residuals (for
- * the checks that pooled and per-point fits agree).
- */
-export function withPerPointFits<T>(work: () => T): T {
-  const before = pooling;
-  pooling = false;
-  try {
-    return work();
-  } finally {
-    pooling = before;
-  }
-}
-
-/**
- * The conditions of `data` when pooling them pays (see above), otherwise null. Computed once per
- * FitData object (FitData arrays are not changed after they are built).
+ * The conditions of `data` when pooling them pays (see above) and `data.perPointFit` does not ask
+ * for per-point residuals, otherwise null. Computed once per FitData object (FitData arrays are not
+ * changed after they are built).
  */
 export function replicateGroups(data: FitData): ReplicateGroups | null {
-  if (!pooling) return null;
+  if (data.perPointFit) return null;
   if (cache.has(data)) return cache.get(data) ?? null;
   const groups = findGroups(data);
   cache.set(data, groups);

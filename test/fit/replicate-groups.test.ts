@@ -17,7 +17,7 @@ import { describe, expect, it } from 'vitest';
 import { MECHANISMS } from '../../src/models/index.js';
 import { fitDataFromArrays, type FitData } from '../../src/fit/fit-data.js';
 import { fitMechanism, weightedProblem, parameterLogScales, type MechanismFit } from '../../src/fit/fit-mechanism.js';
-import { GROUPED_FIT_MIN_POINTS, GROUPED_FIT_MIN_REPLICATES, poolConditions, replicateGroups, withPerPointFits } from '../../src/fit/replicate-groups.js';
+import { GROUPED_FIT_MIN_POINTS, GROUPED_FIT_MIN_REPLICATES, poolConditions, replicateGroups } from '../../src/fit/replicate-groups.js';
 import { aicc } from '../../src/evidence/selection/information-criteria.js';
 import { profileAllOfFit } from '../../src/evidence/intervals/profile-likelihood.js';
 import { refitFromStarts } from '../../src/evidence/bootstrap/bootstrap-refit.js';
@@ -87,6 +87,9 @@ const FIXED_WEIGHT_SSE = 1e-12;
  */
 const IRLS_SSE = 5e-9;
 
+/** The same table, fitted with every point its own residual (the reference for the pooled form). */
+const perPoint = (data: FitData): FitData => ({ ...data, perPointFit: true });
+
 describe('pooling replicates', () => {
   it('pools only large tables with several points per condition', () => {
     expect(replicateGroups(replicatedTable(30))?.count).toBe(40);
@@ -97,8 +100,8 @@ describe('pooling replicates', () => {
     const distinct = fitDataFromArrays(Array.from({ length: 2000 }, (_, k) => 1 + k), new Array(2000).fill(0), new Array(2000).fill(1));
     expect(replicateGroups(distinct)).toBeNull();
     expect(GROUPED_FIT_MIN_REPLICATES).toBeGreaterThan(1);
-    // switched off for the comparisons below
-    expect(withPerPointFits(() => replicateGroups(replicatedTable(30)))).toBeNull();
+    // switched off per table for the comparisons below
+    expect(replicateGroups(perPoint(replicatedTable(30)))).toBeNull();
   });
 
   it('splits the weighted sum of squares exactly into between and within conditions', () => {
@@ -107,18 +110,18 @@ describe('pooling replicates', () => {
     const sqrtW = Float64Array.from(data.v, (x, k) => 1 / (x * (1 + (k % 7) / 10)));
     const pooled = poolConditions(groups, data.v, sqrtW);
     const f = Float64Array.from({ length: groups.count }, (_, g) => 0.9 * pooled.mean[g] + 0.3);
-    let perPoint = 0;
-    for (let k = 0; k < data.v.length; k++) perPoint += (sqrtW[k] * (data.v[k] - f[groups.groupOf[k]])) ** 2;
+    let pointSum = 0;
+    for (let k = 0; k < data.v.length; k++) pointSum += (sqrtW[k] * (data.v[k] - f[groups.groupOf[k]])) ** 2;
     let split = pooled.sqrtWithin ** 2;
     for (let g = 0; g < groups.count; g++) split += (pooled.sqrtW[g] * (pooled.mean[g] - f[g])) ** 2;
-    expect(relative(split, perPoint)).toBeLessThan(1e-13);
+    expect(relative(split, pointSum)).toBeLessThan(1e-13);
     // the pooled problem's residual vector has that sum of squares at any parameters
     const problem = weightedProblem(competitive, data, sqrtW, parameterLogScales(competitive, data));
     expect(problem.n).toBe(groups.count + 1);
     const r = new Float64Array(problem.n);
     const x = Float64Array.from([Math.log(90), Math.log(12), Math.log(0.8)]);
     problem.residuals(x, r);
-    const direct = withPerPointFits(() => weightedProblem(competitive, data, sqrtW, parameterLogScales(competitive, data)));
+    const direct = weightedProblem(competitive, perPoint(data), sqrtW, parameterLogScales(competitive, data));
     const rp = new Float64Array(direct.n);
     direct.residuals(x, rp);
     const sum = (a: Float64Array) => a.reduce((t, y) => t + y * y, 0);
@@ -132,13 +135,13 @@ describe('pooling replicates', () => {
       expect(replicateGroups(data)).not.toBeNull();
       for (const model of MECHANISMS) {
         const pooled = fitMechanism(model, data, errorModel);
-        const perPoint = withPerPointFits(() => fitMechanism(model, data, errorModel));
+        const unpooled = fitMechanism(model, perPoint(data), errorModel);
         expect(pooled.n).toBe(data.v.length);
         const close = weightsDependOnFit(errorModel) ? IRLS_SSE : FIXED_WEIGHT_SSE;
-        expect(relative(pooled.sse, perPoint.sse), model.mechanism).toBeLessThan(close);
-        expect(relative(pooled.logLik, perPoint.logLik)).toBeLessThan(close);
-        expect(relative(aicc(pooled.logLik, pooled.p + 1, pooled.n), aicc(perPoint.logLik, perPoint.p + 1, perPoint.n))).toBeLessThan(close);
-        expectSameEstimates(pooled, perPoint, model.mechanism);
+        expect(relative(pooled.sse, unpooled.sse), model.mechanism).toBeLessThan(close);
+        expect(relative(pooled.logLik, unpooled.logLik)).toBeLessThan(close);
+        expect(relative(aicc(pooled.logLik, pooled.p + 1, pooled.n), aicc(unpooled.logLik, unpooled.p + 1, unpooled.n))).toBeLessThan(close);
+        expectSameEstimates(pooled, unpooled, model.mechanism);
       }
     });
   }
@@ -147,19 +150,19 @@ describe('pooling replicates', () => {
     const data = replicatedTable(30);
     const multipliers = Float64Array.from(data.v, (_, k) => (k % 11 === 0 ? 0.3 : 1));
     const pooled = fitMechanism(competitive, data, 'proportional', { weightMultipliers: multipliers });
-    const perPoint = withPerPointFits(() => fitMechanism(competitive, data, 'proportional', { weightMultipliers: multipliers }));
-    expect(relative(pooled.sse, perPoint.sse)).toBeLessThan(1e-9);
-    expect(relative(pooled.logLik, perPoint.logLik)).toBeLessThan(1e-9);
-    expectSameEstimates(pooled, perPoint, 'robust');
+    const unpooled = fitMechanism(competitive, perPoint(data), 'proportional', { weightMultipliers: multipliers });
+    expect(relative(pooled.sse, unpooled.sse)).toBeLessThan(1e-9);
+    expect(relative(pooled.logLik, unpooled.logLik)).toBeLessThan(1e-9);
+    expectSameEstimates(pooled, unpooled, 'robust');
   });
 
   it('stops as close to the per-point fit as the per-point fit does to itself from another start', () => {
     const data = replicatedTable(30);
-    const perPoint = withPerPointFits(() => fitMechanism(competitive, data, 'constant'));
-    const restarted = withPerPointFits(() => fitMechanism(competitive, data, 'constant', { extraStarts: [[70, 30, 3]] }));
+    const unpooled = fitMechanism(competitive, perPoint(data), 'constant');
+    const restarted = fitMechanism(competitive, perPoint(data), 'constant', { extraStarts: [[70, 30, 3]] });
     const pooled = fitMechanism(competitive, data, 'constant');
-    const self = expectSameEstimates(restarted, perPoint, 'restart');
-    const across = expectSameEstimates(pooled, perPoint, 'pooled');
+    const self = expectSameEstimates(restarted, unpooled, 'restart');
+    const across = expectSameEstimates(pooled, unpooled, 'pooled');
     // both far inside the tolerance (seen: 8e-8 and 3e-8 SE), and of one size
     expect(across).toBeLessThan(10 * Math.max(self, 1e-9));
   });
@@ -168,19 +171,19 @@ describe('pooling replicates', () => {
     const data = replicatedTable(30);
     const fit = fitMechanism(competitive, data, 'proportional');
     const pooled = profileAllOfFit(fit, data);
-    const perPoint = withPerPointFits(() => profileAllOfFit(fit, data));
+    const unpooled = profileAllOfFit(fit, perPoint(data));
     expect(pooled.length).toBe(3);
     pooled.forEach((profile, j) => {
       for (let end = 0; end < 2; end++) {
         const a = profile.interval[end];
-        const b = perPoint[j].interval[end];
+        const b = unpooled[j].interval[end];
         expect(a).not.toBeNull();
         expect(relative(a!, b!), `${profile.name} end ${end}`).toBeLessThan(1e-7);
       }
     });
     const start = [Array.from(fit.params, (x) => x * 1.2)];
     const refit = refitFromStarts(competitive, data, 'proportional', start);
-    const refitPerPoint = withPerPointFits(() => refitFromStarts(competitive, data, 'proportional', start));
+    const refitPerPoint = refitFromStarts(competitive, perPoint(data), 'proportional', start);
     expect(relative(refit.sse, refitPerPoint.sse)).toBeLessThan(1e-9);
     for (let j = 0; j < 3; j++) expect(Math.abs(Math.log(refit.params[j] / refitPerPoint.params[j]))).toBeLessThan(1e-4 * Math.sqrt((fit.sse / fit.df) * unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix[j * 4]));
   });
