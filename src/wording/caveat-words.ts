@@ -5,6 +5,7 @@
  */
 import { isWorded, type Caveat, type CodedCaveat, type DownWeightedLine } from '../evidence/verdict/caveat.js';
 import { pPhrase, rounded, sig } from '../text/format-number.js';
+import { DOWN_WEIGHTED_BELOW } from '../evidence/diagnostics/robust-refit.js';
 
 export interface CaveatWords {
   message: string;
@@ -97,7 +98,7 @@ function wordCoded(c: CodedCaveat): CaveatWords {
       const n = c.downWeighted.length;
       const which = lineList(c.downWeighted);
       if (c.change === 'none-down-weighted')
-        return { message: `a robust (bisquare) refit, run because a point stands out, gives no point less than half weight; the call stays ${c.robustCall}` };
+        return { message: `a robust (bisquare) refit, run because a point stands out, gives no point a weight below ${DOWN_WEIGHTED_BELOW}; the call stays ${c.robustCall}` };
       if (c.change === 'stays') return { message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}); the call stays ${c.robustCall}` };
       return {
         message: `a robust (bisquare) refit down-weights ${n} point(s) (${which}) and then calls it ${c.robustCall}: the call depends on those points`,

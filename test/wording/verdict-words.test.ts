@@ -16,6 +16,7 @@ import { SERIES_SE_LIMIT } from '../../src/evidence/diagnostics/series-fits.js';
 import { DETECTION_FACTOR } from '../../src/evidence/intervals/detection-bound.js';
 import { wordVerdict } from '../../src/wording/verdict-words.js';
 import { wordCaveat } from '../../src/wording/caveat-words.js';
+import { DOWN_WEIGHTED_BELOW } from '../../src/evidence/diagnostics/robust-refit.js';
 import { rounded } from '../../src/text/format-number.js';
 
 function models(aiccs: Partial<Record<Mechanism, number>>): RankedModelEvidence[] {
@@ -120,6 +121,10 @@ describe('caveat words', () => {
     const one = wordCaveat({ ...c, downWeighted: [{ line: 23, rate: 3.15e7 }], robustLean: undefined });
     expect(one.headline).toBe('The call depends on one outlying point (line 23, rate 3.15e7): with it down-weighted the data point to mixed, not competitive.');
     expect(wordCaveat({ ...c, change: 'stays', robustCall: 'competitive', blocking: false }).headline).toBeUndefined();
+    // the weight that counts as down-weighted is the refit's own constant
+    expect(wordCaveat({ ...c, change: 'none-down-weighted', downWeighted: [], robustCall: 'competitive', blocking: false }).message).toBe(
+      `a robust (bisquare) refit, run because a point stands out, gives no point a weight below ${DOWN_WEIGHTED_BELOW}; the call stays competitive`,
+    );
   });
   it('the limits in the sentences are the constants the checks use', () => {
     expect(wordCaveat({ code: 'suspect-points', count: 2, limit: STUDENTISED_LIMIT, robustRefitRuns: false, blocking: false }).message).toBe(

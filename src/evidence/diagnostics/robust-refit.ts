@@ -19,6 +19,8 @@ import { subsetFitData, type FitData } from '../../fit/fit-data.js';
 import { median } from '../../stats/median.js';
 
 export const BISQUARE_C = 4.685;
+/** A point counts as down-weighted when its final bisquare weight is below this (half weight; common practice, no source). */
+export const DOWN_WEIGHTED_BELOW = 0.5;
 
 interface DownWeightedPoint {
   /** index into the fitted points */
@@ -82,6 +84,6 @@ export function robustRefit(data: FitData, errorModel: ErrorModel, start: Mechan
   const keptWeights = Float64Array.from(kept, (k) => weights[k]);
   const fits = fitAllMechanisms(robustData, errorModel, MECHANISMS, { weightMultipliers: keptWeights });
   const downWeighted: DownWeightedPoint[] = [];
-  for (let k = 0; k < n; k++) if (weights[k] < 0.5) downWeighted.push({ index: k, weight: weights[k] });
+  for (let k = 0; k < n; k++) if (weights[k] < DOWN_WEIGHTED_BELOW) downWeighted.push({ index: k, weight: weights[k] });
   return { weights, downWeighted, fits, data: robustData, kept };
 }

@@ -10,6 +10,7 @@ import type { ResidualDiagnostics } from '../../../evidence/diagnostics/residual
 import { LEVERAGE_FACTOR, STUDENTISED_LIMIT } from '../../../evidence/diagnostics/residual-diagnostics.js';
 import { LEVERAGED_RESIDUAL_LIMIT, pointsThatStandOut, standsOut } from '../../../evidence/diagnostics/standing-out.js';
 import { CLEARLY_WORSE_DELTA } from '../../../evidence/diagnostics/error-model-check.js';
+import { DOWN_WEIGHTED_BELOW } from '../../../evidence/diagnostics/robust-refit.js';
 import { apparentConstants } from '../../../evidence/constants/apparent-constants.js';
 import { DIAGNOSTIC_LEVEL } from '../../../analysis/stage-diagnostics.js';
 import { drawnModel } from '../../../figures/figure-context.js';
@@ -236,7 +237,7 @@ function robustBlock(result: AnalysisResult): string {
         ]),
         'data down-weighted',
       )
-    : '<p>No point was given a weight below 0.5.</p>';
+    : `<p>No point was given a weight below ${DOWN_WEIGHTED_BELOW}.</p>`;
   const best = r.ranking.length ? r.ranking[0].aicc : NaN;
   const ranking = htmlTable(
     [cell('rank', true), cell('mechanism'), cell('AICc', true), cell('ΔAICc', true), cell('Akaike weight', true)],
@@ -254,7 +255,7 @@ function robustBlock(result: AnalysisResult): string {
     ? `<p class="warn"><strong>The call changes:</strong> ${escapeHtml(`with these points down-weighted, the robust fits say: ${robustHeadline} The least-squares call depends on them.`)}</p>`
     : `<p><strong>The call stands:</strong> ${escapeHtml(`the robust fits say: ${robustHeadline}`)}</p>`;
   return `<h3>Robust refit</h3>
-<p>${escapeHtml(`Tukey's bisquare weights (Beaton & Tukey 1974) found on the mixed fit, then held fixed while all mechanisms were refitted.${r.downWeighted.length ? ` Points weighted below 0.5: ${r.downWeighted.length}.` : ''}`)}</p>
+<p>${escapeHtml(`Tukey's bisquare weights (Beaton & Tukey 1974) found on the mixed fit, then held fixed while all mechanisms were refitted.${r.downWeighted.length ? ` Points weighted below ${DOWN_WEIGHTED_BELOW}: ${r.downWeighted.length}.` : ''}`)}</p>
 ${points}
 ${call}
 <details class="robust-ranking"><summary>Robust ranking of the mechanisms</summary>
