@@ -157,7 +157,7 @@ function axisMarkup(orient: 'bottom' | 'left', scale: NumericScale, values: read
     `<g ${attributes} fill="none" font-size="${FONT.tick}" text-anchor="${bottom ? 'middle' : 'end'}" color="${INK.axis}">`,
     `<path class="domain" stroke="currentColor" d="${d}" stroke-width="0.6"></path>`,
   ];
-  const spacing = Math.max(TICK_SIZE, 0) + TICK_PADDING;
+  const spacing = TICK_SIZE + TICK_PADDING;
   for (const value of values) {
     const p = +scale(value) + AXIS_OFFSET;
     parts.push(

@@ -42,21 +42,18 @@ export function createSvg(spec: { id: string; width: number; height: number; tit
  * parent gets an empty placeholder group; serialiseSvg swaps in the text. Only numbers and fixed
  * colour and class names go into such markup (callers must not pass user text).
  */
-const rawLayers = new Map<string, string>();
-let rawCounter = 0;
-
 export function appendRawLayer(parent: d3.Selection<SVGGElement, unknown, null, undefined>, className: string, markup: string): void {
-  const key = `raw${++rawCounter}`;
-  rawLayers.set(key, markup);
-  parent.append('g').attr('class', className).attr('data-raw', key);
+  appendRawElement(parent, `<g class="${className}">${markup}</g>`);
 }
 
 /**
- * A whole element written as text (the axes, src/figures/axes.ts): the parent gets an empty
- * placeholder, which serialiseSvg replaces by `markup` itself. The markup must be exactly what
- * the DOM would have serialised, and may hold only numbers, fixed names and escaped text.
+ * A whole element written as text (the axes, src/figures/axes.ts; a layer of markers above): the
+ * parent gets an empty placeholder, which serialiseSvg replaces by `markup` itself. The markup must
+ * be exactly what the DOM would have serialised, and may hold only numbers, fixed names and escaped
+ * text.
  */
 const rawElements = new Map<string, string>();
+let rawCounter = 0;
 
 export function appendRawElement(parent: d3.Selection<SVGGElement, unknown, null, undefined>, markup: string): void {
   const key = `raw${++rawCounter}`;
@@ -71,14 +68,9 @@ export function appendRawElement(parent: d3.Selection<SVGGElement, unknown, null
  * escaped), and the root carries its xmlns attribute explicitly (createSvg).
  */
 export function serialiseSvg(svg: Svg): string {
-  const markup = (svg.node() as SVGSVGElement).outerHTML.replace(/<g data-raw-element="(raw\d+)"><\/g>/g, (_m, key: string) => {
+  return (svg.node() as SVGSVGElement).outerHTML.replace(/<g data-raw-element="(raw\d+)"><\/g>/g, (_m, key: string) => {
     const element = rawElements.get(key) ?? '';
     rawElements.delete(key);
     return element;
-  });
-  return markup.replace(/<g class="([a-z-]+)" data-raw="(raw\d+)"><\/g>/g, (_m, cls: string, key: string) => {
-    const inner = rawLayers.get(key) ?? '';
-    rawLayers.delete(key);
-    return `<g class="${cls}">${inner}</g>`;
   });
 }
