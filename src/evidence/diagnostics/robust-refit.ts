@@ -73,10 +73,12 @@ export function robustRefit(data: FitData, errorModel: ErrorModel, start: Mechan
     let change = 0;
     for (let k = 0; k < n; k++) change = Math.max(change, Math.abs(next[k] - weights[k]));
     weights = next;
+    // settled: the weights are final, and a refit with them would not be used (the mechanisms are
+    // refitted below on the kept points)
+    if (change < 1e-6) break;
     // a tiny floor keeps rejected points from making the weights singular while iterating
     multipliers = Float64Array.from(weights, (w) => Math.max(w, 1e-12));
     fit = fitMechanism(model, data, errorModel, { weightMultipliers: multipliers, extraStarts: [Array.from(fit.params)] });
-    if (change < 1e-6) break;
   }
   const kept: number[] = [];
   for (let k = 0; k < n; k++) if (weights[k] > 0) kept.push(k);
