@@ -9,19 +9,20 @@
  * the Wald covariance. Weights are fixed at the solution, as for the profiles.
  *
  * The outline is traced on rays from the estimate in (ln Ki, ln Kiu), each ray scaled by the Wald
- * SEs so that the angles spread evenly over the region: along a ray, step outward until the
- * profiled SSE passes the threshold, then find the crossing by Brent's method. A ray that reaches
+ * SEs so that the angles spread evenly over the region. Along the first ray, step outward until the
+ * profiled SSE passes the threshold; every later ray starts at its neighbour's crossing. The
+ * crossing is then found by safeguarded Newton steps on the distance statistic, whose slope along
+ * the ray comes from one Jacobian at each constrained optimum (envelope theorem). A ray that reaches
  * the edge of the searched box (profile-support.ts: up to the detection bound of each constant)
  * first contributes its box-edge point and marks the region open.
  */
 import type { MechanismFit } from '../../fit/fit-mechanism.js';
 import { parameterLogScales, weightedProblem } from '../../fit/fit-mechanism.js';
 import type { FitData } from '../../fit/fit-data.js';
-import type { LeastSquaresProblem } from '../../fit/least-squares-problem.js';
+import type { LeastSquaresOptions, LeastSquaresProblem } from '../../fit/least-squares-problem.js';
 import { levenbergMarquardt } from '../../fit/levenberg-marquardt.js';
 import { unscaledCovariance } from '../../fit/qr.js';
 import { fQuantile } from '../../stats/distributions.js';
-import { findRoot } from './find-root.js';
 import { profileSupport } from './profile-support.js';
 
 /** A joint confidence region for (Ki, Kiu) of the mixed model: the likelihood contour. */
@@ -45,8 +46,18 @@ interface JointRegionOptions {
   rays?: number;
 }
 
+/**
+ * Tolerances of each constrained refit on a ray: the SSE to 1e-12 relative. At the contour the SSE
+ * exceeds its minimum by a few percent, so the distance statistic is good to about 1e-10, far
+ * below the 1e-8 to which the crossing is found.
+ */
+const RAY_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14, skipFinalJacobian: true };
+
+/** Width (along the scaled ray) to which a crossing is found. */
+const CROSSING_TOLERANCE = 1e-8;
+
 /** The problem in the free parameters with the two given log-parameters held at `fixed`. */
-function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [number, number]): { problem: LeastSquaresProblem; theta: Float64Array; free: number[] } {
+function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [number, number]): { problem: LeastSquaresProblem; fill: (z: ArrayLike<number>) => Float64Array; free: number[] } {
   const { n, m } = full;
   const free = Array.from({ length: m }, (_, j) => j).filter((j) => j !== held[0] && j !== held[1]);
   const theta = new Float64Array(m);
@@ -72,7 +83,16 @@ function pairProblem(full: LeastSquaresProblem, held: [number, number], fixed: [
       }
     },
   };
-  return { problem, theta, free };
+  return { problem, fill, free };
+}
+
+/** One point on a ray: the distance statistic, its slope along the ray, and the free optimum. */
+interface RayPoint {
+  t: number;
+  d: number;
+  /** d d / d t (NaN where d = 0) */
+  slope: number;
+  z: Float64Array;
 }
 
 export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: JointRegionOptions = {}): JointRegion | null {
@@ -86,7 +106,7 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   const sqrtW = fit.weights.map(Math.sqrt);
   const full = weightedProblem(fit.model, data, sqrtW, parameterLogScales(fit.model, data));
   const fixed: [number, number] = [0, 0];
-  const { problem, free } = pairProblem(full, [ki, kiu], fixed);
+  const { problem, fill, free } = pairProblem(full, [ki, kiu], fixed);
   const box = profileSupport(data, 'Ki');
   const clamp = (x: number) => Math.min(box.high, Math.max(box.low, x));
   const centre: [number, number] = [clamp(fit.theta[ki]), clamp(fit.theta[kiu])];
@@ -97,52 +117,105 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   };
   const scales: [number, number] = [scale(ki), scale(kiu)];
   const zHat = Float64Array.from(free, (j) => fit.theta[j]);
+  const jFull = new Float64Array(full.n * full.m);
 
-  /** distance statistic sqrt((S - S_hat) / s^2) at the point t along the ray, and its free optimum */
-  const distanceAt = (dir: [number, number], t: number, warm: Float64Array): { d: number; z: Float64Array } => {
+  /**
+   * The distance statistic d = sqrt((S - S_hat) / s^2) at the point t along the ray, its free
+   * optimum, and the slope dd/dt. The slope comes from the envelope theorem: at the constrained
+   * optimum the free parameters' gradient vanishes, so dS/dt = 2 r'(dr/dtheta_held . dir), one
+   * Jacobian at the solution.
+   */
+  const pointAt = (dir: [number, number], t: number, warm: Float64Array): RayPoint => {
     fixed[0] = centre[0] + t * dir[0];
     fixed[1] = centre[1] + t * dir[1];
-    // only x and the SSE are used: no final Jacobian (x and the SSE are the same either way)
-    const r = levenbergMarquardt(problem, warm, { skipFinalJacobian: true });
-    return { d: Math.sqrt(Math.max(0, r.sse - fit.sse) / s2), z: Float64Array.from(r.x) };
+    const r = levenbergMarquardt(problem, warm, RAY_FIT);
+    const z = Float64Array.from(r.x);
+    const d = Math.sqrt(Math.max(0, r.sse - fit.sse) / s2);
+    if (!Number.isFinite(d)) return { t, d, slope: NaN, z };
+    full.jacobian(fill(z), jFull);
+    const m = full.m;
+    let dSdt = 0;
+    for (let k = 0; k < full.n; k++) dSdt += 2 * r.residuals[k] * (jFull[k * m + ki] * dir[0] + jFull[k * m + kiu] * dir[1]);
+    return { t, d, slope: d > 0 ? dSdt / (2 * s2 * d) : NaN, z };
   };
 
   const lnKi: number[] = [];
   const lnKiu: number[] = [];
   let open = fit.theta[ki] > box.high || fit.theta[kiu] > box.high;
+  // the crossing of the ray before: where the next ray's search starts (null after an open ray)
+  let neighbour: RayPoint | null = null;
   for (let r = 0; r < rays; r++) {
     const angle = (2 * Math.PI * r) / rays;
     const dir: [number, number] = [scales[0] * Math.cos(angle), scales[1] * Math.sin(angle)];
     const tEdge = edgeDistance(centre, dir, box.low, box.high);
-    let previous: { t: number; d: number; z: Float64Array } = { t: 0, d: 0, z: zHat };
-    let step = 0.5;
-    let found: number | null = null;
-    for (let k = 0; k < 60 && found === null; k++) {
-      const t = Math.min(previous.t + step, tEdge);
-      const point = distanceAt(dir, t, previous.z);
-      if (!Number.isFinite(point.d)) break;
-      if (point.d >= radius) {
-        let warm = point.z;
-        const g = (x: number) => {
-          const p = distanceAt(dir, x, warm);
-          warm = p.z;
-          return p.d - radius;
-        };
-        found = findRoot(g, previous.t, t, previous.d - radius, point.d - radius, 1e-8).x;
-        break;
-      }
-      if (point.d - previous.d < radius / 8) step *= 2;
-      previous = { t, d: point.d, z: point.z };
-      if (t >= tEdge) break;
-    }
-    const t = found ?? tEdge;
-    if (found === null) open = true;
+    const crossing = rayCrossing(dir, tEdge, neighbour);
+    neighbour = crossing;
+    const t = crossing?.t ?? tEdge;
+    if (crossing === null) open = true;
     lnKi.push(centre[0] + t * dir[0]);
     lnKiu.push(centre[1] + t * dir[1]);
   }
   lnKi.push(lnKi[0]);
   lnKiu.push(lnKiu[0]);
   return { level, ki: lnKi.map(Math.exp), kiu: lnKiu.map(Math.exp), open, box: { low: Math.exp(box.low), high: Math.exp(box.high) } };
+
+  /**
+   * Where d(t) first reaches the radius along the ray, or null when it does not before the edge of
+   * the box. With the neighbouring ray's crossing, the search starts there (the contour is
+   * continuous, so the crossing is close) from that ray's free optimum; otherwise it steps outward
+   * from the estimate (first step 0.5, doubled while d grows by less than radius / 8 per step).
+   * Once bracketed, the crossing is found by safeguarded Newton steps (newtonInBracket).
+   */
+  function rayCrossing(dir: [number, number], tEdge: number, near: RayPoint | null): RayPoint | null {
+    let inside: RayPoint = { t: 0, d: 0, slope: NaN, z: zHat };
+    let step = 0.5;
+    let previous = inside;
+    if (near !== null && near.t < tEdge) {
+      const guess = pointAt(dir, near.t, near.z);
+      if (!Number.isFinite(guess.d)) return null;
+      if (guess.d >= radius) return newtonInBracket(dir, inside, guess, guess);
+      inside = guess;
+      previous = guess;
+      // aim the first step at the crossing the slope predicts, a little beyond it
+      if (guess.slope > 0) step = Math.max(1.1 * (radius - guess.d) / guess.slope, 1e-3 * Math.max(1, guess.t));
+    }
+    for (let k = 0; k < 60; k++) {
+      const t = Math.min(previous.t + step, tEdge);
+      const point = pointAt(dir, t, previous.z);
+      if (!Number.isFinite(point.d)) return null;
+      if (point.d >= radius) return newtonInBracket(dir, previous, point, point);
+      if (point.d - previous.d < radius / 8) step *= 2;
+      previous = point;
+      if (t >= tEdge) return null;
+    }
+    return null;
+  }
+
+  /**
+   * The root of d(t) - radius in [inside.t, outside.t] (d below the radius at inside, at or above
+   * it at outside) by Newton steps from `from`, each kept inside the bracket; a step that would
+   * leave the bracket, or one from a slope that is not positive, is replaced by bisection (the
+   * safeguarded Newton iteration of Press, W. H. et al. (1992) Numerical Recipes, 2nd ed., sec. 9.4,
+   * rtsafe; from memory). Stops at a point whose next Newton step would be shorter than
+   * CROSSING_TOLERANCE (so the root is that close), or when the bracket is narrower than it.
+   */
+  function newtonInBracket(dir: [number, number], inside: RayPoint, outside: RayPoint, from: RayPoint): RayPoint {
+    let lo = inside;
+    let hi = outside;
+    let current = from;
+    for (let k = 0; k < 60; k++) {
+      const newton = current.slope > 0 ? current.t - (current.d - radius) / current.slope : NaN;
+      // converged: the next Newton step would be shorter than the tolerance
+      if (Math.abs(newton - current.t) <= CROSSING_TOLERANCE || hi.t - lo.t <= CROSSING_TOLERANCE) return current;
+      const t = newton > lo.t && newton < hi.t ? newton : 0.5 * (lo.t + hi.t);
+      const point = pointAt(dir, t, current.z);
+      if (!Number.isFinite(point.d)) return hi;
+      if (point.d >= radius) hi = point;
+      else lo = point;
+      current = point;
+    }
+    return current;
+  }
 }
 
 /** Distance along `dir` from `from` to the edge of the square [low, high]^2. */
