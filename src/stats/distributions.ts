@@ -28,9 +28,27 @@ export function tSurvival(x: number, df: number): number {
   return tCdfStdlib(-x, df);
 }
 
+/**
+ * Quantiles already computed, by their arguments. An analysis asks for the same few quantiles many
+ * times (the t quantile of each model's residual df for its intervals, the F quantile of the joint
+ * region) and each costs an inverse incomplete beta; the cached value is the same number.
+ */
+const quantiles = new Map<string, number>();
+/** Entries kept at most (a batch of many designs could otherwise grow it without bound). */
+const QUANTILES_KEPT = 4096;
+
+function remembered(key: string, compute: () => number): number {
+  const known = quantiles.get(key);
+  if (known !== undefined) return known;
+  const value = compute();
+  if (quantiles.size >= QUANTILES_KEPT) quantiles.clear();
+  quantiles.set(key, value);
+  return value;
+}
+
 /** Student t quantile: the x with P(T <= x) = p. */
 export function tQuantile(p: number, df: number): number {
-  return tQuantileStdlib(p, df);
+  return remembered(`t ${p} ${df}`, () => tQuantileStdlib(p, df));
 }
 
 /**
@@ -47,7 +65,7 @@ export function fSurvival(x: number, d1: number, d2: number): number {
 
 /** F distribution quantile: the x with P(F <= x) = p. */
 export function fQuantile(p: number, d1: number, d2: number): number {
-  return fQuantileStdlib(p, d1, d2);
+  return remembered(`F ${p} ${d1} ${d2}`, () => fQuantileStdlib(p, d1, d2));
 }
 
 /** Chi-square upper-tail probability P(X > x) = 1 - P(X <= x). */

@@ -27,6 +27,16 @@ describe('distribution wrappers vs scipy', () => {
     const p = dist.fSurvival(80, 2, 30);
     expect(Math.abs(p - closedForm) / closedForm).toBeLessThan(1e-9);
   });
+  it('quantiles asked for again, and after the cache of known ones has been emptied, are the same numbers', () => {
+    // the t and F quantile cases of the scipy reference, each asked for twice around 5000 others
+    const cases = ref.distributions.cases.filter((c) => c.fn === 'tQuantile' || c.fn === 'fQuantile');
+    expect(cases.length).toBeGreaterThan(0);
+    const ask = (c: (typeof cases)[number]) => (dist as unknown as Record<string, Fn>)[c.fn](...c.args);
+    const first = cases.map(ask);
+    for (let k = 0; k < 5000; k++) dist.tQuantile(0.9, 3 + k);
+    expect(cases.map(ask)).toEqual(first);
+    cases.forEach((c, k) => expect(Math.abs(first[k] - c.value) / Math.abs(c.value)).toBeLessThan(1e-9));
+  });
   it('invalid parameters give NaN (stdlib convention)', () => {
     expect(dist.fSurvival(1, 0, 3)).toBeNaN();
     expect(dist.tQuantile(1.5, 3)).toBeNaN();
