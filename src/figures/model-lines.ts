@@ -3,7 +3,7 @@ import { appendRawLayer, type Group } from './svg-document.js';
 import type { FigureContext } from './figure-context.js';
 import type { LegendItem } from './legend.js';
 import { INK } from './palette.js';
-import { markerPath, markerTransform, round } from './markers.js';
+import { markerPath, markerTransform, roundedText } from './markers.js';
 import type { NumericScale } from './axes.js';
 
 export const BEST_LINE_WIDTH = 1.1;
@@ -34,7 +34,7 @@ export function drawPolyline(
   let n = 0;
   for (let k = 0; k < xs.length; k++) {
     if (!(Number.isFinite(ys[k]) && Number.isFinite(xs[k]))) continue;
-    d += `${n++ === 0 ? 'M' : 'L'}${round(x(xs[k]))},${round(y(ys[k]))}`;
+    d += `${n++ === 0 ? 'M' : 'L'}${roundedText(x(xs[k]))},${roundedText(y(ys[k]))}`;
   }
   if (n < 2) return;
   g.append('path')
@@ -57,11 +57,18 @@ export function drawMarkers(
   x: NumericScale,
   y: NumericScale,
 ): void {
+  // the markup before and after the transform is the same for every point of a series
+  const before: string[] = [];
+  const after: string[] = [];
   const parts: string[] = [];
   for (let k = 0; k < px.length; k++) {
     if (!Number.isFinite(px[k]) || !Number.isFinite(py[k])) continue;
     const s = series[k];
-    parts.push(`<path d="${markerPath(s)}" transform="${markerTransform(s, x(px[k]), y(py[k]))}" fill="${colours[s]}" stroke="${INK.text}" stroke-width="0.4"></path>`);
+    if (before[s] === undefined) {
+      before[s] = `<path d="${markerPath(s)}" transform="`;
+      after[s] = `" fill="${colours[s]}" stroke="${INK.text}" stroke-width="0.4"></path>`;
+    }
+    parts.push(before[s] + markerTransform(s, x(px[k]), y(py[k])) + after[s]);
   }
   appendRawLayer(g, 'points', parts.join(''));
 }

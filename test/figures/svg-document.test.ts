@@ -13,7 +13,7 @@ import { JSDOM } from 'jsdom';
 import * as d3 from 'd3';
 import { SvgElement, createSvg, serialiseSvg } from '../../src/figures/svg-document.js';
 import { drawPolyline } from '../../src/figures/model-lines.js';
-import { round } from '../../src/figures/markers.js';
+import { round, roundedText } from '../../src/figures/markers.js';
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
 const doc = new JSDOM('<!DOCTYPE html><html><body></body></html>').window.document;
@@ -143,6 +143,19 @@ describe('model lines written as text', () => {
         },
       ),
       { numRuns: 300, seed: 7 },
+    );
+  });
+});
+
+describe('coordinates written from their hundredths', () => {
+  it('are String(round(x)) for any x', () => {
+    const awkward = [0, -0, 0.005, -0.005, 0.015, 1.005, -1.005, 0.1 + 0.2, 99.995, 999999999.99, 1e9, -1e9, 1e21, 1e-9, NaN, Infinity, -Infinity, 2 ** 53];
+    for (const x of awkward) expect(roundedText(x), String(x)).toBe(String(round(x)));
+    fc.assert(
+      fc.property(fc.oneof(fc.double(), fc.double({ min: -1000, max: 1000 }), fc.integer({ min: -1e11, max: 1e11 }).map((n) => n / 100)), (x) => {
+        expect(roundedText(x)).toBe(String(round(x)));
+      }),
+      { numRuns: 20000, seed: 11 },
     );
   });
 });
