@@ -13,9 +13,9 @@ import type { CompoundJob, CompoundSummary } from './types.js';
 
 /**
  * Heap limit per worker. V8 otherwise lets each worker's heap grow far before collecting, which
- * with report rendering (a DOM implementation per worker) pushed a 2-worker run past 500 MB;
- * a cap makes it collect sooner. 384 MB of old space is several times what one compound's report
- * needs (bench/batch-bench.mjs measures the peak).
+ * with report rendering (then on a DOM implementation per worker) pushed a 2-worker run past
+ * 500 MB; a cap makes it collect sooner. 384 MB of old space is several times what one compound's
+ * report needs (bench/batch-bench.mjs measures the peak).
  */
 const WORKER_LIMITS = { maxOldGenerationSizeMb: 384 };
 
