@@ -149,7 +149,16 @@ function runOnWorkers(
     };
 
     const start = () => {
-      const worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
+      let worker: Worker;
+      try {
+        worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
+      } catch (error) {
+        // Node refuses to start a worker with some of the parent's options (a V8 flag such as
+        // --maglev: ERR_WORKER_INVALID_EXEC_ARGV); the compounds then run as when a worker dies at once.
+        workerProblem ??= `a worker thread could not be started (${error instanceof Error ? error.message : String(error)})`;
+        drainIfAlone();
+        return;
+      }
       workers.add(worker);
       let current = -1;
       let answered = false;
