@@ -8,7 +8,7 @@
  *
  * Commands and targets (issue 13): `--help` under 0.3 s, `analyze --json` on the demo data under
  * 0.5 s, `analyze --out` on the demo data under 1.5 s (median of the timed runs, after one
- * untimed run that warms the file cache). The figure code (d3 on a jsdom document) is loaded only
+ * untimed run that warms the file cache). The figure code (d3 and the report page) is loaded only
  * by `--out`, which draws figures (src/cli/commands/analyze.ts).
  */
 import { spawnSync } from 'node:child_process';

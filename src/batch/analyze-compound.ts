@@ -22,7 +22,8 @@ export type ReportWriter = typeof writeResultFiles;
 
 /**
  * The report writer, loaded only when reports are wanted: it brings in the figure and page code
- * (and a DOM implementation), which costs a worker about 1.5 s and 80 MB to load.
+ * (and d3), about 0.2 s of a worker's start-up (it was over a second while the figures were drawn
+ * on a DOM implementation, docs/decisions/figure-serialisation.md).
  */
 export async function loadReportWriter(settings: CompoundSettings): Promise<ReportWriter | null> {
   return settings.reportRoot === null ? null : (await import('../report/write-results.js')).writeResultFiles;

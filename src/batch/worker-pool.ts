@@ -13,9 +13,9 @@ import type { CompoundJob, CompoundSummary } from './types.js';
 
 /**
  * Heap limit per worker. V8 otherwise lets each worker's heap grow far before collecting, which
- * with report rendering (a DOM implementation per worker) pushed a 2-worker run past 500 MB;
- * a cap makes it collect sooner. 384 MB of old space is several times what one compound's report
- * needs (bench/batch-bench.mjs measures the peak).
+ * with report rendering (then on a DOM implementation per worker) pushed a 2-worker run past
+ * 500 MB; a cap makes it collect sooner. 384 MB of old space is several times what one compound's
+ * report needs (bench/batch-bench.mjs measures the peak).
  */
 const WORKER_LIMITS = { maxOldGenerationSizeMb: 384 };
 
@@ -149,7 +149,16 @@ function runOnWorkers(
     };
 
     const start = () => {
-      const worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
+      let worker: Worker;
+      try {
+        worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
+      } catch (error) {
+        // Node refuses to start a worker with some of the parent's options (a V8 flag such as
+        // --maglev: ERR_WORKER_INVALID_EXEC_ARGV); the compounds then run as when a worker dies at once.
+        workerProblem ??= `a worker thread could not be started (${error instanceof Error ? error.message : String(error)})`;
+        drainIfAlone();
+        return;
+      }
       workers.add(worker);
       let current = -1;
       let answered = false;

@@ -4,7 +4,7 @@
  * so every SVG stands alone.
  */
 import * as d3 from 'd3';
-import { appendRawElement, type Group } from './svg-document.js';
+import { appendRawElement, escapeText, type Group } from './svg-document.js';
 import { INK } from './palette.js';
 import { FONT, textWidth } from './text-metrics.js';
 
@@ -133,36 +133,53 @@ const AXIS_OFFSET = 0.5;
 const TICK_SIZE = 3;
 const TICK_PADDING = 2;
 
-function escapeText(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/\u00a0/g, '&nbsp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+/** How an axis is drawn: d3-axis's tick sizes and padding, and whether its lines get the print widths. */
+interface AxisStyle {
+  tickSizeOuter: number;
+  tickPadding: number;
+  /** 0.6 on the domain line and 0.5 on the tick lines (the plots' axes); false leaves the default */
+  printWidths: boolean;
 }
+
+const PLOT_AXIS: AxisStyle = { tickSizeOuter: TICK_SIZE, tickPadding: TICK_PADDING, printWidths: true };
 
 /**
  * The markup of a bottom or left axis, written as text: the bytes d3.axisBottom / d3.axisLeft
- * (tick size 3, padding 2) produce on jsdom once restyled for print (tick font size, no font
- * family, the axis colour, label ink, thin lines), built without a DOM. Drawing the axes node by
- * node on jsdom was about 40% of a report's figure time (docs/decisions/analysis-cost.md); the
- * figure tests and the committed demo figures check that the output is unchanged.
+ * (tick size 3, the given outer size and padding) produce on jsdom once restyled for print (tick
+ * font size, no font family, the axis colour, label ink, and for the plots thin lines), built
+ * without a DOM. Drawing the axes node by node on jsdom was about 40% of a report's figure time
+ * (docs/decisions/analysis-cost.md); test/figures/axis-markup.test.ts compares the output with
+ * d3-axis's.
  */
-function axisMarkup(orient: 'bottom' | 'left', scale: NumericScale, values: readonly number[], label: (d: number) => string, attributes: string): string {
+export function axisMarkup(
+  orient: 'bottom' | 'left',
+  scale: NumericScale,
+  values: readonly number[],
+  label: (d: number) => string,
+  attributes: string,
+  style: AxisStyle = PLOT_AXIS,
+): string {
   const range = scale.range();
   const range0 = +range[0] + AXIS_OFFSET;
   const range1 = +range[range.length - 1] + AXIS_OFFSET;
   const bottom = orient === 'bottom';
   const k = bottom ? 1 : -1;
+  const outer = style.tickSizeOuter;
   const d = bottom
-    ? `M${range0},${k * TICK_SIZE}V${AXIS_OFFSET}H${range1}V${k * TICK_SIZE}`
-    : `M${k * TICK_SIZE},${range0}H${AXIS_OFFSET}V${range1}H${k * TICK_SIZE}`;
+    ? outer ? `M${range0},${k * outer}V${AXIS_OFFSET}H${range1}V${k * outer}` : `M${range0},${AXIS_OFFSET}H${range1}`
+    : outer ? `M${k * outer},${range0}H${AXIS_OFFSET}V${range1}H${k * outer}` : `M${AXIS_OFFSET},${range0}V${range1}`;
+  const domainWidth = style.printWidths ? ' stroke-width="0.6"' : '';
+  const tickWidth = style.printWidths ? ' stroke-width="0.5"' : '';
   const parts = [
     `<g ${attributes} fill="none" font-size="${FONT.tick}" text-anchor="${bottom ? 'middle' : 'end'}" color="${INK.axis}">`,
-    `<path class="domain" stroke="currentColor" d="${d}" stroke-width="0.6"></path>`,
+    `<path class="domain" stroke="currentColor" d="${d}"${domainWidth}></path>`,
   ];
-  const spacing = TICK_SIZE + TICK_PADDING;
+  const spacing = TICK_SIZE + style.tickPadding;
   for (const value of values) {
     const p = +scale(value) + AXIS_OFFSET;
     parts.push(
       `<g class="tick" opacity="1" transform="${bottom ? `translate(${p},0)` : `translate(0,${p})`}">`,
-      `<line stroke="currentColor" ${bottom ? 'y2' : 'x2'}="${k * TICK_SIZE}" stroke-width="0.5"></line>`,
+      `<line stroke="currentColor" ${bottom ? 'y2' : 'x2'}="${k * TICK_SIZE}"${tickWidth}></line>`,
       `<text fill="${INK.text}" ${bottom ? 'y' : 'x'}="${k * spacing}" dy="${bottom ? '0.71em' : '0.32em'}">${escapeText(label(value))}</text></g>`,
     );
   }

@@ -8,9 +8,9 @@ import * as d3 from 'd3';
 import type { FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import type { Group } from './svg-document.js';
-import { serialiseSvg } from './svg-document.js';
+import { appendRawElement, serialiseSvg } from './svg-document.js';
 import { startFigure, drawNotes, notesHeight, EDGE } from './xy-figure.js';
-import { COLUMN_WIDTH, tickLabel } from './axes.js';
+import { COLUMN_WIDTH, axisMarkup, tickLabel, type NumericScale } from './axes.js';
 import { INK } from './palette.js';
 import { FONT, textWidth } from './text-metrics.js';
 import { markerPath, round } from './markers.js';
@@ -23,6 +23,15 @@ function weightText(w: number): string {
   if (w > 0.999) return '> 0.999';
   if (w < 0.001) return '< 0.001';
   return w.toFixed(3);
+}
+
+/**
+ * The bottom axis of a panel, written as text (axes.ts, axisMarkup): what d3.axisBottom gave with
+ * tick size 3, no outer ticks and the default padding of 3, restyled (tick font size, no font
+ * family, the axis colour, label ink) without the plots' thin line widths.
+ */
+function panelAxis(panel: Group, scale: NumericScale, values: readonly number[], y: number): void {
+  appendRawElement(panel, axisMarkup('bottom', scale, values, tickLabel, `transform="translate(0,${y})"`, { tickSizeOuter: 0, tickPadding: 3, printWidths: false }));
 }
 
 export function evidenceFigure(ctx: FigureContext): FigureOutput {
@@ -41,7 +50,7 @@ export function evidenceFigure(ctx: FigureContext): FigureOutput {
     models.map((m) => `${m.mechanism} weight ${weightText(m.weight)}, ΔAICc ${Number.isFinite(m.deltaAicc) ? m.deltaAicc.toFixed(1) : 'not available'}`).join('; ') +
     '.';
   const svg = startFigure({ id, title, desc, height: Math.ceil(height) });
-  const root = svg.append('g') as unknown as Group;
+  const root = svg.append('g');
   const gap = 12;
   const panelsW = inner - labelW - gap;
   const weightW = panelsW * 0.42;
@@ -65,7 +74,7 @@ export function evidenceFigure(ctx: FigureContext): FigureOutput {
 
   // weight panel
   const wScale = d3.scaleLinear().domain([0, 1]).range([0, weightW]);
-  const wp = root.append('g').attr('class', 'panel weight').attr('transform', `translate(${x0},${top})`) as unknown as Group;
+  const wp = root.append('g').attr('class', 'panel weight').attr('transform', `translate(${x0},${top})`);
   wp.append('text').attr('x', 0).attr('y', -5).attr('font-size', FONT.panelTitle).attr('fill', INK.text).text('Akaike weight');
   models.forEach((m, k) => {
     const w = Number.isFinite(m.weight) ? m.weight : 0;
@@ -87,16 +96,14 @@ export function evidenceFigure(ctx: FigureContext): FigureOutput {
       .attr('fill', inside ? '#ffffff' : INK.text)
       .text(label);
   });
-  const wAxis = wp.append('g').attr('transform', `translate(0,${plotH})`) as unknown as Group;
-  wAxis.call(d3.axisBottom(wScale).tickValues([0, 0.5, 1]).tickFormat((d) => tickLabel(Number(d))).tickSize(3).tickSizeOuter(0));
-  wAxis.attr('font-size', FONT.tick).attr('font-family', null).attr('color', INK.axis);
+  panelAxis(wp, wScale, [0, 0.5, 1], plotH);
 
   // delta panel
   const finite = models.map((m) => m.deltaAicc).filter((d) => Number.isFinite(d));
   const maxD = Math.max(12, ...finite) * 1.15;
   const dScale = d3.scaleSymlog().constant(1).domain([0, maxD]).range([0, deltaW]);
   const dx0 = x0 + weightW + gap;
-  const dp = root.append('g').attr('class', 'panel delta').attr('transform', `translate(${dx0},${top})`) as unknown as Group;
+  const dp = root.append('g').attr('class', 'panel delta').attr('transform', `translate(${dx0},${top})`);
   dp.append('text').attr('x', 0).attr('y', -5).attr('font-size', FONT.panelTitle).attr('fill', INK.text).text('ΔAICc');
   for (const mark of DELTA_MARKS) {
     dp.append('line').attr('class', 'delta-mark').attr('x1', round(dScale(mark))).attr('x2', round(dScale(mark))).attr('y1', 0).attr('y2', plotH).attr('stroke', INK.faint).attr('stroke-width', 0.5).attr('stroke-dasharray', '2 2');
@@ -116,10 +123,7 @@ export function evidenceFigure(ctx: FigureContext): FigureOutput {
       .attr('stroke-width', 0.6);
   });
   const ticks = [0, 2, 10, 100, 1000, 10000].filter((t) => t <= maxD);
-  const dAxis = dp.append('g').attr('transform', `translate(0,${plotH})`) as unknown as Group;
-  dAxis.call(d3.axisBottom(dScale).tickValues(ticks).tickFormat((d) => tickLabel(Number(d))).tickSize(3).tickSizeOuter(0));
-  dAxis.attr('font-size', FONT.tick).attr('font-family', null).attr('color', INK.axis);
-  for (const ax of [wAxis, dAxis]) ax.selectAll('text').attr('fill', INK.text);
+  panelAxis(dp, dScale, ticks, plotH);
   drawNotes(root, notes, EDGE, top + plotH + axisH + 4, inner);
   return {
     id,

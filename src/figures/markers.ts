@@ -26,27 +26,54 @@ const MARKER_SHAPES: readonly MarkerShape[] = [
 const MARKER_AREA = 17;
 
 const pathCache = new Map<string, string>();
+/** the paths at the default area, by shape index (the markers of every figure) */
+const defaultPaths: Array<string | undefined> = [];
 
 /** The SVG path data of the marker for series k, centred on the origin. */
 export function markerPath(k: number, area = MARKER_AREA): string {
-  const shape = MARKER_SHAPES[k % MARKER_SHAPES.length];
+  const index = k % MARKER_SHAPES.length;
+  if (area === MARKER_AREA) {
+    const known = defaultPaths[index];
+    if (known !== undefined) return known;
+  }
+  const shape = MARKER_SHAPES[index];
   const key = `${shape.name}:${area}`;
   let d = pathCache.get(key);
   if (d === undefined) {
     d = d3.symbol(shape.symbol, area)() ?? '';
     pathCache.set(key, d);
   }
+  if (area === MARKER_AREA) defaultPaths[index] = d;
   return d;
 }
 
 /** The transform that puts marker k at (x, y). */
 export function markerTransform(k: number, x: number, y: number): string {
   const shape = MARKER_SHAPES[k % MARKER_SHAPES.length];
-  const at = `translate(${round(x)},${round(y)})`;
+  const at = `translate(${roundedText(x)},${roundedText(y)})`;
   return shape.rotate ? `${at} rotate(${shape.rotate})` : at;
 }
 
 /** Coordinates rounded to 0.01 pt: keeps the SVG small and the output byte-stable. */
 export function round(x: number): number {
   return Math.round(x * 100) / 100;
+}
+
+/**
+ * `String(round(x))`, the text of a coordinate, written from the integer number of hundredths
+ * (about a third of the time of printing the double: a figure holds thousands of coordinates).
+ * Below 1e9 in magnitude the shortest decimal that gives back round(x) is that number of
+ * hundredths itself, with trailing zeros dropped (doubles there are far closer together than
+ * 0.01); anything else (larger, infinite, NaN) is printed by String. test/figures/svg-document.test.ts
+ * compares the two.
+ */
+export function roundedText(x: number): string {
+  if (!(Math.abs(x) < 1e9)) return String(round(x));
+  const n = Math.round(x * 100);
+  if (n === 0) return '0';
+  const a = n < 0 ? -n : n;
+  const whole = Math.floor(a / 100);
+  const hundredths = a - whole * 100;
+  const text = hundredths === 0 ? String(whole) : hundredths % 10 === 0 ? `${whole}.${hundredths / 10}` : hundredths < 10 ? `${whole}.0${hundredths}` : `${whole}.${hundredths}`;
+  return n < 0 ? `-${text}` : text;
 }

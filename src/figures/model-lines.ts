@@ -1,10 +1,9 @@
 /** Line keys and drawing helpers for global-fit model lines (best solid, runner-up dashed). */
-import * as d3 from 'd3';
 import { appendRawLayer, type Group } from './svg-document.js';
 import type { FigureContext } from './figure-context.js';
 import type { LegendItem } from './legend.js';
 import { INK } from './palette.js';
-import { markerPath, markerTransform, round } from './markers.js';
+import { markerPath, markerTransform, roundedText } from './markers.js';
 import type { NumericScale } from './axes.js';
 
 export const BEST_LINE_WIDTH = 1.1;
@@ -18,7 +17,11 @@ export function modelLineKey(ctx: FigureContext, withRunnerUp: boolean): LegendI
   return items;
 }
 
-/** A polyline through points given in data coordinates. */
+/**
+ * A polyline through points given in data coordinates, rounded to 0.01 pt. The path data is the
+ * string d3.line() gave for the same points ("M" then "L" before each later point, x and y as
+ * String() prints them, no spaces); test/figures/svg-document.test.ts compares the two.
+ */
 export function drawPolyline(
   g: Group,
   xs: readonly number[],
@@ -27,12 +30,16 @@ export function drawPolyline(
   y: NumericScale,
   style: { colour: string; width: number; dash?: string; className?: string },
 ): void {
-  const pts: Array<[number, number]> = [];
-  for (let k = 0; k < xs.length; k++) if (Number.isFinite(ys[k]) && Number.isFinite(xs[k])) pts.push([round(x(xs[k])), round(y(ys[k]))]);
-  if (pts.length < 2) return;
+  let d = '';
+  let n = 0;
+  for (let k = 0; k < xs.length; k++) {
+    if (!(Number.isFinite(ys[k]) && Number.isFinite(xs[k]))) continue;
+    d += `${n++ === 0 ? 'M' : 'L'}${roundedText(x(xs[k]))},${roundedText(y(ys[k]))}`;
+  }
+  if (n < 2) return;
   g.append('path')
     .attr('class', style.className ?? 'model-line')
-    .attr('d', d3.line()(pts) ?? '')
+    .attr('d', d)
     .attr('fill', 'none')
     .attr('stroke', style.colour)
     .attr('stroke-width', style.width)
@@ -50,11 +57,18 @@ export function drawMarkers(
   x: NumericScale,
   y: NumericScale,
 ): void {
+  // the markup before and after the transform is the same for every point of a series
+  const before: string[] = [];
+  const after: string[] = [];
   const parts: string[] = [];
   for (let k = 0; k < px.length; k++) {
     if (!Number.isFinite(px[k]) || !Number.isFinite(py[k])) continue;
     const s = series[k];
-    parts.push(`<path d="${markerPath(s)}" transform="${markerTransform(s, x(px[k]), y(py[k]))}" fill="${colours[s]}" stroke="${INK.text}" stroke-width="0.4"></path>`);
+    if (before[s] === undefined) {
+      before[s] = `<path d="${markerPath(s)}" transform="`;
+      after[s] = `" fill="${colours[s]}" stroke="${INK.text}" stroke-width="0.4"></path>`;
+    }
+    parts.push(before[s] + markerTransform(s, x(px[k]), y(py[k])) + after[s]);
   }
   appendRawLayer(g, 'points', parts.join(''));
 }

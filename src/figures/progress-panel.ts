@@ -2,8 +2,8 @@
  * One small panel per well for the reads page: the corrected reads against time, the reads of the
  * chosen window filled and the others open, saturated reads as crosses, and the fitted line over
  * the window (solid) carried on to the end of the curve (dashed), or the integrated
- * Michaelis-Menten curve when that gave the rate. Drawn with d3 on the shared jsdom document; the
- * markers go in as one raw layer (svg-document.ts) since a plate has thousands of them.
+ * Michaelis-Menten curve when that gave the rate. Drawn on the figures' element tree
+ * (svg-document.ts); the markers go in as one raw layer since a plate has thousands of them.
  */
 import * as d3 from 'd3';
 import type { WellRate } from '../reads/types.js';

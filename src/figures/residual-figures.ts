@@ -85,14 +85,14 @@ export function residualsBySubstrateFigure(ctx: FigureContext): FigureOutput {
     `Scaled residuals of the global ${modelName(ctx.best)} fit against [S] (log axis), one panel per inhibitor level ` +
     `(${levels.map((v) => concentrationText(v, ctx.units.inhibitor)).join(', ')}). A systematic run of positive or negative residuals within a panel points to a missed mechanism.`;
   const svg = startFigure({ id, title, desc, height: Math.ceil(height) });
-  const root = svg.append('g') as unknown as Group;
+  const root = svg.append('g');
   const defs = svg.append('defs');
   levels.forEach((level, k) => {
     const row = Math.floor(k / cols);
     const col = k % cols;
     const gx = left + col * (facetW + gapX);
     const gy = EDGE + row * rowH;
-    const facet = root.append('g').attr('class', 'facet').attr('transform', `translate(${gx},${gy})`) as unknown as Group;
+    const facet = root.append('g').attr('class', 'facet').attr('transform', `translate(${gx},${gy})`);
     facet
       .append('text')
       .attr('class', 'panel-title')
@@ -102,14 +102,14 @@ export function residualsBySubstrateFigure(ctx: FigureContext): FigureOutput {
       .attr('font-size', FONT.panelTitle)
       .attr('fill', INK.text)
       .text(`[I] = ${concentrationText(level, ctx.units.inhibitor)}`);
-    const plot = facet.append('g').attr('transform', `translate(0,${titleH})`) as unknown as Group;
+    const plot = facet.append('g').attr('transform', `translate(0,${titleH})`);
     const x = createScale(xSpec, [0, facetW]);
     const y = createScale(ySpec, [facetH, 0]);
     drawBands(plot, y, facetW);
     drawAxes(plot, x, y, xSpec, ySpec, facetW, facetH, { xTitle: false, yTitle: col === 0 && row === Math.floor((rows - 1) / 2), yLabels: col === 0 });
     const clipId = `${id}-clip-${k}`;
     defs.append('clipPath').attr('id', clipId).append('rect').attr('x', -4).attr('y', -4).attr('width', facetW + 8).attr('height', facetH + 8);
-    const content = plot.append('g').attr('clip-path', `url(#${clipId})`) as unknown as Group;
+    const content = plot.append('g').attr('clip-path', `url(#${clipId})`);
     const idx: number[] = [];
     for (let p = 0; p < data.s.length; p++) if (ctx.inhibitor.indexOf[p] === k) idx.push(p);
     const sLevels = distinctLevels(idx.map((p) => data.s[p]));

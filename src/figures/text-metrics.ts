@@ -1,5 +1,5 @@
 /**
- * Text sizes for layout without a renderer: jsdom measures nothing, so margins, legends and
+ * Text sizes for layout without a renderer: nothing measures glyphs here, so margins, legends and
  * wrapped captions are laid out from an estimate of the advance width of each character in a
  * Helvetica/Arial-like sans-serif (Liberation Sans on Linux has the same metrics). The widths per
  * class of character are rounded up from the Arial advance widths (in em, from memory) and a 6%

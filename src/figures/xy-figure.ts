@@ -130,23 +130,23 @@ export function renderXYFigure(spec: XYFigureSpec): string {
   const notesH = notesHeight(spec.notes ?? [], inner);
   const height = EDGE + badgeH + seriesH + linesH + 6 + plotHeight + bottomGutter() + (notesH ? notesH + 4 : 0) + EDGE;
   const svg = startFigure({ id: spec.id, title: spec.title, desc: spec.desc, height: Math.ceil(height) });
-  const root = svg.append('g') as unknown as Group;
+  const root = svg.append('g');
   if (spec.badge) {
     drawBadge(root, spec.badge, EDGE, top);
     top += badgeH;
   }
   if (seriesH) {
-    drawLegend(root.append('g').attr('class', 'legend series').attr('transform', `translate(${EDGE},${top})`) as unknown as Group, spec.series ?? [], inner, spec.seriesHeading);
+    drawLegend(root.append('g').attr('class', 'legend series').attr('transform', `translate(${EDGE},${top})`), spec.series ?? [], inner, spec.seriesHeading);
     top += seriesH;
   }
   if (linesH) {
-    drawLegend(root.append('g').attr('class', 'legend lines').attr('transform', `translate(${EDGE},${top})`) as unknown as Group, spec.lines ?? [], inner);
+    drawLegend(root.append('g').attr('class', 'legend lines').attr('transform', `translate(${EDGE},${top})`), spec.lines ?? [], inner);
     top += linesH;
   }
   top += 6;
   const x = createScale(spec.x, [0, plotWidth]);
   const y = createScale(spec.y, [plotHeight, 0]);
-  const plot = root.append('g').attr('class', 'plot').attr('transform', `translate(${left},${top})`) as unknown as Group;
+  const plot = root.append('g').attr('class', 'plot').attr('transform', `translate(${left},${top})`);
   const clipId = `${spec.id}-clip`;
   svg
     .append('defs')
@@ -159,7 +159,7 @@ export function renderXYFigure(spec: XYFigureSpec): string {
     .attr('height', plotHeight + 8);
   if (spec.zeroLines) drawZeroLines(plot, x, y, plotWidth, plotHeight);
   drawAxes(plot, x, y, spec.x, spec.y, plotWidth, plotHeight);
-  const content = plot.append('g').attr('class', 'content').attr('clip-path', `url(#${clipId})`) as unknown as Group;
+  const content = plot.append('g').attr('class', 'content').attr('clip-path', `url(#${clipId})`);
   spec.draw(content, x, y, plotWidth, plotHeight);
   if (notesH) drawNotes(root, spec.notes ?? [], EDGE, top + plotHeight + bottomGutter() + 4, inner);
   return serialiseSvg(svg);

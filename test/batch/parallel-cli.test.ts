@@ -54,4 +54,20 @@ describe('mechanist batch on worker threads (built CLI)', () => {
     expect(r.stderr).toBe('');
     expect(JSON.parse(r.stdout)).toEqual({ threads: [2, 0], problem: null, same: true, n: 7 });
   });
+
+  it('runs the compounds in the calling thread when node will not start a worker with its options (a V8 flag)', { timeout: 300_000 }, () => {
+    const script = `
+      const { runBatch } = await import(${JSON.stringify(pathToFileURL(join(root, 'dist', 'index.js')).href)});
+      const parallel = await runBatch(['plates', 'screen.csv'], { jobs: 2 });
+      const serial = await runBatch(['plates', 'screen.csv'], { jobs: 1 });
+      console.log(JSON.stringify({ threads: parallel.threadsUsed, problem: parallel.workerProblem, same: JSON.stringify(parallel.rows) === JSON.stringify(serial.rows), n: parallel.rows.length }));
+    `;
+    // --maglev is a V8 flag: a worker thread refuses it (ERR_WORKER_INVALID_EXEC_ARGV), and before
+    // the fix the whole run failed with that error
+    const r = spawnSync(process.execPath, ['--maglev', '--input-type=module', '-e', script], { cwd: inputs.root, encoding: 'utf8' });
+    expect(r.stderr).toBe('');
+    const got = JSON.parse(r.stdout) as { threads: number; problem: string | null; same: boolean; n: number };
+    expect({ ...got, problem: null }).toEqual({ threads: 0, problem: null, same: true, n: 7 });
+    expect(got.problem).toMatch(/^a worker thread could not be started \(.*--maglev/);
+  });
 });

@@ -1,12 +1,14 @@
 /**
- * Start-up cost (issue 13, item 1): the figure code (d3 on a jsdom document) is loaded only when
- * figures are drawn. Checked two ways: the static import graph of the CLI entry and of the batch
- * worker reaches neither package (only `import()` inside the --out / --reports paths does), and a
- * real process that runs `analyze --json` has not loaded jsdom while one that runs `--out` has.
+ * Start-up cost (issue 13, item 1): the figure code (d3) is loaded only when figures are drawn.
+ * Checked two ways: the static import graph of the CLI entry and of the batch worker does not
+ * reach d3 (only `import()` inside the --out / --reports paths does), and a real process that runs
+ * `analyze --json` has not loaded d3 while one that runs `--out` has (module resolutions recorded
+ * by a loader hook). jsdom, which the figures were once drawn on, is loaded by none of them: the
+ * figures are an element tree of their own (src/figures/svg-document.ts).
  * The timings themselves are in bench/startup-bench.mjs (docs/benchmarks.md), not here.
  */
 import { describe, expect, it } from 'vitest';
-import { readFileSync, existsSync, mkdtempSync } from 'node:fs';
+import { readFileSync, existsSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
@@ -45,16 +47,31 @@ describe('the figure code is loaded only when figures are drawn', () => {
   it('src/cli/main.ts loads only commander at start-up: the analysis and its statistics library come with the command that needs them', () => {
     expect([...staticPackages('src/cli/main.ts').keys()]).toEqual(['commander']);
   });
-  it('the walk does find d3 and jsdom from the figure code (the check can fail)', () => {
+  it('the walk does find d3 from the figure code (the check can fail), and jsdom from nowhere', () => {
     const packages = staticPackages('src/report/write-results.ts');
     expect(packages.has('d3')).toBe(true);
-    expect(packages.has('jsdom')).toBe(true);
+    expect(packages.has('jsdom')).toBe(false);
+    expect(staticPackages('src/index.ts').has('jsdom')).toBe(false);
   });
 
   const BIN = join(ROOT, 'dist', 'cli', 'main.js');
-  const loadedJsdom = (args: string[]) => {
-    // jsdom is a CommonJS package: once loaded it sits in require.cache
-    const script = `import { createRequire } from 'node:module';
+  /** Runs the CLI in a fresh process and says which of d3 and jsdom it loaded. */
+  const loaded = (args: string[]) => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-imports-'));
+    const record = join(dir, 'resolved.txt');
+    writeFileSync(record, '');
+    // a resolve hook (it runs on the loader thread) appends every resolved URL to the record
+    // before the import it answers can go on, so the record is complete when the command returns
+    const hook = `import { appendFileSync } from 'node:fs';
+      let file;
+      export function initialize(data) { file = data.file; }
+      export async function resolve(specifier, context, next) {
+        const r = await next(specifier, context);
+        appendFileSync(file, r.url + '\\n');
+        return r;
+      }`;
+    const script = `import { createRequire, register } from 'node:module';
+      register('data:text/javascript,' + encodeURIComponent(${JSON.stringify(hook)}), import.meta.url, { data: { file: ${JSON.stringify(record)} } });
       const { runCli } = await import(${JSON.stringify(join(ROOT, 'dist', 'cli', 'run-cli.js'))});
       const quiet = { out: () => {}, err: (s) => process.stderr.write(s), errIsTTY: false, cwd: ${JSON.stringify(ROOT)} };
       const code = await runCli(${JSON.stringify(args)}, quiet);
@@ -62,14 +79,17 @@ describe('the figure code is loaded only when figures are drawn', () => {
       console.log(JSON.stringify({ code, jsdom: cache.some((k) => k.includes('/node_modules/jsdom/')) }));`;
     const r = spawnSync(process.execPath, ['--input-type=module', '-e', script], { cwd: ROOT, encoding: 'utf8' });
     expect(r.stderr).toBe('');
-    return JSON.parse(r.stdout.trim().split('\n').at(-1)!) as { code: number; jsdom: boolean };
+    const { code, jsdom } = JSON.parse(r.stdout.trim().split('\n').at(-1)!) as { code: number; jsdom: boolean };
+    const urls = readFileSync(record, 'utf8').split('\n');
+    expect(urls.some((u) => u.endsWith('/dist/cli/run-cli.js'))).toBe(true); // the hook saw the imports
+    return { code, d3: urls.some((u) => u.includes('/node_modules/d3')), jsdom: jsdom || urls.some((u) => u.includes('/node_modules/jsdom/')) };
   };
-  it('a process running analyze --json never loads jsdom; one running --out does', () => {
+  it('a process running analyze --json never loads d3; one running --out does; none loads jsdom', () => {
     expect(existsSync(BIN), 'run "npm run build" first').toBe(true);
     const demo = join(ROOT, 'data', 'demo', 'hlx-amidase-kt0417.csv');
-    expect(loadedJsdom(['analyze', demo, '--json'])).toEqual({ code: 0, jsdom: false });
-    expect(loadedJsdom(['--help'])).toEqual({ code: 0, jsdom: false });
+    expect(loaded(['analyze', demo, '--json'])).toEqual({ code: 0, d3: false, jsdom: false });
+    expect(loaded(['--help'])).toEqual({ code: 0, d3: false, jsdom: false });
     const out = mkdtempSync(join(tmpdir(), 'mechanist-startup-'));
-    expect(loadedJsdom(['analyze', demo, '--out', out])).toEqual({ code: 0, jsdom: true });
+    expect(loaded(['analyze', demo, '--out', out])).toEqual({ code: 0, d3: true, jsdom: false });
   }, 60_000);
 });

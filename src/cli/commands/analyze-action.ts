@@ -203,8 +203,8 @@ export async function runAnalyze(io: CliIo, cmd: Command, fileArgument: string |
   compoundBar?.finish();
   if (out !== null) {
     const provenance = analyzeProvenance(input.bytes, o.reads !== undefined ? '' : file, cmd);
-    // The figure code (d3 on a jsdom document) is loaded only here, when figures are drawn:
-    // loading it costs about a second, which --help, --json and the text summary never pay.
+    // The figure code (d3, the figures and the report page) is loaded only here, when figures are
+    // drawn: --help, --json and the text summary never pay for loading it.
     const { writeResultFiles } = await import('../../report/write-results.js');
     results.forEach((r, k) => writeResultFiles(r, folders[k], provenance));
   }

@@ -29,7 +29,7 @@ export function demoCommand(io: CliIo): Command {
       prepareReportFolders(dir, o.out, [dir], cmd.getOptionValueSource('out') === 'default');
       const [table] = await readRateFile(demoDataPath(), {});
       const result = analyzeTable({ ...table, source: DEMO_SOURCE_NAME }, { errorModel: 'proportional' });
-      // loaded here, not at start-up: the figure code (d3 on a jsdom document) takes about a second
+      // loaded here, not at start-up: the figure code (d3 and the report page) need not load for the rest
       const { writeResultFiles } = await import('../../report/write-results.js');
       writeResultFiles(result, dir, {
         command: 'mechanist demo',

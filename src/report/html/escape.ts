@@ -4,5 +4,7 @@ const ENTITIES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;
 
 /** Escapes &, <, >, " and ' so any text is safe inside an element or a quoted attribute. */
 export function escapeHtml(text: string | number): string {
-  return String(text).replace(/[&<>"']/g, (c) => ENTITIES[c]);
+  const s = String(text);
+  // most text holds none of them: no replacement pass then (the same string either way)
+  return /[&<>"']/.test(s) ? s.replace(/[&<>"']/g, (c) => ENTITIES[c]) : s;
 }
