@@ -90,3 +90,103 @@ export function findRoot(
     evaluations++;
   }
 }
+
+/** A function value and its derivative at x. */
+export interface SlopePoint {
+  x: number;
+  f: number;
+  /** df/dx at x (NaN when unknown) */
+  df: number;
+}
+
+interface SlopeRootResult {
+  /**
+   * 'root': x is the root to within the tolerance; 'limit': the evaluation limit ended the search
+   * first (x is the latest point); 'no-sign-change': f(b), evaluated because the search needed it,
+   * has the sign of f(a), so [a, b] holds no root to search (the last evaluation was at b);
+   * 'not-finite': f was not finite at x
+   */
+  status: 'root' | 'limit' | 'no-sign-change' | 'not-finite';
+  x: number;
+  evaluations: number;
+}
+
+/**
+ * A root of f in [a.x, b] by Newton's method safeguarded with bisection: a Newton step is taken from
+ * the latest point when it stays inside the current bracket and is at most half the step before
+ * last; otherwise the bracket is halved. This is rtsafe of Press, W. H. et al. (2007) Numerical
+ * Recipes, 3rd ed., Cambridge University Press, sec. 9.4 (written from memory), with two changes:
+ * the iteration starts from the end with the smaller |f| instead of the middle (so the first Newton
+ * step may span the whole interval), and f(b) may be unknown (`fb` null). Then b is evaluated only
+ * when a Newton step would leave [a, b] or stall before a sign change has been seen.
+ *
+ * The search stops when the last Newton step (or half the bracket) is at most `tolerance` (plus
+ * 2 eps |x|); the returned x is the point after that step, which is not evaluated. Near a simple
+ * root Newton's error after a step of size d is of order d^2 f''/(2 f'), far below the tolerance.
+ * The derivative only steers the steps: a wrong df costs evaluations, never a wrong root.
+ */
+export function findRootWithSlope(
+  f: (x: number) => SlopePoint,
+  a: SlopePoint,
+  b: number,
+  fb: SlopePoint | null,
+  tolerance: number,
+  maxEvaluations = 60,
+): SlopeRootResult {
+  let evaluations = 0;
+  const done = (status: SlopeRootResult['status'], x: number): SlopeRootResult => ({ status, x, evaluations });
+  if (a.f === 0) return done('root', a.x);
+  if (fb && fb.f === 0) return done('root', b);
+  const signA = Math.sign(a.f);
+  if (!(signA !== 0) || (fb && !(Math.sign(fb.f) === -signA))) throw new RangeError('findRootWithSlope: f(a) must be finite and f(b), when given, of the other sign');
+  // xa: the nearest point known to have the sign of f(a); xb: the nearest known to have the other
+  // sign, or b while its sign is not known
+  let xa = a.x;
+  let xb = b;
+  let bKnown = fb !== null;
+  let current = fb && usable(fb) && (!usable(a) || Math.abs(fb.f) < Math.abs(a.f)) ? fb : a;
+  let stepBefore = 2 * Math.abs(b - a.x);
+  let step = stepBefore;
+  for (;;) {
+    const lo = Math.min(xa, xb);
+    const hi = Math.max(xa, xb);
+    const newton = usable(current) ? current.x - current.f / current.df : NaN;
+    const newtonFits = newton > lo && newton < hi && Math.abs(2 * current.f) <= Math.abs(stepBefore * current.df);
+    let next: number;
+    if (newtonFits) {
+      stepBefore = step;
+      step = current.f / current.df;
+      next = newton;
+    } else if (!bKnown) {
+      if (evaluations >= maxEvaluations) return done('limit', current.x);
+      const far = f(b);
+      evaluations++;
+      if (far.f === 0) return done('root', b);
+      if (!Number.isFinite(far.f)) return done('not-finite', b);
+      if (Math.sign(far.f) === signA) return done('no-sign-change', b);
+      bKnown = true;
+      if (usable(far) && (!usable(current) || Math.abs(far.f) < Math.abs(current.f))) current = far;
+      continue;
+    } else {
+      stepBefore = step;
+      step = 0.5 * (xb - xa);
+      next = xa + step;
+    }
+    if (Math.abs(step) <= tolerance + 2 * Number.EPSILON * Math.abs(next)) return done('root', next);
+    if (evaluations >= maxEvaluations) return done('limit', current.x);
+    const point = f(next);
+    evaluations++;
+    if (point.f === 0) return done('root', next);
+    if (!Number.isFinite(point.f)) return done('not-finite', next);
+    if (Math.sign(point.f) === signA) xa = next;
+    else {
+      xb = next;
+      bKnown = true;
+    }
+    current = point;
+  }
+}
+
+function usable(p: SlopePoint): boolean {
+  return Number.isFinite(p.f) && Number.isFinite(p.df) && p.df !== 0;
+}

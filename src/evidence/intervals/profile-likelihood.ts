@@ -26,8 +26,8 @@ import { levenbergMarquardt } from '../../fit/levenberg-marquardt.js';
 import type { LeastSquaresOptions, LeastSquaresProblem } from '../../fit/least-squares-problem.js';
 import { unscaledCovariance } from '../../fit/qr.js';
 import { tQuantile } from '../../stats/distributions.js';
-import { findRoot } from './find-root.js';
-import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
+import { findRootWithSlope, type SlopePoint } from './find-root.js';
+import { freePart, fullTheta, heldSlope, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
 import { profileSupport, type ProfileSupport } from './profile-support.js';
 import { DETECTION_FACTOR } from './detection-bound.js';
 
@@ -67,6 +67,12 @@ interface ProfileOptions {
   level?: number;
   /** absolute tolerance of the ends on the log scale; default 1e-8 (a relative 1e-8 in the parameter) */
   tolerance?: number;
+  /**
+   * quantities whose curves are drawn: where the search found a closed end without computing the
+   * far point of the walk's last step (beyond the end), that point is computed too, so the drawn
+   * curve crosses the cutoff as far out as the walk went; default none
+   */
+  beyondEnds?: readonly ProfiledName[];
 }
 
 interface ProfilePoint {
@@ -75,6 +81,8 @@ interface ProfilePoint {
   tau: number;
   z: Float64Array;
   theta: Float64Array;
+  /** weighted residuals at the constrained optimum (for the slope) */
+  residuals: Float64Array;
 }
 
 const MAX_STEPS = 80;
@@ -88,6 +96,7 @@ interface FitContext {
   cutoff: number;
   covariance: Float64Array;
   tolerance: number;
+  beyondEnds: readonly ProfiledName[];
 }
 
 function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): FitContext {
@@ -97,7 +106,7 @@ function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): 
   const s2 = fit.sse / fit.df;
   const cutoff = tQuantile(1 - (1 - level) / 2, fit.df);
   const covariance = unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix.map((x) => x * s2);
-  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-8 };
+  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-8, beyondEnds: options.beyondEnds ?? [] };
 }
 
 /** Wald SE of the profiled quantity on the log scale (NaN when not identified). */
@@ -132,6 +141,8 @@ interface ProfileEvaluator {
   cHat: number;
   zHat: Float64Array;
   evaluate(c: number, zStart: Float64Array): ProfilePoint;
+  /** dtau/dc at a point (NaN at tau = 0, where tau's slope is not defined by S alone) */
+  slopeOf(point: ProfilePoint): number;
   /** constrained fits run so far */
   evaluations(): number;
   /** true once a constrained fit found a lower SSE than the fit itself */
@@ -185,9 +196,13 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator
     const increase = r.sse - fit.sse;
     if (increase < -1e-9 * fit.sse) lowerSseSeen = true;
     const tau = Math.sign(c - cHat) * Math.sqrt(Math.max(0, increase) / ctx.s2);
-    return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)) };
+    return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)), residuals: r.residuals };
   };
-  return { q, support, cHat, zHat, evaluate, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
+  // tau^2 = (S - S_hat) / s^2, so dtau/dc = (dS/dc) / (2 s^2 tau), with dS/dc from heldSlope
+  const jacobian = new Float64Array(ctx.full.n * q.m);
+  const slopeOf = (point: ProfilePoint): number =>
+    point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau);
+  return { q, support, cHat, zHat, evaluate, slopeOf, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
 }
 
 /** Largest step (log scale) of the walk from the estimate to a tested value: each refit starts near its answer. */
@@ -240,7 +255,7 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
 
   const c0 = Math.min(support.high, Math.max(support.low, cHat));
   const start = c0 === cHat
-    ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta) }
+    ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta), residuals: new Float64Array(0) }
     : evaluate(c0, zHat);
   const se = logScaleSe(ctx, q);
   // First step to 90% of the Wald end (cutoff x SE on the log scale): where the profile is close to
@@ -278,25 +293,26 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
       if (direction * (limit - previous.c) <= 0) return openEnd(direction, 'box');
       let c = previous.c + direction * step;
       if (direction * (c - limit) > 0) c = limit;
-      const point = evaluate(c, previous.z);
-      points.push(point);
-      if (!Number.isFinite(point.sse)) return openEnd(direction, 'failed');
-      const reach = direction * point.tau;
-      if (reach >= ctx.cutoff) return refineEnd(previous, point, direction);
-      if (reach - direction * previous.tau < ctx.cutoff / 8) step *= 2;
+      let point: ProfilePoint;
+      if (direction * previous.tau - ctx.cutoff < 0 && previous.tau !== 0) {
+        // Where tau's slope predicts the crossing inside this step, the end is searched from the
+        // last point and the step's far point c is computed only when the search needs it.
+        const search = searchEnd(previous, c, null, direction);
+        if (search.end !== undefined) return search.end;
+        point = search.far!;
+      } else {
+        point = evaluate(c, previous.z);
+        points.push(point);
+        if (!Number.isFinite(point.sse)) return openEnd(direction, 'failed');
+        if (direction * point.tau >= ctx.cutoff) return refineEnd(previous, point, direction);
+      }
+      if (direction * point.tau - direction * previous.tau < ctx.cutoff / 8) step *= 2;
       previous = point;
     }
     return openEnd(direction, 'steps');
   }
 
-  function refineEnd(inside: ProfilePoint, outside: ProfilePoint, direction: -1 | 1): number {
-    let warm = outside.z;
-    const g = (c: number): number => {
-      const point = evaluate(c, warm);
-      points.push(point);
-      warm = point.z;
-      return direction * point.tau - ctx.cutoff;
-    };
+  function refineEnd(inside: ProfilePoint, outside: ProfilePoint, direction: -1 | 1): number | null {
     const gInside = direction * inside.tau - ctx.cutoff;
     const gOutside = direction * outside.tau - ctx.cutoff;
     if (!(gInside < 0 && gOutside >= 0)) {
@@ -305,9 +321,31 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
       notes.push(`the ${name} profile is not monotone near its ${direction > 0 ? 'upper' : 'lower'} end; the end is the first point found beyond the cutoff`);
       return gInside >= 0 ? inside.c : outside.c;
     }
-    const root = findRoot(g, inside.c, outside.c, gInside, gOutside, ctx.tolerance);
-    if (!root.converged) notes.push(`the ${name} interval end was not refined to full precision`);
-    return root.x;
+    return searchEnd(inside, outside.c, outside, direction).end!;
+  }
+
+  /**
+   * The root of direction * tau - cutoff in [inside.c, c] by safeguarded Newton steps on tau
+   * (findRootWithSlope), each refit warm-started from the last. With `outside` null the far point
+   * c is not yet computed: the result is then either the end (`end`, null when a refit failed) or,
+   * when tau at c is still below the cutoff, the point at c (`far`), from which the walk goes on.
+   */
+  function searchEnd(inside: ProfilePoint, c: number, outside: ProfilePoint | null, direction: -1 | 1): { end?: number | null; far?: ProfilePoint } {
+    let last = inside;
+    let farDone = outside !== null;
+    const slopePoint = (p: ProfilePoint): SlopePoint => ({ x: p.c, f: direction * p.tau - ctx.cutoff, df: direction * ev.slopeOf(p) });
+    const g = (x: number): SlopePoint => {
+      last = evaluate(x, (outside && last === inside ? outside : last).z);
+      points.push(last);
+      if (x === c) farDone = true;
+      return Number.isFinite(last.sse) ? slopePoint(last) : { x, f: NaN, df: NaN };
+    };
+    const root = findRootWithSlope(g, slopePoint(inside), c, outside && slopePoint(outside), ctx.tolerance);
+    if (root.status === 'no-sign-change') return { far: last };
+    if (root.status === 'not-finite') return { end: openEnd(direction, 'failed') };
+    if (root.status === 'limit') notes.push(`the ${name} interval end was not refined to full precision`);
+    if (!farDone && ctx.beyondEnds.includes(name)) points.push(evaluate(c, last.z));
+    return { end: root.x };
   }
 
   function openEnd(direction: -1 | 1, why: 'detection' | 'box' | 'failed' | 'steps'): null {
