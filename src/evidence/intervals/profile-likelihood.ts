@@ -23,7 +23,7 @@ import type { MechanismFit } from '../../fit/fit-mechanism.js';
 import { parameterLogScales, weightedProblem } from '../../fit/fit-mechanism.js';
 import type { FitData } from '../../fit/fit-data.js';
 import { levenbergMarquardt } from '../../fit/levenberg-marquardt.js';
-import type { LeastSquaresOptions, LeastSquaresProblem } from '../../fit/least-squares-problem.js';
+import type { LeastSquaresOptions, LeastSquaresProblem, LeastSquaresResult } from '../../fit/least-squares-problem.js';
 import { unscaledCovariance } from '../../fit/qr.js';
 import { tQuantile } from '../../stats/distributions.js';
 import { findRootWithSlope, type SlopePoint } from './find-root.js';
@@ -178,18 +178,33 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator
     }
     return starts;
   };
+  // The refits run at the latest c, by start: a refit asked for again at the same c from the same
+  // start (the exclusion tests' direct refit from the estimate repeats one the walk ran) is the
+  // same computation, so its result is reused.
+  let runsAt = NaN;
+  const runs: { start: Float64Array; result: LeastSquaresResult }[] = [];
+  const solve = (z: Float64Array): LeastSquaresResult => {
+    if (fixed.value !== runsAt) {
+      runsAt = fixed.value;
+      runs.length = 0;
+    }
+    const seen = runs.find((run) => run.start.every((v, k) => Object.is(v, z[k])));
+    if (seen) return seen.result;
+    const result = levenbergMarquardt(problem, z, PROFILE_FIT);
+    evaluations++;
+    runs.push({ start: Float64Array.from(z), result });
+    return result;
+  };
   const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
     fixed.value = c;
-    let r = levenbergMarquardt(problem, zStart, PROFILE_FIT);
-    evaluations++;
+    let r = solve(zStart);
     // An arm past the detection bound sits on a flat ridge where LM cannot feel whether bringing it
     // back would help: also start from the estimate's free parameters, and from the warm start with
     // each such arm pulled back to the detection bound and to the highest [I] tested; keep the
     // lowest SSE.
     if (armOff(r.x, c)) {
       for (const z of reentryStarts(r.x, c, zStart)) {
-        const other = levenbergMarquardt(problem, z, PROFILE_FIT);
-        evaluations++;
+        const other = solve(z);
         if (other.sse < r.sse) r = other;
       }
     }
