@@ -11,9 +11,12 @@
  * Search, for each end: step outward from the estimate (first step 90% of the Wald half-width on the
  * log scale, at most 1; doubled whenever |tau| grows by less than an eighth of the cutoff per step,
  * so a flat profile is crossed quickly), re-optimising the free parameters by Levenberg-Marquardt from the previous
- * point (warm start); once |tau| passes the cutoff, the end is the root of |tau| - cutoff, found by
- * Brent's method in the last step (find-root.ts). An end not reached inside the data's support
- * (profile-support.ts) is open (null): the search never reports the edge of its box as an end.
+ * point (warm start). Within each step the end is searched as the root of |tau| - cutoff by Newton
+ * steps safeguarded with bisection (findRootWithSlope, find-root.ts), dtau/dc coming from the
+ * envelope theorem (heldSlope, profiled-problem.ts); the step's far point is computed only when
+ * the search needs it, and when tau there is still below the cutoff the walk goes on from it. An
+ * end not reached inside the data's support (profile-support.ts) is open (null): the search never
+ * reports the edge of its box as an end.
  *
  * Weights: fixed at their values at the solution. For IRLS fits (proportional and sqrt error
  * models) this profiles the weighted SSE of the final reweighting pass, the usual treatment of a
