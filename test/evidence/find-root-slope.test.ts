@@ -62,6 +62,16 @@ describe('findRootWithSlope', () => {
     expect(Math.abs(r.x - Math.cbrt(2))).toBeLessThan(1e-11);
   });
 
+  it('stops once the quadratic model puts the next Newton point within the tolerance (x^2 - 2 from 1.4)', () => {
+    // Newton from 1.4: 1.4142857 (step 1.4e-2), then a step of 7.2e-5 whose error is about
+    // (f''/2f') d^2 = 1.8e-9 < 1e-7 / 8: that point is returned without being evaluated.
+    const { g, calls, at } = counted((x) => x * x - 2, (x) => 2 * x);
+    const r = findRootWithSlope(g, at(1.4), 1.5, null, 1e-7);
+    expect(r.status).toBe('root');
+    expect(calls.length).toBe(2);
+    expect(Math.abs(r.x - Math.SQRT2)).toBeLessThan(1e-7 / 8);
+  });
+
   it('stops at the evaluation limit with status limit', () => {
     const { g, at } = counted((x) => x ** 3 - 2, () => NaN);
     const r = findRootWithSlope(g, at(1), 2, at(2), 1e-15, 5);

@@ -121,8 +121,12 @@ interface SlopeRootResult {
  * when a Newton step would leave [a, b] or stall before a sign change has been seen.
  *
  * The search stops when the last Newton step (or half the bracket) is at most `tolerance` (plus
- * 2 eps |x|); the returned x is the point after that step, which is not evaluated. Near a simple
- * root Newton's error after a step of size d is of order d^2 f''/(2 f'), far below the tolerance.
+ * 2 eps |x|), or when a Newton step d of at most NEWTON_MODEL_STEP has an estimated error
+ * d^2 |f''| / (2 |f'|) + e |d| of at most tolerance / 8 (the quadratic convergence of Newton's
+ * method near a simple root, and the linear one left by a relative slope error e). f'' comes from
+ * the slopes at the last two points, when they lie within CURVATURE_SPAN, and e from the gap
+ * between their secant and the mean of their slopes. The returned x is the point after that step,
+ * which is not evaluated.
  * The derivative only steers the steps: a wrong df costs evaluations, never a wrong root.
  */
 export function findRootWithSlope(
@@ -145,6 +149,7 @@ export function findRootWithSlope(
   let xb = b;
   let bKnown = fb !== null;
   let current = fb && usable(fb) && (!usable(a) || Math.abs(fb.f) < Math.abs(a.f)) ? fb : a;
+  let before: SlopePoint | null = fb === null ? null : current === fb ? a : fb;
   let stepBefore = 2 * Math.abs(b - a.x);
   let step = stepBefore;
   for (;;) {
@@ -173,11 +178,22 @@ export function findRootWithSlope(
       next = xa + step;
     }
     if (Math.abs(step) <= tolerance + 2 * Number.EPSILON * Math.abs(next)) return done('root', next);
+    if (newtonFits && before && usable(before) && Math.abs(step) <= NEWTON_MODEL_STEP && Math.abs(current.x - before.x) <= CURVATURE_SPAN) {
+      // Newton's error after this step is about K step^2, K = |f''| / (2 |f'|), with f'' from the
+      // slopes at the last two points (close enough to measure the curvature where the root is),
+      // plus e |step| for a relative error e of the slope, seen as the gap between the secant and
+      // the mean of the two slopes: stop when that is well inside the tolerance.
+      const h = current.x - before.x;
+      const k = Math.abs((current.df - before.df) / h) / (2 * Math.abs(current.df));
+      const e = Math.abs((current.f - before.f) / h - 0.5 * (current.df + before.df)) / Math.abs(current.df);
+      if (k * step * step + e * Math.abs(step) <= tolerance / 8) return done('root', next);
+    }
     if (evaluations >= maxEvaluations) return done('limit', current.x);
     const point = f(next);
     evaluations++;
     if (point.f === 0) return done('root', next);
     if (!Number.isFinite(point.f)) return done('not-finite', next);
+    before = current;
     if (Math.sign(point.f) === signA) xa = next;
     else {
       xb = next;
@@ -186,6 +202,11 @@ export function findRootWithSlope(
     current = point;
   }
 }
+
+/** Largest Newton step whose error is judged from the quadratic model (|f''| / (2 |f'|) step^2). */
+const NEWTON_MODEL_STEP = 1e-3;
+/** Largest distance between the two points whose slopes give f'' for that judgement. */
+const CURVATURE_SPAN = 1e-2;
 
 function usable(p: SlopePoint): boolean {
   return Number.isFinite(p.f) && Number.isFinite(p.df) && p.df !== 0;
