@@ -55,8 +55,8 @@ const PROFILE_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14
  * near the cutoff t, S - S_hat = t^2 s^2 with s^2 = S_hat / df, so a relative SSE error e moves tau
  * by e df / (2 t) and the end by that over dtau/dc, about 1/SE: for df = 100, t = 2 and a log-scale
  * SE of 0.1, e = 1e-10 moves the end by 2.5e-10, under the 1e-8 root tolerance. Measured
- * (docs/decisions/analysis-cost.md): the ends moved by at most 8.6e-9 relative over 2160 simulated
- * compounds, as with 1e-12.
+ * (docs/decisions/analysis-cost.md): over 2160 simulated compounds the ends moved by less than the
+ * root tolerance, with 1e-10 as with 1e-12.
  */
 const INTERVAL_FIT: LeastSquaresOptions = { ftol: 1e-10, xtol: 1e-10, gtol: 1e-14, skipFinalJacobian: true };
 
