@@ -93,6 +93,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
     profile: options.profile,
     profileModels: options.detail === 'summary' ? 'leading' : 'all',
     jointRegion: options.detail !== 'summary',
+    profileFigures: options.detail !== 'summary',
     bootstrap: options.bootstrap,
     atSubstrate: options.atSubstrate,
     onProgress: options.onProgress,

@@ -19,6 +19,7 @@ import type { Caveat, Verdict } from '../evidence/verdict/verdict.js';
 import { familyBootstrap } from '../evidence/bootstrap/family-bootstrap.js';
 import type { WildWeights } from '../evidence/bootstrap/bootstrap-tasks.js';
 import { residualDiagnostics, type ResidualDiagnostics } from '../evidence/diagnostics/residual-diagnostics.js';
+import { DRAWN_PROFILES } from './stage-intervals.js';
 import { caveatsFor } from './stage-diagnostics.js';
 import type { EnzymeInput, ModelResult } from './types.js';
 
@@ -115,7 +116,7 @@ function tagged(models: ModelResult[]): ModelResult[] {
 
 function addProfiles(model: ModelResult | undefined, data: FitData, level: number): void {
   if (!model || !(model.fit.df > 0) || !Number.isFinite(model.fit.sse)) return;
-  const found = profileAllOfFit(model.fit, data, { level });
+  const found = profileAllOfFit(model.fit, data, { level, beyondEnds: DRAWN_PROFILES });
   model.profiles = found.map((p) => p.curve);
   for (const e of model.estimates) {
     const p = found.find((x) => x.name === e.name);

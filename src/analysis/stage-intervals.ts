@@ -30,6 +30,12 @@ import { tQuantile } from '../stats/distributions.js';
 import type { BootstrapSummary, ModelResult } from './types.js';
 import { distinctLevels } from '../input/distinct-levels.js';
 
+/**
+ * The parameters whose profile curves the report draws (src/figures/uncertainty-figures.ts): their
+ * curves get a point beyond each closed end, so the drawn curve crosses the cutoff.
+ */
+export const DRAWN_PROFILES = ['Ki', 'Kiu'] as const;
+
 export interface BootstrapRequest {
   resamples: number;
   seed: number;
@@ -51,6 +57,8 @@ interface IntervalOptions {
   profileModels?: 'all' | 'leading';
   /** the joint (Ki, Kiu) region of mixed, for the report's figure; default true */
   jointRegion?: boolean;
+  /** the DRAWN_PROFILES curves completed for the figures (a point beyond each closed end); default true */
+  profileFigures?: boolean;
   bootstrap?: BootstrapRequest;
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
@@ -79,7 +87,7 @@ export function addIntervals(ranked: readonly ModelResult[], data: FitData, unit
     for (const model of models) {
       if (!usable(model.fit)) continue;
       if (options.profileModels === 'leading' && !leading(model)) continue;
-      const found = profileAllOfFit(model.fit, data, { level });
+      const found = profileAllOfFit(model.fit, data, { level, beyondEnds: options.profileFigures !== false ? DRAWN_PROFILES : [] });
       profiles.set(model, found);
       model.profiles = found.map((p) => p.curve);
       for (const e of model.estimates) {

@@ -18,8 +18,8 @@ import { withUnit } from './axis-units.js';
 import { drawPolyline } from './model-lines.js';
 import { INK } from './palette.js';
 import { sig, interval } from '../text/format-number.js';
+import { DRAWN_PROFILES } from '../analysis/stage-intervals.js';
 
-const PROFILED = ['Ki', 'Kiu'] as const;
 
 function profileFigure(ctx: FigureContext, model: ModelResult, curve: ProfileCurve): FigureOutput {
   const name = curve.parameter;
@@ -176,7 +176,7 @@ const EDGE_COLOUR = '#c8742c';
 
 export function uncertaintyFigures(ctx: FigureContext): FigureOutput[] {
   const out: FigureOutput[] = [];
-  for (const name of PROFILED) {
+  for (const name of DRAWN_PROFILES) {
     const curve = ctx.best.profiles?.find((p) => p.parameter === name);
     if (curve && curve.values.length >= 3) out.push(profileFigure(ctx, ctx.best, curve));
   }

@@ -90,3 +90,124 @@ export function findRoot(
     evaluations++;
   }
 }
+
+/** A function value and its derivative at x. */
+export interface SlopePoint {
+  x: number;
+  f: number;
+  /** df/dx at x (NaN when unknown) */
+  df: number;
+}
+
+interface SlopeRootResult {
+  /**
+   * 'root': x is the root to within the tolerance; 'limit': the evaluation limit ended the search
+   * first (x is the latest point); 'no-sign-change': f(b), evaluated because the search needed it,
+   * has the sign of f(a), so [a, b] holds no root to search (the last evaluation was at b);
+   * 'not-finite': f was not finite at x
+   */
+  status: 'root' | 'limit' | 'no-sign-change' | 'not-finite';
+  x: number;
+  evaluations: number;
+}
+
+/**
+ * A root of f in [a.x, b] by Newton's method safeguarded with bisection: a Newton step is taken from
+ * the latest point when it stays inside the current bracket and is at most half the step before
+ * last; otherwise the bracket is halved. This is rtsafe of Press, W. H. et al. (2007) Numerical
+ * Recipes, 3rd ed., Cambridge University Press, sec. 9.4 (written from memory), with two changes:
+ * the iteration starts from the end with the smaller |f| instead of the middle (so the first Newton
+ * step may span the whole interval), and f(b) may be unknown (`fb` null). Then b is evaluated only
+ * when a Newton step would leave [a, b] or stall before a sign change has been seen.
+ *
+ * The search stops when the last Newton step (or half the bracket) is at most `tolerance` (plus
+ * 2 eps |x|), or when a Newton step d of at most NEWTON_MODEL_STEP has an estimated error
+ * d^2 |f''| / (2 |f'|) + e |d| of at most tolerance / 8 (the quadratic convergence of Newton's
+ * method near a simple root, and the linear one left by a relative slope error e). f'' comes from
+ * the slopes at the last two points, when they lie within CURVATURE_SPAN, and e from the gap
+ * between their secant and the mean of their slopes. The returned x is the point after that step,
+ * which is not evaluated.
+ * The derivative only steers the steps: a wrong df costs evaluations, never a wrong root.
+ */
+export function findRootWithSlope(
+  f: (x: number) => SlopePoint,
+  a: SlopePoint,
+  b: number,
+  fb: SlopePoint | null,
+  tolerance: number,
+  maxEvaluations = 60,
+): SlopeRootResult {
+  let evaluations = 0;
+  const done = (status: SlopeRootResult['status'], x: number): SlopeRootResult => ({ status, x, evaluations });
+  if (a.f === 0) return done('root', a.x);
+  if (fb && fb.f === 0) return done('root', b);
+  const signA = Math.sign(a.f);
+  if (!(signA !== 0) || (fb && !(Math.sign(fb.f) === -signA))) throw new RangeError('findRootWithSlope: f(a) must be finite and f(b), when given, of the other sign');
+  // xa: the nearest point known to have the sign of f(a); xb: the nearest known to have the other
+  // sign, or b while its sign is not known
+  let xa = a.x;
+  let xb = b;
+  let bKnown = fb !== null;
+  let current = fb && usable(fb) && (!usable(a) || Math.abs(fb.f) < Math.abs(a.f)) ? fb : a;
+  let before: SlopePoint | null = fb === null ? null : current === fb ? a : fb;
+  let stepBefore = 2 * Math.abs(b - a.x);
+  let step = stepBefore;
+  for (;;) {
+    const lo = Math.min(xa, xb);
+    const hi = Math.max(xa, xb);
+    const newton = usable(current) ? current.x - current.f / current.df : NaN;
+    const newtonFits = newton > lo && newton < hi && Math.abs(2 * current.f) <= Math.abs(stepBefore * current.df);
+    let next: number;
+    if (newtonFits) {
+      stepBefore = step;
+      step = current.f / current.df;
+      next = newton;
+    } else if (!bKnown) {
+      if (evaluations >= maxEvaluations) return done('limit', current.x);
+      const far = f(b);
+      evaluations++;
+      if (far.f === 0) return done('root', b);
+      if (!Number.isFinite(far.f)) return done('not-finite', b);
+      if (Math.sign(far.f) === signA) return done('no-sign-change', b);
+      bKnown = true;
+      if (usable(far) && (!usable(current) || Math.abs(far.f) < Math.abs(current.f))) current = far;
+      continue;
+    } else {
+      stepBefore = step;
+      step = 0.5 * (xb - xa);
+      next = xa + step;
+    }
+    if (Math.abs(step) <= tolerance + 2 * Number.EPSILON * Math.abs(next)) return done('root', next);
+    if (newtonFits && before && usable(before) && Math.abs(step) <= NEWTON_MODEL_STEP && Math.abs(current.x - before.x) <= CURVATURE_SPAN) {
+      // Newton's error after this step is about K step^2, K = |f''| / (2 |f'|), with f'' from the
+      // slopes at the last two points (close enough to measure the curvature where the root is),
+      // plus e |step| for a relative error e of the slope, seen as the gap between the secant and
+      // the mean of the two slopes: stop when that is well inside the tolerance.
+      const h = current.x - before.x;
+      const k = Math.abs((current.df - before.df) / h) / (2 * Math.abs(current.df));
+      const e = Math.abs((current.f - before.f) / h - 0.5 * (current.df + before.df)) / Math.abs(current.df);
+      if (k * step * step + e * Math.abs(step) <= tolerance / 8) return done('root', next);
+    }
+    if (evaluations >= maxEvaluations) return done('limit', current.x);
+    const point = f(next);
+    evaluations++;
+    if (point.f === 0) return done('root', next);
+    if (!Number.isFinite(point.f)) return done('not-finite', next);
+    before = current;
+    if (Math.sign(point.f) === signA) xa = next;
+    else {
+      xb = next;
+      bKnown = true;
+    }
+    current = point;
+  }
+}
+
+/** Largest Newton step whose error is judged from the quadratic model (|f''| / (2 |f'|) step^2). */
+const NEWTON_MODEL_STEP = 1e-3;
+/** Largest distance between the two points whose slopes give f'' for that judgement. */
+const CURVATURE_SPAN = 1e-2;
+
+function usable(p: SlopePoint): boolean {
+  return Number.isFinite(p.f) && Number.isFinite(p.df) && p.df !== 0;
+}

@@ -11,9 +11,12 @@
  * Search, for each end: step outward from the estimate (first step 90% of the Wald half-width on the
  * log scale, at most 1; doubled whenever |tau| grows by less than an eighth of the cutoff per step,
  * so a flat profile is crossed quickly), re-optimising the free parameters by Levenberg-Marquardt from the previous
- * point (warm start); once |tau| passes the cutoff, the end is the root of |tau| - cutoff, found by
- * Brent's method in the last step (find-root.ts). An end not reached inside the data's support
- * (profile-support.ts) is open (null): the search never reports the edge of its box as an end.
+ * point (warm start). Within each step the end is searched as the root of |tau| - cutoff by Newton
+ * steps safeguarded with bisection (findRootWithSlope, find-root.ts), dtau/dc coming from the
+ * envelope theorem (heldSlope, profiled-problem.ts); the step's far point is computed only when
+ * the search needs it, and when tau there is still below the cutoff the walk goes on from it. An
+ * end not reached inside the data's support (profile-support.ts) is open (null): the search never
+ * reports the edge of its box as an end.
  *
  * Weights: fixed at their values at the solution. For IRLS fits (proportional and sqrt error
  * models) this profiles the weighted SSE of the final reweighting pass, the usual treatment of a
@@ -23,11 +26,11 @@ import type { MechanismFit } from '../../fit/fit-mechanism.js';
 import { parameterLogScales, weightedProblem } from '../../fit/fit-mechanism.js';
 import type { FitData } from '../../fit/fit-data.js';
 import { levenbergMarquardt } from '../../fit/levenberg-marquardt.js';
-import type { LeastSquaresOptions, LeastSquaresProblem } from '../../fit/least-squares-problem.js';
+import type { LeastSquaresOptions, LeastSquaresProblem, LeastSquaresResult } from '../../fit/least-squares-problem.js';
 import { unscaledCovariance } from '../../fit/qr.js';
 import { tQuantile } from '../../stats/distributions.js';
-import { findRoot } from './find-root.js';
-import { freePart, fullTheta, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
+import { findRootWithSlope, type SlopePoint } from './find-root.js';
+import { freePart, fullTheta, heldSlope, profiledProblem, profiledQuantity, quantityAt, type ProfiledName, type ProfiledQuantity } from './profiled-problem.js';
 import { profileSupport, type ProfileSupport } from './profile-support.js';
 import { DETECTION_FACTOR } from './detection-bound.js';
 
@@ -43,10 +46,19 @@ export interface ProfileCurve {
 }
 
 /**
- * Tolerances of each constrained refit along a profile: the SSE to 1e-12 relative, far finer than
- * tau needs near the cutoff (where SSE - SSE_hat is a few percent of SSE_hat).
+ * Tolerances of each constrained refit of the tests at given values (profileTausAt): the SSE to
+ * 1e-12 relative. Their tau is reported and compared with a level, so it is kept as it was.
  */
 const PROFILE_FIT: LeastSquaresOptions = { ftol: 1e-12, xtol: 1e-12, gtol: 1e-14, skipFinalJacobian: true };
+/**
+ * Tolerances of the refits of the interval search: the SSE to 1e-10 relative. What an end needs:
+ * near the cutoff t, S - S_hat = t^2 s^2 with s^2 = S_hat / df, so a relative SSE error e moves tau
+ * by e df / (2 t) and the end by that over dtau/dc, about 1/SE: for df = 100, t = 2 and a log-scale
+ * SE of 0.1, e = 1e-10 moves the end by 2.5e-10, under the 1e-8 root tolerance. Measured
+ * (docs/decisions/analysis-cost.md): over 2160 simulated compounds the ends moved by less than the
+ * root tolerance, with 1e-10 as with 1e-12.
+ */
+const INTERVAL_FIT: LeastSquaresOptions = { ftol: 1e-10, xtol: 1e-10, gtol: 1e-14, skipFinalJacobian: true };
 
 export interface ParameterProfile {
   name: ProfiledName;
@@ -67,6 +79,12 @@ interface ProfileOptions {
   level?: number;
   /** absolute tolerance of the ends on the log scale; default 1e-8 (a relative 1e-8 in the parameter) */
   tolerance?: number;
+  /**
+   * quantities whose curves are drawn: where the search found a closed end without computing the
+   * far point of the walk's last step (beyond the end), that point is computed too, so the drawn
+   * curve crosses the cutoff as far out as the walk went; default none
+   */
+  beyondEnds?: readonly ProfiledName[];
 }
 
 interface ProfilePoint {
@@ -75,6 +93,8 @@ interface ProfilePoint {
   tau: number;
   z: Float64Array;
   theta: Float64Array;
+  /** weighted residuals at the constrained optimum (for the slope) */
+  residuals: Float64Array;
 }
 
 const MAX_STEPS = 80;
@@ -88,6 +108,7 @@ interface FitContext {
   cutoff: number;
   covariance: Float64Array;
   tolerance: number;
+  beyondEnds: readonly ProfiledName[];
 }
 
 function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): FitContext {
@@ -97,7 +118,7 @@ function fitContext(fit: MechanismFit, data: FitData, options: ProfileOptions): 
   const s2 = fit.sse / fit.df;
   const cutoff = tQuantile(1 - (1 - level) / 2, fit.df);
   const covariance = unscaledCovariance(fit.jacobian, fit.n, fit.p).matrix.map((x) => x * s2);
-  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-8 };
+  return { fit, data, full, s2, cutoff, covariance, tolerance: options.tolerance ?? 1e-8, beyondEnds: options.beyondEnds ?? [] };
 }
 
 /** Wald SE of the profiled quantity on the log scale (NaN when not identified). */
@@ -132,13 +153,15 @@ interface ProfileEvaluator {
   cHat: number;
   zHat: Float64Array;
   evaluate(c: number, zStart: Float64Array): ProfilePoint;
+  /** dtau/dc at a point (NaN at tau = 0, where tau's slope is not defined by S alone) */
+  slopeOf(point: ProfilePoint): number;
   /** constrained fits run so far */
   evaluations(): number;
   /** true once a constrained fit found a lower SSE than the fit itself */
   lowerSseSeen(): boolean;
 }
 
-function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator {
+function profileEvaluator(ctx: FitContext, name: ProfiledName, fitOptions: LeastSquaresOptions): ProfileEvaluator {
   const { fit } = ctx;
   const q = profiledQuantity(fit.model.params, name);
   const support = profileSupport(ctx.data, name);
@@ -167,27 +190,46 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName): ProfileEvaluator
     }
     return starts;
   };
+  // The refits run at the latest c, by start: a refit asked for again at the same c from the same
+  // start (the exclusion tests' direct refit from the estimate repeats one the walk ran) is the
+  // same computation, so its result is reused.
+  let runsAt = NaN;
+  const runs: { start: Float64Array; result: LeastSquaresResult }[] = [];
+  const solve = (z: Float64Array): LeastSquaresResult => {
+    if (fixed.value !== runsAt) {
+      runsAt = fixed.value;
+      runs.length = 0;
+    }
+    const seen = runs.find((run) => run.start.every((v, k) => Object.is(v, z[k])));
+    if (seen) return seen.result;
+    const result = levenbergMarquardt(problem, z, fitOptions);
+    evaluations++;
+    runs.push({ start: Float64Array.from(z), result });
+    return result;
+  };
   const evaluate = (c: number, zStart: Float64Array): ProfilePoint => {
     fixed.value = c;
-    let r = levenbergMarquardt(problem, zStart, PROFILE_FIT);
-    evaluations++;
+    let r = solve(zStart);
     // An arm past the detection bound sits on a flat ridge where LM cannot feel whether bringing it
     // back would help: also start from the estimate's free parameters, and from the warm start with
     // each such arm pulled back to the detection bound and to the highest [I] tested; keep the
     // lowest SSE.
     if (armOff(r.x, c)) {
       for (const z of reentryStarts(r.x, c, zStart)) {
-        const other = levenbergMarquardt(problem, z, PROFILE_FIT);
-        evaluations++;
+        const other = solve(z);
         if (other.sse < r.sse) r = other;
       }
     }
     const increase = r.sse - fit.sse;
     if (increase < -1e-9 * fit.sse) lowerSseSeen = true;
     const tau = Math.sign(c - cHat) * Math.sqrt(Math.max(0, increase) / ctx.s2);
-    return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)) };
+    return { c, sse: r.sse, tau, z: Float64Array.from(r.x), theta: fullTheta(q, r.x, c, new Float64Array(q.m)), residuals: r.residuals };
   };
-  return { q, support, cHat, zHat, evaluate, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
+  // tau^2 = (S - S_hat) / s^2, so dtau/dc = (dS/dc) / (2 s^2 tau), with dS/dc from heldSlope
+  const jacobian = new Float64Array(ctx.full.n * q.m);
+  const slopeOf = (point: ProfilePoint): number =>
+    point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau);
+  return { q, support, cHat, zHat, evaluate, slopeOf, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
 }
 
 /** Largest step (log scale) of the walk from the estimate to a tested value: each refit starts near its answer. */
@@ -204,7 +246,7 @@ const TEST_WALK_STEP = Math.log(2);
  */
 export function profileTausAt(fit: MechanismFit, data: FitData, name: ProfiledName, values: readonly number[]): { taus: number[]; df: number } {
   if (!(fit.df > 0) || !Number.isFinite(fit.sse)) return { taus: values.map(() => NaN), df: fit.df };
-  const ev = profileEvaluator(fitContext(fit, data, {}), name);
+  const ev = profileEvaluator(fitContext(fit, data, {}), name, PROFILE_FIT);
   const taus = values.map(() => NaN);
   for (const direction of [-1, 1] as const) {
     const order = values
@@ -234,13 +276,13 @@ export function profileTausAt(fit: MechanismFit, data: FitData, name: ProfiledNa
 
 function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfile {
   const { fit } = ctx;
-  const ev = profileEvaluator(ctx, name);
+  const ev = profileEvaluator(ctx, name, INTERVAL_FIT);
   const { q, support, cHat, zHat, evaluate } = ev;
   const notes: string[] = [];
 
   const c0 = Math.min(support.high, Math.max(support.low, cHat));
   const start = c0 === cHat
-    ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta) }
+    ? { c: cHat, sse: fit.sse, tau: 0, z: zHat, theta: Float64Array.from(fit.theta), residuals: new Float64Array(0) }
     : evaluate(c0, zHat);
   const se = logScaleSe(ctx, q);
   // First step to 90% of the Wald end (cutoff x SE on the log scale): where the profile is close to
@@ -278,25 +320,26 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
       if (direction * (limit - previous.c) <= 0) return openEnd(direction, 'box');
       let c = previous.c + direction * step;
       if (direction * (c - limit) > 0) c = limit;
-      const point = evaluate(c, previous.z);
-      points.push(point);
-      if (!Number.isFinite(point.sse)) return openEnd(direction, 'failed');
-      const reach = direction * point.tau;
-      if (reach >= ctx.cutoff) return refineEnd(previous, point, direction);
-      if (reach - direction * previous.tau < ctx.cutoff / 8) step *= 2;
+      let point: ProfilePoint;
+      if (direction * previous.tau - ctx.cutoff < 0 && previous.tau !== 0) {
+        // Where tau's slope predicts the crossing inside this step, the end is searched from the
+        // last point and the step's far point c is computed only when the search needs it.
+        const search = searchEnd(previous, c, null, direction);
+        if (search.end !== undefined) return search.end;
+        point = search.far!;
+      } else {
+        point = evaluate(c, previous.z);
+        points.push(point);
+        if (!Number.isFinite(point.sse)) return openEnd(direction, 'failed');
+        if (direction * point.tau >= ctx.cutoff) return refineEnd(previous, point, direction);
+      }
+      if (direction * point.tau - direction * previous.tau < ctx.cutoff / 8) step *= 2;
       previous = point;
     }
     return openEnd(direction, 'steps');
   }
 
-  function refineEnd(inside: ProfilePoint, outside: ProfilePoint, direction: -1 | 1): number {
-    let warm = outside.z;
-    const g = (c: number): number => {
-      const point = evaluate(c, warm);
-      points.push(point);
-      warm = point.z;
-      return direction * point.tau - ctx.cutoff;
-    };
+  function refineEnd(inside: ProfilePoint, outside: ProfilePoint, direction: -1 | 1): number | null {
     const gInside = direction * inside.tau - ctx.cutoff;
     const gOutside = direction * outside.tau - ctx.cutoff;
     if (!(gInside < 0 && gOutside >= 0)) {
@@ -305,9 +348,31 @@ function profileWithContext(ctx: FitContext, name: ProfiledName): ParameterProfi
       notes.push(`the ${name} profile is not monotone near its ${direction > 0 ? 'upper' : 'lower'} end; the end is the first point found beyond the cutoff`);
       return gInside >= 0 ? inside.c : outside.c;
     }
-    const root = findRoot(g, inside.c, outside.c, gInside, gOutside, ctx.tolerance);
-    if (!root.converged) notes.push(`the ${name} interval end was not refined to full precision`);
-    return root.x;
+    return searchEnd(inside, outside.c, outside, direction).end!;
+  }
+
+  /**
+   * The root of direction * tau - cutoff in [inside.c, c] by safeguarded Newton steps on tau
+   * (findRootWithSlope), each refit warm-started from the last. With `outside` null the far point
+   * c is not yet computed: the result is then either the end (`end`, null when a refit failed) or,
+   * when tau at c is still below the cutoff, the point at c (`far`), from which the walk goes on.
+   */
+  function searchEnd(inside: ProfilePoint, c: number, outside: ProfilePoint | null, direction: -1 | 1): { end?: number | null; far?: ProfilePoint } {
+    let last = inside;
+    let farDone = outside !== null;
+    const slopePoint = (p: ProfilePoint): SlopePoint => ({ x: p.c, f: direction * p.tau - ctx.cutoff, df: direction * ev.slopeOf(p) });
+    const g = (x: number): SlopePoint => {
+      last = evaluate(x, (outside && last === inside ? outside : last).z);
+      points.push(last);
+      if (x === c) farDone = true;
+      return Number.isFinite(last.sse) ? slopePoint(last) : { x, f: NaN, df: NaN };
+    };
+    const root = findRootWithSlope(g, slopePoint(inside), c, outside && slopePoint(outside), ctx.tolerance);
+    if (root.status === 'no-sign-change') return { far: last };
+    if (root.status === 'not-finite') return { end: openEnd(direction, 'failed') };
+    if (root.status === 'limit') notes.push(`the ${name} interval end was not refined to full precision`);
+    if (!farDone && ctx.beyondEnds.includes(name)) points.push(evaluate(c, last.z));
+    return { end: root.x };
   }
 
   function openEnd(direction: -1 | 1, why: 'detection' | 'box' | 'failed' | 'steps'): null {
