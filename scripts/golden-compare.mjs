@@ -61,5 +61,11 @@ const fields = [...largest].sort((p, q) => q[1].relative - p[1].relative);
 console.log(`numeric fields that changed: ${fields.length}`);
 for (const [key, w] of fields) console.log(`  ${w.relative.toExponential(2)}  ${key}  (${w.file}: ${w.x} -> ${w.y})`);
 console.log(`non-numeric differences: ${other.length}`);
+const byPath = new Map();
+for (const d of other) {
+  const key = d.path.startsWith('text') ? 'text summary lines' : d.path.replace(/\[\d+\]/g, '[]');
+  byPath.set(key, (byPath.get(key) ?? 0) + 1);
+}
+for (const [key, count] of [...byPath].sort((p, q) => q[1] - p[1])) console.log(`  ${count} x ${key}`);
 for (const d of other.slice(0, 40)) console.log(`  ${d.file} ${d.path}\n    - ${d.x}\n    + ${d.y}`);
 process.exit(other.length > 0 ? 1 : 0);

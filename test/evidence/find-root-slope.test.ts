@@ -114,7 +114,7 @@ describe('heldSlope', () => {
       const r = new Float64Array(n);
       full.residuals(theta, r);
       const q = profiledQuantity(['Vmax', 'Km'], 'Km');
-      const slope = heldSlope(full, q, theta, r, new Float64Array(n * 2));
+      const slope = heldSlope(full, q.fixedCoefficient, theta, r, new Float64Array(n * 2));
       const exact = -2 * x.reduce((s, xk, k) => s + (xk - mx) * (y[k] - my - b * (xk - mx)), 0);
       expect(slope).toBeCloseTo(exact, 12);
     });

@@ -12,9 +12,10 @@
  * SEs so that the angles spread evenly over the region. Along the first ray, step outward until the
  * profiled SSE passes the threshold; every later ray starts at its neighbour's crossing. The
  * crossing is then found by safeguarded Newton steps on the distance statistic, whose slope along
- * the ray comes from one Jacobian at each constrained optimum (envelope theorem). A ray that reaches
- * the edge of the searched box (profile-support.ts: up to the detection bound of each constant)
- * first contributes its box-edge point and marks the region open.
+ * the ray comes from one Jacobian at each constrained optimum (envelope theorem; find-root.ts,
+ * findRootWithSlope). A ray that reaches the edge of the searched box (profile-support.ts: up to
+ * the detection bound of each constant) first contributes its box-edge point and marks the region
+ * open.
  */
 import type { MechanismFit } from '../../fit/fit-mechanism.js';
 import { parameterLogScales, weightedProblem } from '../../fit/fit-mechanism.js';
@@ -23,6 +24,8 @@ import type { LeastSquaresOptions, LeastSquaresProblem } from '../../fit/least-s
 import { levenbergMarquardt } from '../../fit/levenberg-marquardt.js';
 import { unscaledCovariance } from '../../fit/qr.js';
 import { fQuantile } from '../../stats/distributions.js';
+import { findRootWithSlope, type SlopePoint } from './find-root.js';
+import { heldSlope } from './profiled-problem.js';
 import { profileSupport } from './profile-support.js';
 
 /** A joint confidence region for (Ki, Kiu) of the mixed model: the likelihood contour. */
@@ -118,12 +121,13 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   const scales: [number, number] = [scale(ki), scale(kiu)];
   const zHat = Float64Array.from(free, (j) => fit.theta[j]);
   const jFull = new Float64Array(full.n * full.m);
+  // how the held pair moves along a ray: theta_Ki, theta_Kiu = centre + t * dir
+  const rayCoefficients = new Float64Array(full.m);
 
   /**
    * The distance statistic d = sqrt((S - S_hat) / s^2) at the point t along the ray, its free
-   * optimum, and the slope dd/dt. The slope comes from the envelope theorem: at the constrained
-   * optimum the free parameters' gradient vanishes, so dS/dt = 2 r'(dr/dtheta_held . dir), one
-   * Jacobian at the solution.
+   * optimum, and the slope dd/dt = (dS/dt) / (2 s^2 d), dS/dt by the envelope theorem
+   * (profiled-problem.ts, heldSlope: one Jacobian at the solution).
    */
   const pointAt = (dir: [number, number], t: number, warm: Float64Array): RayPoint => {
     fixed[0] = centre[0] + t * dir[0];
@@ -132,10 +136,9 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
     const z = Float64Array.from(r.x);
     const d = Math.sqrt(Math.max(0, r.sse - fit.sse) / s2);
     if (!Number.isFinite(d)) return { t, d, slope: NaN, z };
-    full.jacobian(fill(z), jFull);
-    const m = full.m;
-    let dSdt = 0;
-    for (let k = 0; k < full.n; k++) dSdt += 2 * r.residuals[k] * (jFull[k * m + ki] * dir[0] + jFull[k * m + kiu] * dir[1]);
+    rayCoefficients[ki] = dir[0];
+    rayCoefficients[kiu] = dir[1];
+    const dSdt = heldSlope(full, rayCoefficients, fill(z), r.residuals, jFull);
     return { t, d, slope: d > 0 ? dSdt / (2 * s2 * d) : NaN, z };
   };
 
@@ -164,17 +167,16 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
    * the box. With the neighbouring ray's crossing, the search starts there (the contour is
    * continuous, so the crossing is close) from that ray's free optimum; otherwise it steps outward
    * from the estimate (first step 0.5, doubled while d grows by less than radius / 8 per step).
-   * Once bracketed, the crossing is found by safeguarded Newton steps (newtonInBracket).
+   * Once bracketed, the crossing is found by safeguarded Newton steps (findRootWithSlope).
    */
   function rayCrossing(dir: [number, number], tEdge: number, near: RayPoint | null): RayPoint | null {
-    let inside: RayPoint = { t: 0, d: 0, slope: NaN, z: zHat };
+    const centrePoint: RayPoint = { t: 0, d: 0, slope: NaN, z: zHat };
     let step = 0.5;
-    let previous = inside;
+    let previous = centrePoint;
     if (near !== null && near.t < tEdge) {
       const guess = pointAt(dir, near.t, near.z);
       if (!Number.isFinite(guess.d)) return null;
-      if (guess.d >= radius) return newtonInBracket(dir, inside, guess, guess);
-      inside = guess;
+      if (guess.d >= radius) return crossingIn(dir, centrePoint, guess);
       previous = guess;
       // aim the first step at the crossing the slope predicts, a little beyond it
       if (guess.slope > 0) step = Math.max(1.1 * (radius - guess.d) / guess.slope, 1e-3 * Math.max(1, guess.t));
@@ -183,7 +185,7 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
       const t = Math.min(previous.t + step, tEdge);
       const point = pointAt(dir, t, previous.z);
       if (!Number.isFinite(point.d)) return null;
-      if (point.d >= radius) return newtonInBracket(dir, previous, point, point);
+      if (point.d >= radius) return crossingIn(dir, previous, point);
       if (point.d - previous.d < radius / 8) step *= 2;
       previous = point;
       if (t >= tEdge) return null;
@@ -192,29 +194,21 @@ export function jointRegionKiKiu(fit: MechanismFit, data: FitData, options: Join
   }
 
   /**
-   * The root of d(t) - radius in [inside.t, outside.t] (d below the radius at inside, at or above
-   * it at outside) by Newton steps from `from`, each kept inside the bracket; a step that would
-   * leave the bracket, or one from a slope that is not positive, is replaced by bisection (the
-   * safeguarded Newton iteration of Press, W. H. et al. (1992) Numerical Recipes, 2nd ed., sec. 9.4,
-   * rtsafe; from memory). Stops at a point whose next Newton step would be shorter than
-   * CROSSING_TOLERANCE (so the root is that close), or when the bracket is narrower than it.
+   * The root of d(t) - radius between `inside` (d below the radius) and `outside` (at or above it),
+   * to CROSSING_TOLERANCE, each refit warm-started from the last. The crossing carries the free
+   * optimum of the last point computed, the next ray's warm start.
    */
-  function newtonInBracket(dir: [number, number], inside: RayPoint, outside: RayPoint, from: RayPoint): RayPoint {
-    let lo = inside;
-    let hi = outside;
-    let current = from;
-    for (let k = 0; k < 60; k++) {
-      const newton = current.slope > 0 ? current.t - (current.d - radius) / current.slope : NaN;
-      // converged: the next Newton step would be shorter than the tolerance
-      if (Math.abs(newton - current.t) <= CROSSING_TOLERANCE || hi.t - lo.t <= CROSSING_TOLERANCE) return current;
-      const t = newton > lo.t && newton < hi.t ? newton : 0.5 * (lo.t + hi.t);
-      const point = pointAt(dir, t, current.z);
-      if (!Number.isFinite(point.d)) return hi;
-      if (point.d >= radius) hi = point;
-      else lo = point;
-      current = point;
-    }
-    return current;
+  function crossingIn(dir: [number, number], inside: RayPoint, outside: RayPoint): RayPoint {
+    let last = outside;
+    const g = (t: number): SlopePoint => {
+      last = pointAt(dir, t, last.z);
+      return { x: t, f: last.d - radius, df: last.slope };
+    };
+    const slopePoint = (p: RayPoint): SlopePoint => ({ x: p.t, f: p.d - radius, df: p.slope });
+    const root = findRootWithSlope(g, slopePoint(inside), outside.t, slopePoint(outside), CROSSING_TOLERANCE);
+    // a refit that failed inside the bracket: the outer point is the one known to lie beyond
+    if (root.status === 'not-finite') return outside;
+    return { ...last, t: root.x };
   }
 }
 

@@ -228,7 +228,7 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName, fitOptions: Least
   // tau^2 = (S - S_hat) / s^2, so dtau/dc = (dS/dc) / (2 s^2 tau), with dS/dc from heldSlope
   const jacobian = new Float64Array(ctx.full.n * q.m);
   const slopeOf = (point: ProfilePoint): number =>
-    point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau);
+    point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q.fixedCoefficient, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau);
   return { q, support, cHat, zHat, evaluate, slopeOf, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
 }
 

@@ -106,19 +106,21 @@ export function profiledProblem(full: LeastSquaresProblem, q: ProfiledQuantity, 
 }
 
 /**
- * dS/dc of the profiled sum of squares S(c) = min over z of |r(theta(z, c))|^2, at a constrained
- * optimum theta with residuals r there. By the envelope theorem the free parameters' gradient
- * vanishes at the optimum, so only the explicit dependence on c counts:
+ * dS/dc of the profiled sum of squares S(c) = min over z of |r(theta(z, c))|^2, where the held
+ * part of theta moves with c as theta_i = ... + coefficient_i * c: at a constrained optimum theta
+ * with residuals r there. By the envelope theorem the free parameters' gradient vanishes at the
+ * optimum, so only the explicit dependence on c counts:
  *   dS/dc = 2 sum_k r_k dr_k/dc,   dr_k/dc = sum_i coefficient_i J_ki   (J = dr/dtheta of the full problem).
- * One Jacobian evaluation of the full problem, into `jacobian` (length n * m).
+ * One Jacobian evaluation of the full problem, into `jacobian` (length n * m). A profile passes its
+ * quantity's fixedCoefficient; the joint region's rays pass their direction on the held pair.
  */
-export function heldSlope(full: LeastSquaresProblem, q: ProfiledQuantity, theta: Float64Array, residuals: ArrayLike<number>, jacobian: Float64Array): number {
+export function heldSlope(full: LeastSquaresProblem, coefficients: ArrayLike<number>, theta: Float64Array, residuals: ArrayLike<number>, jacobian: Float64Array): number {
   const { n, m } = full;
   full.jacobian(theta, jacobian);
   let sum = 0;
   for (let k = 0; k < n; k++) {
     let drdc = 0;
-    for (let i = 0; i < m; i++) if (q.fixedCoefficient[i] !== 0) drdc += q.fixedCoefficient[i] * jacobian[k * m + i];
+    for (let i = 0; i < m; i++) if (coefficients[i] !== 0) drdc += coefficients[i] * jacobian[k * m + i];
     sum += residuals[k] * drdc;
   }
   return 2 * sum;
