@@ -20,7 +20,6 @@ import { INK } from './palette.js';
 import { sig, interval } from '../text/format-number.js';
 import { DRAWN_PROFILES } from '../analysis/stage-intervals.js';
 
-
 function profileFigure(ctx: FigureContext, model: ModelResult, curve: ProfileCurve): FigureOutput {
   const name = curve.parameter;
   const id = `fig-profile-${name.toLowerCase()}`;
