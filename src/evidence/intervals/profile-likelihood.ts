@@ -239,7 +239,8 @@ const TEST_WALK_STEP = Math.log(2);
  * The profile t statistic tau at natural-scale values of a quantity (Bates & Watts 1988, sec. 6.1):
  * negative below the estimate, positive above it. With df = n - p it is referred to Student's t
  * for a one-sided test of "the quantity is at most (or at least) this value". Each value is
- * reached by walking out from the estimate in steps of at most TEST_WALK_STEP, warm-starting every
+ * reached by walking out from the estimate (or from the edge of the data's support, profile-support.ts,
+ * when the estimate lies beyond it) in steps of at most TEST_WALK_STEP, warm-starting every
  * constrained refit from the last one (values on one side share the walk); the direct refit from
  * the estimate is tried too and the lower SSE kept. A refit that stalls would overstate |tau| and
  * so claim an exclusion the data do not make; the walk guards against that.
@@ -248,12 +249,17 @@ export function profileTausAt(fit: MechanismFit, data: FitData, name: ProfiledNa
   if (!(fit.df > 0) || !Number.isFinite(fit.sse)) return { taus: values.map(() => NaN), df: fit.df };
   const ev = profileEvaluator(fitContext(fit, data, {}), name, PROFILE_FIT);
   const taus = values.map(() => NaN);
+  // The walks start where the interval search does: at the estimate, or at the edge of the support
+  // when the estimate lies beyond it (an arm far past its detection bound, where the profile is
+  // flat and steps of TEST_WALK_STEP would repeat the same refit dozens of times).
+  const c0 = Math.min(ev.support.high, Math.max(ev.support.low, ev.cHat));
+  const origin = { c: c0, z: c0 === ev.cHat ? ev.zHat : ev.evaluate(c0, ev.zHat).z };
   for (const direction of [-1, 1] as const) {
     const order = values
       .map((v, k) => ({ k, c: v > 0 ? Math.log(v) : NaN }))
       .filter((x) => Number.isFinite(x.c) && direction * (x.c - ev.cHat) > 0)
       .sort((a, b) => direction * (a.c - b.c));
-    let at = { c: ev.cHat, z: ev.zHat };
+    let at = origin;
     for (const { k, c } of order) {
       let point: ProfilePoint | null = null;
       while (direction * (c - at.c) > 0) {
