@@ -44,9 +44,9 @@ export interface AnalysisOptions {
   profile?: boolean;
   /**
    * 'full' (default): profiles for every model and the joint (Ki, Kiu) region for the figures;
-   * 'summary': profiles only for the models the verdict can name, residual checks only for the
-   * winner, no joint region (what a batch summary needs; the verdict and the constants of the
-   * named mechanism are the same as with 'full')
+   * 'summary': profiles only of the inhibition constants and alpha, and only for the models the
+   * verdict can name, residual checks only for the winner, no joint region (what a batch summary
+   * needs; the verdict and the constants of the named mechanism are the same as with 'full')
    */
   detail?: 'full' | 'summary';
   /** wild bootstrap: resamples, seed and threads in all (see src/analysis/stage-intervals.ts) */

@@ -36,6 +36,13 @@ import { distinctLevels } from '../input/distinct-levels.js';
  */
 export const DRAWN_PROFILES = ['Ki', 'Kiu'] as const;
 
+/**
+ * The profiles a summary reads ('leading' models): the inhibition constants, whose intervals a
+ * batch summary row gives and whose lower ends the detection caveat uses, and alpha, whose interval
+ * the verdict reads. Vmax and Km are given there as values only, so their profiles are left out.
+ */
+export const SUMMARY_PROFILES = ['Ki', 'Kiu', 'alpha'] as const;
+
 export interface BootstrapRequest {
   resamples: number;
   seed: number;
@@ -51,8 +58,9 @@ interface IntervalOptions {
   /**
    * which models get profiles: 'all' (default) or 'leading': every model the verdict can name
    * (the best-ranked model, the best three-parameter model, mixed, whose alpha interval the verdict
-   * reads, and no inhibition); the others keep their Wald intervals. Batch runs without reports use
-   * 'leading', so their summary rows equal those of a full analysis.
+   * reads, and no inhibition), and of those only SUMMARY_PROFILES; the others keep their Wald
+   * intervals. Batch runs without reports use 'leading', so their summary rows equal those of a
+   * full analysis.
    */
   profileModels?: 'all' | 'leading';
   /** the joint (Ki, Kiu) region of mixed, for the report's figure; default true */
@@ -87,7 +95,11 @@ export function addIntervals(ranked: readonly ModelResult[], data: FitData, unit
     for (const model of models) {
       if (!usable(model.fit)) continue;
       if (options.profileModels === 'leading' && !leading(model)) continue;
-      const found = profileAllOfFit(model.fit, data, { level, beyondEnds: options.profileFigures !== false ? DRAWN_PROFILES : [] });
+      const found = profileAllOfFit(model.fit, data, {
+        level,
+        beyondEnds: options.profileFigures !== false ? DRAWN_PROFILES : [],
+        ...(options.profileModels === 'leading' ? { only: SUMMARY_PROFILES } : {}),
+      });
       profiles.set(model, found);
       model.profiles = found.map((p) => p.curve);
       for (const e of model.estimates) {

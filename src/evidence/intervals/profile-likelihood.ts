@@ -85,6 +85,8 @@ interface ProfileOptions {
    * curve crosses the cutoff as far out as the walk went; default none
    */
   beyondEnds?: readonly ProfiledName[];
+  /** profile only these quantities (of those the fit has); default every parameter, and alpha */
+  only?: readonly ProfiledName[];
 }
 
 interface ProfilePoint {
@@ -134,13 +136,14 @@ function logScaleSe(ctx: FitContext, q: ProfiledQuantity): number {
   return Math.sqrt(c[j * m + j]);
 }
 
-/** Profiles every parameter of a fit, and alpha when the model has both Ki and Kiu. */
+/** Profiles every parameter of a fit, and alpha when the model has both Ki and Kiu (or those of `options.only`). */
 export function profileAllOfFit(fit: MechanismFit, data: FitData, options: ProfileOptions = {}): ParameterProfile[] {
   if (!(fit.df > 0) || !Number.isFinite(fit.sse)) return [];
   const ctx = fitContext(fit, data, options);
   const names: ProfiledName[] = [...fit.model.params];
   if (fit.model.params.includes('Ki') && fit.model.params.includes('Kiu')) names.push('alpha');
-  return names.map((name) => profileWithContext(ctx, name));
+  const wanted = options.only;
+  return names.filter((name) => !wanted || wanted.includes(name)).map((name) => profileWithContext(ctx, name));
 }
 
 /**
