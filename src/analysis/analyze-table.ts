@@ -44,7 +44,7 @@ export interface AnalysisOptions {
   profile?: boolean;
   /**
    * 'full' (default): profiles for every model and the joint (Ki, Kiu) region for the figures;
-   * 'summary': profiles only of the inhibition constants and alpha, and only for the models the
+   * 'summary': profiles only of Km, the inhibition constants and alpha, and only for the models the
    * verdict can name, residual checks only for the winner, no joint region (what a batch summary
    * needs; the verdict and the constants of the named mechanism are the same as with 'full')
    */

@@ -38,10 +38,11 @@ export const DRAWN_PROFILES = ['Ki', 'Kiu'] as const;
 
 /**
  * The profiles a summary reads ('leading' models): the inhibition constants, whose intervals a
- * batch summary row gives and whose lower ends the detection caveat uses, and alpha, whose interval
- * the verdict reads. Vmax and Km are given there as values only, so their profiles are left out.
+ * batch summary row gives and whose lower ends the detection caveat uses; alpha, whose interval
+ * the verdict reads; Km, whose interval sets the prior of a follow-up plan (src/plan/follow-up.ts).
+ * Vmax is read as a value only, so its profile is left out.
  */
-export const SUMMARY_PROFILES = ['Ki', 'Kiu', 'alpha'] as const;
+export const SUMMARY_PROFILES = ['Km', 'Ki', 'Kiu', 'alpha'] as const;
 
 export interface BootstrapRequest {
   resamples: number;
