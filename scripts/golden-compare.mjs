@@ -6,6 +6,7 @@
  * summary. Exit code 1 when there is any non-numeric difference.
  *
  *   node scripts/golden-compare.mjs BEFORE_FOLDER AFTER_FOLDER
+ *   GOLDEN_PATH='text summary' node scripts/golden-compare.mjs ...   (list only differences whose path contains it)
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -67,5 +68,5 @@ for (const d of other) {
   byPath.set(key, (byPath.get(key) ?? 0) + 1);
 }
 for (const [key, count] of [...byPath].sort((p, q) => q[1] - p[1])) console.log(`  ${count} x ${key}`);
-for (const d of other.slice(0, 40)) console.log(`  ${d.file} ${d.path}\n    - ${d.x}\n    + ${d.y}`);
+for (const d of other.filter((o) => process.env.GOLDEN_PATH === undefined || o.path.includes(process.env.GOLDEN_PATH)).slice(0, 40)) console.log(`  ${d.file} ${d.path}\n    - ${d.x}\n    + ${d.y}`);
 process.exit(other.length > 0 ? 1 : 0);
