@@ -27,9 +27,8 @@ export interface LeastSquaresOptions {
   /** initial step bound factor (MINPACK factor); default 100 */
   factor?: number;
   /**
-   * when true, the result's `jacobian` is the last one evaluated (possibly at the point before the
-   * last step) and no extra evaluation is made at x: for callers that discard it (screening starts,
-   * profile refits); default false
+   * when true, the result's `jacobian` is empty (length 0) and no extra evaluation is made at x:
+   * for callers that do not use it (screening starts, profile and region refits); default false
    */
   skipFinalJacobian?: boolean;
 }

@@ -27,6 +27,9 @@ import { applyQTranspose, euclideanNorm, householderQrPivoted, solveDampedTriang
 const EPSILON = Number.EPSILON;
 const DWARF = Number.MIN_VALUE;
 
+/** The `jacobian` of a result asked for without it (skipFinalJacobian): nothing to copy. */
+const NO_JACOBIAN = new Float64Array(0);
+
 const DEFAULT_LEAST_SQUARES_OPTIONS = {
   ftol: 1e-15,
   xtol: 1e-15,
@@ -243,7 +246,8 @@ const MESSAGES: Record<LeastSquaresStatus, string> = {
  *
  * `iterations` counts Jacobian evaluations (outer iterations of lmder); `evaluations` counts
  * residual evaluations, the quantity limited by maxEvaluations. The returned Jacobian is evaluated
- * at the returned x (one extra Jacobian evaluation when the last step moved x; not counted).
+ * at the returned x (one extra Jacobian evaluation when the last step moved x; not counted), or
+ * empty with skipFinalJacobian.
  */
 export function levenbergMarquardt(
   problem: LeastSquaresProblem,
@@ -271,11 +275,11 @@ export function levenbergMarquardt(
   let fnorm = residualNorm(problem, x, residuals);
 
   const finish = (status: LeastSquaresStatus, message: string, jacobianCurrent: boolean): LeastSquaresResult => {
-    let jacobian = w.rowJacobian;
-    if (!jacobianCurrent && fnorm < Infinity && !options.skipFinalJacobian) {
-      problem.jacobian(x, jacobian);
+    let jacobian = NO_JACOBIAN;
+    if (!options.skipFinalJacobian) {
+      if (!jacobianCurrent && fnorm < Infinity) problem.jacobian(x, w.rowJacobian);
+      jacobian = w.rowJacobian.slice();
     }
-    jacobian = jacobian.slice();
     releaseWorkspace(n, m, w);
     const converged = status !== 'max-evaluations' && status !== 'failed';
     return {
