@@ -91,9 +91,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const { models, bootstrap } = addIntervals(rankModels(fits, data, level), data, table.units, {
     level,
     profile: options.profile,
-    profileModels: options.detail === 'summary' ? 'leading' : 'all',
-    jointRegion: options.detail !== 'summary',
-    profileFigures: options.detail !== 'summary',
+    detail: options.detail,
     bootstrap: options.bootstrap,
     atSubstrate: options.atSubstrate,
     onProgress: options.onProgress,

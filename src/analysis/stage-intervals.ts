@@ -37,7 +37,7 @@ import { distinctLevels } from '../input/distinct-levels.js';
 export const DRAWN_PROFILES = ['Ki', 'Kiu'] as const;
 
 /**
- * The profiles a summary reads ('leading' models): the inhibition constants, whose intervals a
+ * The profiles a summary reads (detail 'summary', of the models the verdict can name): the inhibition constants, whose intervals a
  * batch summary row gives and whose lower ends the detection caveat uses; alpha, whose interval
  * the verdict reads; Km, whose interval sets the prior of a follow-up plan (src/plan/follow-up.ts).
  * Vmax is read as a value only, so its profile is left out.
@@ -57,17 +57,14 @@ interface IntervalOptions {
   /** profile-likelihood intervals and curves; default true */
   profile?: boolean;
   /**
-   * which models get profiles: 'all' (default) or 'leading': every model the verdict can name
-   * (the best-ranked model, the best three-parameter model, mixed, whose alpha interval the verdict
-   * reads, and no inhibition), and of those only SUMMARY_PROFILES; the others keep their Wald
-   * intervals. Batch runs without reports use 'leading', so their summary rows equal those of a
-   * full analysis.
+   * 'full' (default): profiles of every parameter of every model, the DRAWN_PROFILES curves
+   * completed for the figures (a point beyond each closed end) and the joint (Ki, Kiu) region of
+   * mixed. 'summary': profiles only of the models the verdict can name (the best-ranked model, the
+   * best three-parameter model, mixed, whose alpha interval the verdict reads, and no inhibition),
+   * and of those only SUMMARY_PROFILES; the others keep their Wald intervals; no region. Batch
+   * runs without reports use 'summary', so their summary rows equal those of a full analysis.
    */
-  profileModels?: 'all' | 'leading';
-  /** the joint (Ki, Kiu) region of mixed, for the report's figure; default true */
-  jointRegion?: boolean;
-  /** the DRAWN_PROFILES curves completed for the figures (a point beyond each closed end); default true */
-  profileFigures?: boolean;
+  detail?: 'full' | 'summary';
   bootstrap?: BootstrapRequest;
   /** [S] at which to give the IC50 */
   atSubstrate?: number;
@@ -93,14 +90,11 @@ export function addIntervals(ranked: readonly ModelResult[], data: FitData, unit
   if (options.profile !== false) {
     const bestThree = models.find((m) => m.p === 3 && m.mechanism !== 'mixed');
     const leading = (m: ModelResult) => m === models[0] || m === bestThree || m.mechanism === 'mixed' || m.mechanism === 'none';
+    const summary = options.detail === 'summary';
     for (const model of models) {
       if (!usable(model.fit)) continue;
-      if (options.profileModels === 'leading' && !leading(model)) continue;
-      const found = profileAllOfFit(model.fit, data, {
-        level,
-        beyondEnds: options.profileFigures !== false ? DRAWN_PROFILES : [],
-        ...(options.profileModels === 'leading' ? { only: SUMMARY_PROFILES } : {}),
-      });
+      if (summary && !leading(model)) continue;
+      const found = profileAllOfFit(model.fit, data, summary ? { level, only: SUMMARY_PROFILES } : { level, beyondEnds: DRAWN_PROFILES });
       profiles.set(model, found);
       model.profiles = found.map((p) => p.curve);
       for (const e of model.estimates) {
@@ -114,7 +108,7 @@ export function addIntervals(ranked: readonly ModelResult[], data: FitData, unit
           e.note = `${e.note ? e.note + '; ' : ''}Wald interval withheld: the profile interval is open, so the data do not bound ${e.name} on that side`;
         }
       }
-      if (model.mechanism === 'mixed' && options.jointRegion !== false) {
+      if (model.mechanism === 'mixed' && !summary) {
         const region = jointRegionKiKiu(model.fit, data, { level });
         if (region) model.jointRegion = region;
       }
