@@ -37,10 +37,10 @@ import { distinctLevels } from '../input/distinct-levels.js';
 export const DRAWN_PROFILES = ['Ki', 'Kiu'] as const;
 
 /**
- * The profiles a summary reads (detail 'summary', of the models the verdict can name): the inhibition constants, whose intervals a
- * batch summary row gives and whose lower ends the detection caveat uses; alpha, whose interval
- * the verdict reads; Km, whose interval sets the prior of a follow-up plan (src/plan/follow-up.ts).
- * Vmax is read as a value only, so its profile is left out.
+ * The profiles a summary reads (detail 'summary', of the models the verdict can name): the
+ * inhibition constants, whose intervals a batch summary row gives and whose lower ends the
+ * detection caveat uses; alpha, whose interval the verdict reads; Km, whose interval sets the prior
+ * of a follow-up plan (src/plan/follow-up.ts). Vmax is read as a value only: no profile.
  */
 export const SUMMARY_PROFILES = ['Km', 'Ki', 'Kiu', 'alpha'] as const;
 
