@@ -3,7 +3,8 @@
  * Compares two golden sets (scripts/golden-set.mjs): how many files are byte-identical, the
  * largest relative change of every numeric field (paths with array indices folded), and every
  * non-numeric difference: a string, a code, a verdict, an array length or a line of the text
- * summary. Exit code 1 when there is any non-numeric difference.
+ * summary. Exit code 1 when there is any non-numeric difference, or when an analysis of either set
+ * threw (its record holds the error, so nothing of it could be compared).
  *
  *   node scripts/golden-compare.mjs BEFORE_FOLDER AFTER_FOLDER
  *   GOLDEN_PATH='text summary' node scripts/golden-compare.mjs ...   (list only differences whose path contains it)
@@ -41,9 +42,12 @@ function walk(x, y, path, file) {
   for (const k of new Set([...Object.keys(x), ...Object.keys(y)])) walk(x[k], y[k], Array.isArray(x) ? `${path}[${k}]` : `${path}.${k}`, file);
 }
 
+const failed = [];
 for (const file of files) {
   const a = readFileSync(join(before, file), 'utf8');
   const b = readFileSync(join(after, file), 'utf8');
+  // an analysis that threw compares nothing: it is a failure of the set, not an agreement
+  for (const [side, text] of [['before', a], ['after', b]]) if ('error' in JSON.parse(text)) failed.push(`${side}/${file}`);
   if (a === b) {
     identical++;
     continue;
@@ -69,4 +73,5 @@ for (const d of other) {
 }
 for (const [key, count] of [...byPath].sort((p, q) => q[1] - p[1])) console.log(`  ${count} x ${key}`);
 for (const d of other.filter((o) => process.env.GOLDEN_PATH === undefined || o.path.includes(process.env.GOLDEN_PATH)).slice(0, 40)) console.log(`  ${d.file} ${d.path}\n    - ${d.x}\n    + ${d.y}`);
-process.exit(other.length > 0 ? 1 : 0);
+if (failed.length > 0) console.log(`analyses that threw (nothing compared): ${failed.length}\n  ${failed.slice(0, 10).join('\n  ')}`);
+process.exit(other.length > 0 || failed.length > 0 ? 1 : 0);

@@ -50,7 +50,8 @@ for (const [designName, design] of Object.entries(designs)) {
   }
 }
 for (const file of ['data/demo/hlx-amidase-kt0417.csv', 'examples/long.csv', 'examples/matrix.csv', 'examples/long.tsv']) {
-  cases.push({ name: file.replace(/\W/g, '_'), table: lib.readRateFile(join(root, file)).table });
+  const tables = await lib.readRateFile(join(root, file));
+  cases.push({ name: file.replace(/\W/g, '_'), table: tables[0] });
 }
 const settings = { auto: {}, constant: { errorModel: 'constant' }, summary: { detail: 'summary' } };
 for (const { name, table } of cases) {
