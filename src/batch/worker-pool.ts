@@ -148,13 +148,26 @@ function runOnWorkers(
       while (next < jobs.length) runHere(next++);
     };
 
+    // Node refuses to start a worker with some of the parent's options: V8 flags (--maglev,
+    // --max-old-space-size; a worker's heap is set by WORKER_LIMITS instead) and process-wide ones
+    // (ERR_WORKER_INVALID_EXEC_ARGV). The workers then start without the parent's options.
+    let execArgv = workerExecArgv();
+    const newWorker = (): Worker => {
+      try {
+        return new Worker(script, { workerData: options.settings, execArgv, resourceLimits: WORKER_LIMITS });
+      } catch (error) {
+        if (execArgv.length === 0 || (error as { code?: string }).code !== 'ERR_WORKER_INVALID_EXEC_ARGV') throw error;
+        execArgv = [];
+        return new Worker(script, { workerData: options.settings, execArgv, resourceLimits: WORKER_LIMITS });
+      }
+    };
+
     const start = () => {
       let worker: Worker;
       try {
-        worker = new Worker(script, { workerData: options.settings, execArgv: workerExecArgv(), resourceLimits: WORKER_LIMITS });
+        worker = newWorker();
       } catch (error) {
-        // Node refuses to start a worker with some of the parent's options (a V8 flag such as
-        // --maglev: ERR_WORKER_INVALID_EXEC_ARGV); the compounds then run as when a worker dies at once.
+        // a worker that cannot start at all: its compounds run as when a worker dies at once
         workerProblem ??= `a worker thread could not be started (${error instanceof Error ? error.message : String(error)})`;
         drainIfAlone();
         return;
