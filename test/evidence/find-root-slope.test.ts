@@ -62,6 +62,16 @@ describe('findRootWithSlope', () => {
     expect(Math.abs(r.x - Math.cbrt(2))).toBeLessThan(1e-11);
   });
 
+  for (const factor of [10, 1000, 1e6]) {
+    it(`a slope ${factor} times too steep still gives the root to the tolerance (x - 0.3 on [0, 1], far end known and unknown)`, () => {
+      const { g, at } = counted((x) => x - 0.3, () => factor);
+      for (const far of [at(1), null]) {
+        const r = findRootWithSlope(g, at(0), 1, far, 1e-8);
+        expect(r.status).toBe('root');
+        expect(Math.abs(r.x - 0.3)).toBeLessThan(2e-8);
+      }
+    });
+  }
   it('stops once the quadratic model puts the next Newton point within the tolerance (x^2 - 2 from 1.4)', () => {
     // Newton from 1.4: 1.4142857 (step 1.4e-2), then a step of 7.2e-5 whose error is about
     // (f''/2f') d^2 = 1.8e-9 < 1e-7 / 8: that point is returned without being evaluated.

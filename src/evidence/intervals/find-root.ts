@@ -1,5 +1,8 @@
 /**
- * A bracketed root of a continuous function by Brent's method: bisection, secant and inverse
+ * Roots in a bracket: findRoot by Brent's method (no derivative), and findRootWithSlope by
+ * safeguarded Newton steps where f' is known (the profile ends and the joint region's rays).
+ *
+ * findRoot: a bracketed root of a continuous function by Brent's method: bisection, secant and inverse
  * quadratic interpolation combined so that each step at least halves the bracket every few steps
  * (Brent, R. P. (1973) Algorithms for Minimization without Derivatives, Prentice-Hall, ch. 4,
  * procedure zero).
@@ -113,8 +116,8 @@ interface SlopeRootResult {
 
 /**
  * A root of f in [a.x, b] by Newton's method safeguarded with bisection: a Newton step is taken from
- * the latest point when it stays inside the current bracket and is at most half the step before
- * last; otherwise the bracket is halved. This is rtsafe of Press, W. H. et al. (2007) Numerical
+ * the latest point when it stays inside the current bracket, is at most half the step before
+ * last, and the Newton step before it was not slow (SLOW_NEWTON); otherwise the bracket is halved. This is rtsafe of Press, W. H. et al. (2007) Numerical
  * Recipes, 3rd ed., Cambridge University Press, sec. 9.4 (written from memory), with two changes:
  * the iteration starts from the end with the smaller |f| instead of the middle (so the first Newton
  * step may span the whole interval), and f(b) may be unknown (`fb` null). Then b is evaluated only
@@ -126,8 +129,9 @@ interface SlopeRootResult {
  * method near a simple root, and the linear one left by a relative slope error e). f'' comes from
  * the slopes at the last two points, when they lie within CURVATURE_SPAN, and e from the gap
  * between their secant and the mean of their slopes. The returned x is the point after that step,
- * which is not evaluated.
- * The derivative only steers the steps: a wrong df costs evaluations, never a wrong root.
+ * which is not evaluated. Either stop on a Newton step also needs the slope confirmed by that
+ * secant (e at most TRUSTED_SLOPE_ERROR), and a Newton step that leaves |f| above SLOW_NEWTON of
+ * where it was is followed by bisection: a wrong df costs evaluations, not the root.
  */
 export function findRootWithSlope(
   f: (x: number) => SlopePoint,
@@ -152,11 +156,15 @@ export function findRootWithSlope(
   let before: SlopePoint | null = fb === null ? null : current === fb ? a : fb;
   let stepBefore = 2 * Math.abs(b - a.x);
   let step = stepBefore;
+  // the last Newton step left |f| above SLOW_NEWTON of where it was (a wrong slope, or a root
+  // that is not simple): the next step is not Newton's
+  let slow = false;
   for (;;) {
     const lo = Math.min(xa, xb);
     const hi = Math.max(xa, xb);
     const newton = usable(current) ? current.x - current.f / current.df : NaN;
-    const newtonFits = newton > lo && newton < hi && Math.abs(2 * current.f) <= Math.abs(stepBefore * current.df);
+    const newtonFits: boolean = !slow && newton > lo && newton < hi && Math.abs(2 * current.f) <= Math.abs(stepBefore * current.df);
+    slow = false;
     let next: number;
     if (newtonFits) {
       stepBefore = step;
@@ -177,22 +185,22 @@ export function findRootWithSlope(
       step = 0.5 * (xb - xa);
       next = xa + step;
     }
-    if (Math.abs(step) <= tolerance + 2 * Number.EPSILON * Math.abs(next)) return done('root', next);
+    if (Math.abs(step) <= tolerance + 2 * Number.EPSILON * Math.abs(next) && (!newtonFits || slopeError(current, before) <= TRUSTED_SLOPE_ERROR)) return done('root', next);
     if (newtonFits && before && usable(before) && Math.abs(step) <= NEWTON_MODEL_STEP && Math.abs(current.x - before.x) <= CURVATURE_SPAN) {
       // Newton's error after this step is about K step^2, K = |f''| / (2 |f'|), with f'' from the
       // slopes at the last two points (close enough to measure the curvature where the root is),
       // plus e |step| for a relative error e of the slope, seen as the gap between the secant and
       // the mean of the two slopes: stop when that is well inside the tolerance.
-      const h = current.x - before.x;
-      const k = Math.abs((current.df - before.df) / h) / (2 * Math.abs(current.df));
-      const e = Math.abs((current.f - before.f) / h - 0.5 * (current.df + before.df)) / Math.abs(current.df);
-      if (k * step * step + e * Math.abs(step) <= tolerance / 8) return done('root', next);
+      const k = Math.abs((current.df - before.df) / (current.x - before.x)) / (2 * Math.abs(current.df));
+      const e = slopeError(current, before);
+      if (e <= TRUSTED_SLOPE_ERROR && k * step * step + e * Math.abs(step) <= tolerance / 8) return done('root', next);
     }
     if (evaluations >= maxEvaluations) return done('limit', current.x);
     const point = f(next);
     evaluations++;
     if (point.f === 0) return done('root', next);
     if (!Number.isFinite(point.f)) return done('not-finite', next);
+    slow = newtonFits && Math.abs(point.f) > SLOW_NEWTON * Math.abs(current.f);
     before = current;
     if (Math.sign(point.f) === signA) xa = next;
     else {
@@ -203,10 +211,34 @@ export function findRootWithSlope(
   }
 }
 
+/**
+ * A Newton step that leaves |f| above this share of where it was is slow (a slope far too steep
+ * crawls towards the root by 1 - 1/k a step): the next step bisects, or looks at the far end.
+ */
+const SLOW_NEWTON = 0.9;
+
 /** Largest Newton step whose error is judged from the quadratic model (|f''| / (2 |f'|) step^2). */
 const NEWTON_MODEL_STEP = 1e-3;
 /** Largest distance between the two points whose slopes give f'' for that judgement. */
 const CURVATURE_SPAN = 1e-2;
+
+/**
+ * Relative error of the slope at `current`, as the gap between the secant through the last two
+ * points (which does not rest on the reported slopes) and the mean of their slopes; Infinity
+ * without a point before.
+ */
+function slopeError(current: SlopePoint, before: SlopePoint | null): number {
+  if (before === null || !usable(before)) return Infinity;
+  const secant = (current.f - before.f) / (current.x - before.x);
+  const e = Math.abs(secant - 0.5 * (current.df + before.df)) / Math.abs(current.df);
+  return Number.isFinite(e) ? e : Infinity;
+}
+
+/**
+ * Largest slope error (slopeError) with which a short Newton step may end the search: a slope k
+ * times too steep would otherwise stop it up to k tolerances from the root.
+ */
+const TRUSTED_SLOPE_ERROR = 0.5;
 
 function usable(p: SlopePoint): boolean {
   return Number.isFinite(p.f) && Number.isFinite(p.df) && p.df !== 0;
