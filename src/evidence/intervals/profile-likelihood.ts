@@ -256,13 +256,15 @@ export function profileTausAt(fit: MechanismFit, data: FitData, name: ProfiledNa
   // when the estimate lies beyond it (an arm far past its detection bound, where the profile is
   // flat and steps of TEST_WALK_STEP would repeat the same refit dozens of times).
   const c0 = Math.min(ev.support.high, Math.max(ev.support.low, ev.cHat));
-  const origin = { c: c0, z: c0 === ev.cHat ? ev.zHat : ev.evaluate(c0, ev.zHat).z };
+  let origin: { c: number; z: Float64Array } | null = null;
   for (const direction of [-1, 1] as const) {
     const order = values
       .map((v, k) => ({ k, c: v > 0 ? Math.log(v) : NaN }))
       .filter((x) => Number.isFinite(x.c) && direction * (x.c - ev.cHat) > 0)
       .sort((a, b) => direction * (a.c - b.c));
-    let at = origin;
+    // the edge is a start only for the walk towards the support; the other walk leaves from the estimate
+    let at = { c: ev.cHat, z: ev.zHat };
+    if (direction * (c0 - ev.cHat) > 0 && order.length > 0) at = origin ??= { c: c0, z: ev.evaluate(c0, ev.zHat).z };
     for (const { k, c } of order) {
       let point: ProfilePoint | null = null;
       while (direction * (c - at.c) > 0) {
