@@ -97,6 +97,8 @@ interface ProfilePoint {
   theta: Float64Array;
   /** weighted residuals at the constrained optimum (for the slope) */
   residuals: Float64Array;
+  /** dtau/dc once computed (slopeOf) */
+  slope?: number;
 }
 
 const MAX_STEPS = 80;
@@ -230,8 +232,9 @@ function profileEvaluator(ctx: FitContext, name: ProfiledName, fitOptions: Least
   };
   // tau^2 = (S - S_hat) / s^2, so dtau/dc = (dS/dc) / (2 s^2 tau), with dS/dc from heldSlope
   const jacobian = new Float64Array(ctx.full.n * q.m);
+  // a walk step's start is the far point of the step before, whose slope that step's search used
   const slopeOf = (point: ProfilePoint): number =>
-    point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q.fixedCoefficient, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau);
+    (point.slope ??= point.tau === 0 || !Number.isFinite(point.sse) ? NaN : heldSlope(ctx.full, q.fixedCoefficient, point.theta, point.residuals, jacobian) / (2 * ctx.s2 * point.tau));
   return { q, support, cHat, zHat, evaluate, slopeOf, evaluations: () => evaluations, lowerSseSeen: () => lowerSseSeen };
 }
 
