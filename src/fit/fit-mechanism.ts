@@ -205,12 +205,18 @@ export function parameterLogScales(model: MechanismModel, data: FitData): Float6
  */
 const SCREENING: LeastSquaresOptions = { ftol: 1e-8, xtol: 1e-8, gtol: 1e-10, skipFinalJacobian: true };
 
+/**
+ * The final solves, at the engine's default tolerances. The fit's Jacobian at the solution is built
+ * by assembleFit, so the engine need not evaluate and copy one.
+ */
+const POLISH: LeastSquaresOptions = { skipFinalJacobian: true };
+
 function runStarts(problem: LeastSquaresProblem, starts: Float64Array[]): { best: LeastSquaresResult; reaching: number } {
   const results = starts.map((x0) => levenbergMarquardt(problem, x0, SCREENING));
   let best = results[0];
   for (const r of results) if (isBetter(r, best)) best = r;
   const reaching = results.filter((r) => Math.abs(r.sse - best.sse) <= 1e-6 * Math.max(best.sse, 1e-300)).length;
-  const polished = levenbergMarquardt(problem, best.x);
+  const polished = levenbergMarquardt(problem, best.x, POLISH);
   return { best: isBetter(best, polished) ? best : polished, reaching };
 }
 
@@ -341,7 +347,7 @@ const PULLED_IN_SPAN = 10;
  * (where the column is small but not zero) lets the other parameters move; the lower SSE is kept.
  */
 function refitFrom(problem: LeastSquaresProblem, x: Float64Array, logScale: Float64Array): LeastSquaresResult {
-  const result = levenbergMarquardt(problem, x);
+  const result = levenbergMarquardt(problem, x, POLISH);
   let pulled: Float64Array | null = null;
   for (let j = 0; j < x.length; j++) {
     const offset = x[j] - logScale[j];
@@ -351,7 +357,7 @@ function refitFrom(problem: LeastSquaresProblem, x: Float64Array, logScale: Floa
     }
   }
   if (!pulled) return result;
-  const second = levenbergMarquardt(problem, pulled);
+  const second = levenbergMarquardt(problem, pulled, POLISH);
   return isBetter(second, result) ? second : result;
 }
 
