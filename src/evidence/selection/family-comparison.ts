@@ -22,7 +22,7 @@
  *    (profile low end above BETA_FLOOR).
  */
 import type { Mechanism, ModelFamily } from '../../models/types.js';
-import type { Verdict } from '../verdict/verdict.js';
+import { RIVAL_DELTA, type Verdict } from '../verdict/verdict.js';
 import type { Advice, ConstantFinding, VerdictHeadline, VerdictReason } from '../verdict/verdict-findings.js';
 import type { Caveat } from '../verdict/caveat.js';
 import type { ParameterEstimate } from '../intervals/wald-estimates.js';
@@ -32,8 +32,6 @@ import { BETA_FLOOR } from '../intervals/profile-support.js';
 export const TIGHT_BINDING_RATIO = 10;
 export const FAMILY_LEVEL = 0.01;
 export const PARTIAL_AICC_MARGIN = 2;
-/** AICc difference within which a simpler partial model stays a rival (Burnham & Anderson 2002, sec. 2.6). */
-const PARTIAL_RIVAL_DELTA = 4;
 
 /** The view of one fitted model this module needs. */
 export interface FamilyModelEvidence {
@@ -233,8 +231,9 @@ export function partialWinner(ranked: readonly FamilyModelEvidence[], partial: P
   const kept = simpler.filter((m) => !(mixed && mixed.aicc < m.aicc && (partial.withinFamily[m.id]?.p ?? 1) < FAMILY_LEVEL));
   if (kept.length === 0 && mixed) return { model: mixed, decisive: true, reasons: [{ code: 'partial-mixed-beats-simpler', level: FAMILY_LEVEL }] };
   const model = kept[0] ?? ranked[0];
-  const rival = kept.find((m) => m !== model && m.aicc - model.aicc < PARTIAL_RIVAL_DELTA);
-  if (rival) return { model, decisive: false, reasons: [{ code: 'partial-rival', rival: rival.id, delta: PARTIAL_RIVAL_DELTA }] };
+  // a simpler partial model within RIVAL_DELTA stays a rival, as a classic mechanism does
+  const rival = kept.find((m) => m !== model && m.aicc - model.aicc < RIVAL_DELTA);
+  if (rival) return { model, decisive: false, reasons: [{ code: 'partial-rival', rival: rival.id, delta: RIVAL_DELTA }] };
   return { model, decisive: true, reasons: mixed && model !== mixed ? [{ code: 'partial-mixed-not-better', model: model.id, level: FAMILY_LEVEL }] : [] };
 }
 
