@@ -9,8 +9,9 @@
  * the Wald covariance. Weights are fixed at the solution, as for the profiles.
  *
  * The outline is traced on rays from the estimate in (ln Ki, ln Kiu), each ray scaled by the Wald
- * SEs so that the angles spread evenly over the region. Along the first ray, step outward until the
- * profiled SSE passes the threshold; every later ray starts at its neighbour's crossing. The
+ * SEs so that the angles spread evenly over the region. Along the first ray (and after a ray that
+ * left the box), step outward until the profiled SSE passes the threshold; every other ray starts
+ * at its neighbour's crossing. The
  * crossing is then found by safeguarded Newton steps on the distance statistic, whose slope along
  * the ray comes from one Jacobian at each constrained optimum (envelope theorem; find-root.ts,
  * findRootWithSlope). A ray that reaches the edge of the searched box (profile-support.ts: up to
