@@ -132,7 +132,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   // The classic verdict, once, from all the evidence gathered above.
   const classicVerdict = verdictFrom(models, nested, caveats, {
     ...evidence,
-    ...(choice.automatic ? { leadingReasons: [choice.reason] } : {}),
+    ...(choice.reason ? { leadingReasons: [choice.reason] } : {}),
     ...(noiseFree ? {} : { inhibitorReach: () => inhibitorReach(models, data) }),
   });
 
@@ -191,8 +191,8 @@ interface ErrorModelChoice {
   errorModel: ErrorModel;
   fits: MechanismFit[];
   automatic: boolean;
-  /** for 'auto': the reason that leads the verdict (which error model, by how much) */
-  reason: VerdictReason;
+  /** for 'auto': the reason that leads the verdict (which error model, by how much); null for a requested one */
+  reason: VerdictReason | null;
   scores: Array<{ errorModel: ErrorModel; bestAicc: number }>;
 }
 
@@ -204,8 +204,7 @@ interface ErrorModelChoice {
 function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechanisms: readonly MechanismModel[]): ErrorModelChoice {
   if (requested !== 'auto') {
     const fits = fitAllMechanisms(data, requested, mechanisms);
-    const reason: VerdictReason = { code: 'error-model-chosen', chosen: requested, runnerUp: null, aiccMargin: null };
-    return { errorModel: requested, fits, automatic: false, reason, scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
+    return { errorModel: requested, fits, automatic: false, reason: null, scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
   }
   const { usable } = candidateErrorModels(data);
   const tried = usable.map((em) => ({ errorModel: em, fits: fitAllMechanisms(data, em, mechanisms) }));
