@@ -13,6 +13,7 @@ import { renderXYFigure } from './xy-figure.js';
 import { withUnit } from './axis-units.js';
 import { drawMarkers, drawPolyline, grid, BEST_LINE_WIDTH, RUNNER_UP_DASH, RUNNER_UP_LINE_WIDTH } from './model-lines.js';
 import { INK } from './palette.js';
+import { maxInhibitor } from '../fit/fit-data.js';
 import type { ModelResult } from '../analysis/types.js';
 
 /** v/v0 of a fitted model at (S, I), both from its own rate function; e is [E]t for models that read it. */
@@ -29,7 +30,7 @@ export function fractionalActivityFigures(ctx: FigureContext): FigureOutput[] {
   const drawn = called ?? r.familyModels[0];
   const e = r.enzyme && r.enzyme !== 'fitted' ? r.enzyme.value : undefined;
   const data = r.data;
-  const iMax = data.i.reduce((a, b) => Math.max(a, b), -Infinity); // no spread: a table can hold a million points
+  const iMax = maxInhibitor(data);
   const xs = grid(0, iMax * 1.04, 120);
   const ratio = Float64Array.from(data.v, (v, k) => v / drawn.fit.model.rate(drawn.fit.params, data.s[k], 0, data.e?.[k] ?? e));
   const yTop = ratio.reduce((top, x) => (Number.isFinite(x) ? Math.max(top, x) : top), 1.15) * 1.04;

@@ -9,6 +9,7 @@ import type { FigureOutput } from './figure-output.js';
 import { renderXYFigure } from './xy-figure.js';
 import { paddedExtent } from './axes.js';
 import { withUnit } from './axis-units.js';
+import { maxSubstrate } from '../fit/fit-data.js';
 import { drawMarkers, drawPolyline, grid, modelLineKey, BEST_LINE_WIDTH, RUNNER_UP_DASH, RUNNER_UP_LINE_WIDTH } from './model-lines.js';
 import { modelName, ownRate } from './figure-context.js';
 import type { LegendItem } from './legend.js';
@@ -20,7 +21,7 @@ export function inhibitorSeriesKey(ctx: FigureContext): LegendItem[] {
 
 export function rateCurvesFigure(ctx: FigureContext, logSubstrate: boolean): FigureOutput {
   const { data } = ctx.result;
-  const sMax = data.s.reduce((a, b) => Math.max(a, b), -Infinity); // no spread: a table can hold a million points
+  const sMax = maxSubstrate(data);
   const xDomain: [number, number] = logSubstrate ? paddedExtent(data.s, 0.05, true) : [0, sMax * 1.04];
   const yDomain: [number, number] = [0, data.v.reduce((a, b) => Math.max(a, b), 0) * 1.06];
   const xs = logSubstrate ? grid(xDomain[0], xDomain[1], 80, true) : grid(0, xDomain[1], 80);
