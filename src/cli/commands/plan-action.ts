@@ -16,7 +16,7 @@ import { checkOutputFolder, checkReplaceableReportFolder } from '../../report/ou
 import { UsageError } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { integerOption, numberList, numberOption, positiveNumber } from '../parse-option-values.js';
-import { progressBar } from '../progress-bar.js';
+import { cliProgressBar } from '../progress-bar.js';
 import { readFile } from 'node:fs/promises';
 import { readRateFile } from '../../input/index.js';
 import { analyzeTable } from '../../analysis/analyze-table.js';
@@ -201,7 +201,7 @@ export async function runPlan(io: CliIo, o: PlanCliOptions): Promise<void> {
     checkReplaceableReportFolder(dir, o.out!);
   }
   const request = planRequestFrom(o, o.from ? await readFollowUp(o, io.cwd) : undefined);
-  const bar = io.errIsTTY && request.simulations > 0 ? progressBar('simulating') : null;
+  const bar = io.errIsTTY && request.simulations > 0 ? cliProgressBar(io, 'simulating') : null;
   if (bar) request.onProgress = (done, total) => bar.update(done, total);
   let plan;
   try {
@@ -217,7 +217,7 @@ export async function runPlan(io: CliIo, o: PlanCliOptions): Promise<void> {
   const text = planText(plan);
   const json = JSON.stringify(planJson(plan), null, 2) + '\n';
   if (dir !== null) {
-    // the page and figure code (d3 on a DOM) is loaded only when a page is written
+    // the page and figure code (d3 and the element tree) is loaded only when a page is written
     const { planFigures } = await import('../../plan/plan-figures.js');
     const { planPage } = await import('../../plan/plan-page.js');
     const figures = planFigures(plan, wellsCurve(request));
