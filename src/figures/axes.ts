@@ -4,7 +4,7 @@
  * so every SVG stands alone.
  */
 import * as d3 from 'd3';
-import { appendRawElement, escapeText, type Group } from './svg-document.js';
+import { escapeText, type Group } from './svg-document.js';
 import { INK } from './palette.js';
 import { FONT, textWidth } from './text-metrics.js';
 
@@ -197,9 +197,9 @@ interface AxesOptions {
 
 /** Draws the x axis at the bottom and the y axis on the left of a plot area of size (w, h). */
 export function drawAxes(g: Group, x: NumericScale, y: NumericScale, xSpec: AxisSpec, ySpec: AxisSpec, w: number, h: number, options: AxesOptions = {}): void {
-  appendRawElement(g, axisMarkup('bottom', x, ticksOf(x, xSpec), (d) => tickLabel(Number(d)), `class="axis x" transform="translate(0,${h})"`));
+  g.appendMarkup(axisMarkup('bottom', x, ticksOf(x, xSpec), (d) => tickLabel(Number(d)), `class="axis x" transform="translate(0,${h})"`));
   const showYLabels = options.yLabels ?? true;
-  appendRawElement(g, axisMarkup('left', y, ticksOf(y, ySpec), (d) => (showYLabels ? tickLabel(Number(d)) : ''), 'class="axis y"'));
+  g.appendMarkup(axisMarkup('left', y, ticksOf(y, ySpec), (d) => (showYLabels ? tickLabel(Number(d)) : ''), 'class="axis y"'));
   if (options.xTitle ?? true) {
     g.append('text')
       .attr('class', 'axis-title')

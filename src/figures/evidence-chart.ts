@@ -8,7 +8,7 @@ import * as d3 from 'd3';
 import type { FigureContext } from './figure-context.js';
 import type { FigureOutput } from './figure-output.js';
 import type { Group } from './svg-document.js';
-import { appendRawElement, serialiseSvg } from './svg-document.js';
+import { serialiseSvg } from './svg-document.js';
 import { startFigure, drawNotes, notesHeight, EDGE } from './xy-figure.js';
 import { COLUMN_WIDTH, axisMarkup, tickLabel, type NumericScale } from './axes.js';
 import { INK } from './palette.js';
@@ -31,7 +31,7 @@ function weightText(w: number): string {
  * family, the axis colour, label ink) without the plots' thin line widths.
  */
 function panelAxis(panel: Group, scale: NumericScale, values: readonly number[], y: number): void {
-  appendRawElement(panel, axisMarkup('bottom', scale, values, tickLabel, `transform="translate(0,${y})"`, { tickSizeOuter: 0, tickPadding: 3, printWidths: false }));
+  panel.appendMarkup(axisMarkup('bottom', scale, values, tickLabel, `transform="translate(0,${y})"`, { tickSizeOuter: 0, tickPadding: 3, printWidths: false }));
 }
 
 export function evidenceFigure(ctx: FigureContext): FigureOutput {

@@ -25,25 +25,18 @@ const MARKER_SHAPES: readonly MarkerShape[] = [
 /** Marker area in square user units (1 unit = 1 pt at print size): about 4.5 pt across. */
 const MARKER_AREA = 17;
 
+/** Marker paths made so far, by shape and area (every figure draws the same few). */
 const pathCache = new Map<string, string>();
-/** the paths at the default area, by shape index (the markers of every figure) */
-const defaultPaths: Array<string | undefined> = [];
 
 /** The SVG path data of the marker for series k, centred on the origin. */
 export function markerPath(k: number, area = MARKER_AREA): string {
-  const index = k % MARKER_SHAPES.length;
-  if (area === MARKER_AREA) {
-    const known = defaultPaths[index];
-    if (known !== undefined) return known;
-  }
-  const shape = MARKER_SHAPES[index];
+  const shape = MARKER_SHAPES[k % MARKER_SHAPES.length];
   const key = `${shape.name}:${area}`;
   let d = pathCache.get(key);
   if (d === undefined) {
     d = d3.symbol(shape.symbol, area)() ?? '';
     pathCache.set(key, d);
   }
-  if (area === MARKER_AREA) defaultPaths[index] = d;
   return d;
 }
 

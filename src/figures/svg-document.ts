@@ -67,7 +67,10 @@ export class SvgElement {
     return this;
   }
 
-  /** Appends markup written as text, which must be exactly what the element tree would serialise. */
+  /**
+   * Appends markup written as text (the axes, src/figures/axes.ts): it must be exactly what the
+   * element tree would serialise, and may hold only numbers, fixed names and escaped text.
+   */
   appendMarkup(markup: string): void {
     this.children.push(markup);
   }
@@ -115,14 +118,6 @@ export function createSvg(spec: { id: string; width: number; height: number; tit
  */
 export function appendRawLayer(parent: SvgElement, className: string, markup: string): void {
   parent.appendMarkup(`<g class="${className}">${markup}</g>`);
-}
-
-/**
- * A whole element written as text (the axes, src/figures/axes.ts). The markup must be exactly what
- * the element tree would have serialised, and may hold only numbers, fixed names and escaped text.
- */
-export function appendRawElement(parent: SvgElement, markup: string): void {
-  parent.appendMarkup(markup);
 }
 
 /** A finished figure as standalone SVG markup (the root carries its xmlns attribute, createSvg). */
