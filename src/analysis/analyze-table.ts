@@ -34,6 +34,8 @@ import { familyCallFor } from './family-call.js';
 export interface AnalysisOptions {
   /** error model, or 'auto' (the default) to choose by likelihood among those the rates allow */
   errorModel?: ErrorModel | 'auto';
+  /** with 'auto': choose only among these (of those the rates allow); default all of them */
+  autoAmong?: readonly ErrorModel[];
   /** confidence level for intervals; default 0.95 */
   level?: number;
   /** mechanisms to compare; default all five */
@@ -85,7 +87,7 @@ export function analyzeTable(table: RateTable, options: AnalysisOptions = {}): A
   const requested = options.errorModel ?? 'auto';
   checkErrorModelApplies(requested, data);
 
-  const choice = chooseErrorModel(requested, data, mechanisms);
+  const choice = chooseErrorModel(requested, data, mechanisms, options.autoAmong);
   const errorModel = choice.errorModel;
   const fits = choice.fits;
   const { models, bootstrap } = addIntervals(rankModels(fits, data, level), data, table.units, {
@@ -201,12 +203,13 @@ interface ErrorModelChoice {
  * and keeps the one whose best mechanism has the lowest AICc (likelihoods are comparable across
  * error models, src/fit/error-models.ts).
  */
-function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechanisms: readonly MechanismModel[]): ErrorModelChoice {
+function chooseErrorModel(requested: ErrorModel | 'auto', data: FitData, mechanisms: readonly MechanismModel[], among?: readonly ErrorModel[]): ErrorModelChoice {
   if (requested !== 'auto') {
     const fits = fitAllMechanisms(data, requested, mechanisms);
     return { errorModel: requested, fits, automatic: false, reason: null, scores: [{ errorModel: requested, bestAicc: bestAiccOf(fits) }] };
   }
-  const { usable } = candidateErrorModels(data);
+  const usable = candidateErrorModels(data).usable.filter((em) => !among || among.includes(em));
+  if (usable.length === 0) throw new AnalysisError(`none of the error models ${among!.join(', ')} can be used on these rates`);
   const tried = usable.map((em) => ({ errorModel: em, fits: fitAllMechanisms(data, em, mechanisms) }));
   const scores = tried.map((t) => ({ errorModel: t.errorModel, bestAicc: bestAiccOf(t.fits) }));
   const order = [...scores].sort((a, b) => a.bestAicc - b.bestAicc);

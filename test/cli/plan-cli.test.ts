@@ -115,6 +115,20 @@ describe('mechanist plan --from', () => {
     expect(bad.err).toContain('is not auto, constant or proportional');
   });
 
+  it('when analyze would choose an error model the planner cannot simulate (sqrt), the better of constant and proportional by likelihood is taken', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-sqrt-'));
+    const sim = await run(['simulate', '--mechanism', 'competitive', '--km', '20', '--ki', '0.5', '--substrate', '4,8,16,32,64,128', '--inhibitor', '0,0.5,1.5', '--replicates', '4', '--noise', 'sqrt', '--seed', '1', '-o', join(dir, 'plate.csv')]);
+    expect(sim.code).toBe(0);
+    const analysed = JSON.parse((await run(['analyze', join(dir, 'plate.csv'), '--json'])).out);
+    expect(analysed.errorModel).toBe('sqrt');
+    // analyze's own scores: the best AICc under each error model
+    const scores = analysed.diagnostics.errorModelChoice.scores as Array<{ errorModel: string; bestAicc: number }>;
+    const plannable = scores.filter((x) => x.errorModel === 'constant' || x.errorModel === 'proportional').sort((a, b) => a.bestAicc - b.bestAicc);
+    const r = await run(['plan', '--from', join(dir, 'plate.csv'), '--wells', '24', '--no-simulate', '--json']);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).notes.join(' ')).toContain(`noise ${plannable[0].errorModel} `);
+  });
+
   it('usage errors: --from with --km, a JSON that is not an analysis', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'mechanist-plan-from-'));
     writeFileSync(join(dir, 'x.json'), '{"a": 1}');

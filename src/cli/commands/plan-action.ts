@@ -106,19 +106,14 @@ async function readFollowUp(o: PlanCliOptions, cwd: string): Promise<FollowUpBas
 
 /**
  * The analysis a follow-up plan starts from. The planner simulates constant or proportional noise, so
- * 'auto' (the default, as for `analyze`) is the choice by likelihood between those two: when `analyze`'s
- * own choice falls on another error model, the better of the two by best AICc is used instead.
+ * 'auto' (the default, as for `analyze`) is the choice by likelihood between those two.
  */
 function analyzeForPlanning(table: RateTable, error: 'auto' | 'constant' | 'proportional'): AnalysisResult {
-  if (error !== 'auto') return analyzeTable(table, { errorModel: error, detail: 'summary' });
-  const result = analyzeTable(table, { errorModel: 'auto', detail: 'summary' });
-  if (result.errorModel === 'constant' || result.errorModel === 'proportional') return result;
-  const plannable = (result.errorModelChoice?.scores ?? [])
-    .filter((s) => s.errorModel === 'constant' || s.errorModel === 'proportional')
-    .sort((a, b) => a.bestAicc - b.bestAicc);
-  const errorModel = plannable[0]?.errorModel === 'proportional' ? 'proportional' : 'constant';
-  return analyzeTable(table, { errorModel, detail: 'summary' });
+  return analyzeTable(table, { errorModel: error, ...(error === 'auto' ? { autoAmong: PLANNED_NOISE } : {}), detail: 'summary' });
 }
+
+/** The error models the planner simulates. */
+const PLANNED_NOISE = ['constant', 'proportional'] as const;
 
 /** Builds the library request from the options; `basis` from --from (readFollowUp has refused --km, --ki and --ic50 with it). */
 function planRequestFrom(o: PlanCliOptions, basis?: FollowUpBasis): PlanRequest {
